@@ -1,0 +1,235 @@
+//! Errors a person can act on.
+//!
+//! Every problem with the user's input becomes an [`Error::Input`] that names where it sits
+//! (file, line, column, field) and, where we can, what to write instead. The binary turns the
+//! error into one message and a documented exit code (see [`Error::exit_code`]).
+
+use std::fmt;
+use std::path::PathBuf;
+
+/// Result type used throughout the library.
+pub type Result<T, E = Error> = std::result::Result<T, E>;
+
+/// Exit code for a run that found bad input (a file, an inline spec or an option value).
+pub const EXIT_BAD_INPUT: u8 = 2;
+/// Exit code for a run that could not finish for another reason (e.g. the output could not be written).
+pub const EXIT_FAILURE: u8 = 1;
+
+/// Where in the user's input a problem sits. Every part is optional: an inline spec has no
+/// file, a semantic check may know the field but not the line.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
+pub struct Location {
+    /// The file's path as the user gave it, or a label such as `--tuning` for inline input.
+    pub origin: Option<String>,
+    /// 1-based line.
+    pub line: Option<usize>,
+    /// 1-based column.
+    pub column: Option<usize>,
+    /// Dotted path of the field, e.g. `courses[3].length`.
+    pub field: Option<String>,
+}
+
+impl fmt::Display for Location {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let mut wrote = false;
+        if let Some(origin) = &self.origin {
+            write!(f, "{origin}")?;
+            if let Some(line) = self.line {
+                write!(f, ":{line}")?;
+                if let Some(column) = self.column {
+                    write!(f, ":{column}")?;
+                }
+            }
+            wrote = true;
+        } else if let Some(line) = self.line {
+            write!(f, "line {line}")?;
+            if let Some(column) = self.column {
+                write!(f, ", column {column}")?;
+            }
+            wrote = true;
+        }
+        if let Some(field) = &self.field {
+            if wrote {
+                write!(f, ": ")?;
+            }
+            write!(f, "field `{field}`")?;
+        }
+        Ok(())
+    }
+}
+
+/// Everything that can go wrong in `taut`.
+#[derive(Debug, thiserror::Error)]
+pub enum Error {
+    /// The user's input is wrong or cannot be honoured.
+    #[error("{}", render_input(location, message, help.as_deref()))]
+    Input {
+        /// Where the problem sits.
+        location: Location,
+        /// What is wrong, as one sentence.
+        message: String,
+        /// What to write instead, when we know.
+        help: Option<String>,
+    },
+    /// An input file could not be read.
+    #[error("cannot read {}: {source}", path.display())]
+    Read {
+        /// The path as given.
+        path: PathBuf,
+        /// The operating system's reason.
+        #[source]
+        source: std::io::Error,
+    },
+    /// An output file could not be written; nothing of it was left behind.
+    #[error("cannot write {}: {source}", path.display())]
+    Write {
+        /// The path as given.
+        path: PathBuf,
+        /// The operating system's reason.
+        #[source]
+        source: std::io::Error,
+    },
+}
+
+fn render_input(location: &Location, message: &str, help: Option<&str>) -> String {
+    let place = location.to_string();
+    let mut out = if place.is_empty() {
+        message.to_string()
+    } else {
+        format!("{place}: {message}")
+    };
+    if let Some(help) = help {
+        out.push_str("\n  help: ");
+        out.push_str(help);
+    }
+    out
+}
+
+impl Error {
+    /// A bad-input error with just a message; add the location with the builder methods.
+    pub fn input(message: impl Into<String>) -> Self {
+        Error::Input {
+            location: Location::default(),
+            message: message.into(),
+            help: None,
+        }
+    }
+
+    /// Sets the origin (file path or option name) unless one is already set.
+    pub fn in_origin(mut self, origin: impl Into<String>) -> Self {
+        if let Error::Input { location, .. } = &mut self {
+            if location.origin.is_none() {
+                location.origin = Some(origin.into());
+            }
+        }
+        self
+    }
+
+    /// Sets line and column (1-based) unless a line is already set.
+    pub fn at(mut self, line: usize, column: usize) -> Self {
+        if let Error::Input { location, .. } = &mut self {
+            if location.line.is_none() {
+                location.line = Some(line);
+                location.column = Some(column);
+            }
+        }
+        self
+    }
+
+    /// Sets the field path unless one is already set.
+    pub fn field(mut self, field: impl Into<String>) -> Self {
+        if let Error::Input { location, .. } = &mut self {
+            if location.field.is_none() {
+                location.field = Some(field.into());
+            }
+        }
+        self
+    }
+
+    /// Prefixes the field path with a parent, e.g. `pitch` inside `courses[2]` becomes `courses[2].pitch`.
+    pub fn within(mut self, parent: &str) -> Self {
+        if let Error::Input { location, .. } = &mut self {
+            location.field = Some(match location.field.take() {
+                Some(child) if child.starts_with('[') => format!("{parent}{child}"),
+                Some(child) => format!("{parent}.{child}"),
+                None => parent.to_string(),
+            });
+        }
+        self
+    }
+
+    /// Adds a hint on what to write instead (replaces an earlier hint).
+    pub fn help(mut self, hint: impl Into<String>) -> Self {
+        if let Error::Input { help, .. } = &mut self {
+            *help = Some(hint.into());
+        }
+        self
+    }
+
+    /// The location, for bad-input errors.
+    pub fn location(&self) -> Option<&Location> {
+        match self {
+            Error::Input { location, .. } => Some(location),
+            _ => None,
+        }
+    }
+
+    /// The documented process exit code for this error: [`EXIT_BAD_INPUT`] for anything the user
+    /// can fix in their input (including an input file that cannot be read), [`EXIT_FAILURE`]
+    /// otherwise.
+    pub fn exit_code(&self) -> u8 {
+        match self {
+            Error::Input { .. } | Error::Read { .. } => EXIT_BAD_INPUT,
+            Error::Write { .. } => EXIT_FAILURE,
+        }
+    }
+}
+
+/// The closest of `candidates` to `word`, if it is close enough to be a likely misspelling.
+pub fn did_you_mean<'a>(
+    word: &str,
+    candidates: impl IntoIterator<Item = &'a str>,
+) -> Option<&'a str> {
+    candidates
+        .into_iter()
+        .map(|candidate| (strsim::jaro_winkler(word, candidate), candidate))
+        .filter(|(score, _)| *score > 0.8)
+        .max_by(|a, b| a.0.total_cmp(&b.0))
+        .map(|(_, candidate)| candidate)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn renders_full_location_field_and_help() {
+        let err = Error::input("length must be greater than zero")
+            .field("length")
+            .within("courses[3]")
+            .at(12, 5)
+            .in_origin("harp.yaml")
+            .help("write a length such as `648mm`");
+        assert_eq!(
+            err.to_string(),
+            "harp.yaml:12:5: field `courses[3].length`: length must be greater than zero\n  help: write a length such as `648mm`"
+        );
+        assert_eq!(err.exit_code(), EXIT_BAD_INPUT);
+    }
+
+    #[test]
+    fn inner_location_wins_over_outer() {
+        let err = Error::input("bad")
+            .at(3, 1)
+            .at(9, 9)
+            .in_origin("a")
+            .in_origin("b");
+        assert_eq!(err.to_string(), "a:3:1: bad");
+    }
+
+    #[test]
+    fn suggests_close_names_only() {
+        assert_eq!(did_you_mean("lenght", ["length", "pitch"]), Some("length"));
+        assert_eq!(did_you_mean("zzz", ["length", "pitch"]), None);
+    }
+}

@@ -1,0 +1,19 @@
+//! `taut`: plan the strings for any tuning on any multi-course instrument.
+//!
+//! The library is laid out in the order data flows through it:
+//!
+//! | stage | module |
+//! |---|---|
+//! | read input | [`yaml`] (the one YAML reader), [`units`] (quantities with units) |
+//! | pitch | [`pitch`] (pitch addressing), [`tuning`] (tuning definitions, library, analysis) |
+//!
+//! Errors are [`error::Error`]; every bad input names its file, line and field.
+#![cfg_attr(
+    not(test),
+    deny(clippy::unwrap_used, clippy::expect_used, clippy::panic)
+)]
+
+pub mod error;
+pub mod yaml;
+
+pub use error::{Error, Result};

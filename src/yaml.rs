@@ -1,0 +1,378 @@
+//! The one place that reads YAML.
+//!
+//! All of `taut`'s definition files (tunings, instruments, string sets, materials, gauge catalogs)
+//! go through [`parse`], so the YAML crate can be swapped here alone. Reading a file goes through
+//! [`read_text`], which refuses oversized, binary and non-UTF-8 files with a clear message.
+//!
+//! Validation belongs in deserialization (`#[serde(try_from = ...)]`, checked newtypes), because
+//! that is where the YAML parser still knows the line and column; errors found later can be
+//! pointed back at their line with [`locate`].
+
+use std::path::Path;
+
+use serde::de::DeserializeOwned;
+
+use crate::error::{did_you_mean, Error, Result};
+
+/// Largest input file `taut` reads, in bytes. Real definition files are a few kilobytes; this
+/// bound keeps a mistaken path (a disk image, a log) from eating the machine.
+pub const MAX_INPUT_BYTES: u64 = 4 * 1024 * 1024;
+
+/// Reads a UTF-8 text file, refusing files that are missing, too large, binary or not UTF-8.
+pub fn read_text(path: &Path) -> Result<String> {
+    let shown = path.display().to_string();
+    let metadata = std::fs::metadata(path).map_err(|source| Error::Read {
+        path: path.to_path_buf(),
+        source,
+    })?;
+    if metadata.is_dir() {
+        return Err(Error::input("this is a folder, not a file").in_origin(shown));
+    }
+    if metadata.len() > MAX_INPUT_BYTES {
+        return Err(Error::input(format!(
+            "the file is {} bytes; taut reads definition files of at most {} bytes",
+            metadata.len(),
+            MAX_INPUT_BYTES
+        ))
+        .in_origin(shown));
+    }
+    let bytes = std::fs::read(path).map_err(|source| Error::Read {
+        path: path.to_path_buf(),
+        source,
+    })?;
+    text_from_bytes(bytes, &shown)
+}
+
+/// Checks that `bytes` are UTF-8 text without NUL bytes, naming the line of the first bad byte.
+pub fn text_from_bytes(bytes: Vec<u8>, origin: &str) -> Result<String> {
+    if let Some(offset) = bytes.iter().position(|&b| b == 0) {
+        let (line, column) = line_column_of_offset(&bytes, offset);
+        return Err(Error::input(
+            "this looks like a binary file (it contains a NUL byte), not a YAML text file",
+        )
+        .at(line, column)
+        .in_origin(origin));
+    }
+    String::from_utf8(bytes).map_err(|err| {
+        let offset = err.utf8_error().valid_up_to();
+        let (line, column) = line_column_of_offset(err.as_bytes(), offset);
+        Error::input("the file is not UTF-8 text")
+            .at(line, column)
+            .in_origin(origin)
+            .help("save the file as UTF-8")
+    })
+}
+
+fn line_column_of_offset(bytes: &[u8], offset: usize) -> (usize, usize) {
+    let before = &bytes[..offset.min(bytes.len())];
+    let line = before.iter().filter(|&&b| b == b'\n').count() + 1;
+    let line_start = before
+        .iter()
+        .rposition(|&b| b == b'\n')
+        .map_or(0, |p| p + 1);
+    (line, offset - line_start + 1)
+}
+
+/// Parses one YAML document into `T`, naming `origin` (a path or an option name) in errors,
+/// with the line, column and field path of the first problem.
+pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
+    if text.trim().is_empty()
+        || text
+            .lines()
+            .all(|l| l.trim().is_empty() || l.trim_start().starts_with('#'))
+    {
+        return Err(Error::input("the file is empty").in_origin(origin));
+    }
+    if let Some((line_number, _)) = text
+        .lines()
+        .enumerate()
+        .find(|(_, line)| line.trim() == "---" || line.starts_with("--- "))
+        .filter(|(n, _)| {
+            text.lines()
+                .take(*n)
+                .any(|l| !l.trim().is_empty() && !l.trim_start().starts_with('#'))
+        })
+    {
+        return Err(
+            Error::input("the file holds more than one YAML document; taut reads one")
+                .at(line_number + 1, 1)
+                .in_origin(origin),
+        );
+    }
+    let deserializer = serde_yaml::Deserializer::from_str(text);
+    serde_path_to_error::deserialize(deserializer).map_err(|err| {
+        let path = err.path().to_string();
+        let inner = err.into_inner();
+        convert_error(&inner, &path).in_origin(origin)
+    })
+}
+
+fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
+    let raw = err.to_string();
+    // serde_yaml appends " at line L column C" and sometimes prefixes the path; keep the sentence.
+    let mut message = raw.split(" at line ").next().unwrap_or(&raw).to_string();
+    // serde_yaml may prefix its own (shorter) path; the field is reported separately.
+    if let Some((prefix, rest)) = message.split_once(": ") {
+        if !prefix.contains(' ') && (path.starts_with(prefix) || prefix == ".") {
+            message = rest.to_string();
+        }
+    }
+    let mut error = Error::input(message.clone());
+    if let Some(location) = err.location() {
+        error = error.at(location.line(), location.column());
+    }
+    if !path.is_empty() && path != "." {
+        error = error.field(path);
+    }
+    if let Some(hint) = unknown_field_hint(&message) {
+        error = error.help(hint);
+    } else if message.contains("found character that cannot start any token")
+        || message.contains("\t")
+    {
+        error = error.help("YAML is indented with spaces; replace tabs with spaces");
+    } else if message.contains("recursion limit exceeded")
+        || message.contains("repetition limit exceeded")
+    {
+        error = error.help(
+            "the document nests too deeply or repeats aliases too often to be a real definition",
+        );
+    }
+    error
+}
+
+/// For serde's "unknown field `x`, expected one of `a`, `b`" messages, suggests the closest name.
+fn unknown_field_hint(message: &str) -> Option<String> {
+    let rest = message
+        .strip_prefix("unknown field `")
+        .or_else(|| message.strip_prefix("unknown variant `"))?;
+    let (word, expected) = rest.split_once('`')?;
+    let candidates: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
+    match did_you_mean(word, candidates.iter().copied()) {
+        Some(best) => Some(format!("did you mean `{best}`?")),
+        None if !candidates.is_empty() => Some(format!("allowed: {}", candidates.join(", "))),
+        None => None,
+    }
+}
+
+/// One step of a field path: a map key or a sequence index.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum PathStep<'a> {
+    /// A key in a mapping.
+    Key(&'a str),
+    /// A 0-based index in a sequence.
+    Index(usize),
+}
+
+/// Finds the 1-based line and column of a field in block-style YAML, for errors found after
+/// deserialization (e.g. a pitch the tuning cannot address). Returns `None` where the document
+/// uses flow style or the path is not found; the error then still names the field.
+pub fn locate(text: &str, path: &[PathStep<'_>]) -> Option<(usize, usize)> {
+    let lines: Vec<&str> = text.lines().collect();
+    let is_content = |line: &str| {
+        let t = line.trim_start();
+        !t.is_empty() && !t.starts_with('#')
+    };
+    let leading = |line: &str| line.len() - line.trim_start_matches(' ').len();
+    // The scope being searched: a range of lines.
+    let (mut start, mut end) = (0usize, lines.len());
+    let mut found = None;
+    for (i, step) in path.iter().enumerate() {
+        let first = (start..end).find(|&n| is_content(lines[n]))?;
+        match step {
+            PathStep::Key(key) => {
+                // Keys of this mapping sit at the effective indentation of its first line.
+                let key_indent = split_item_prefix(lines[first]).0;
+                let n = (first..end).find(|&n| {
+                    let (indent, body) = split_item_prefix(lines[n]);
+                    indent == key_indent
+                        && body
+                            .strip_prefix(key)
+                            .map(|rest| {
+                                rest.trim_start_matches(['"', '\''])
+                                    .trim_start()
+                                    .starts_with(':')
+                            })
+                            .unwrap_or(false)
+                })?;
+                found = Some((n + 1, key_indent + 1));
+                let own = leading(lines[n]);
+                let block_end = (n + 1..end)
+                    .find(|&m| {
+                        is_content(lines[m])
+                            && (leading(lines[m]) < own
+                                || (leading(lines[m]) == own
+                                    && !lines[m].trim_start().starts_with("- ")))
+                    })
+                    .unwrap_or(end);
+                let value_on_same_line = lines[n]
+                    .split_once(':')
+                    .is_some_and(|(_, v)| !v.trim().is_empty());
+                start = if value_on_same_line { n } else { n + 1 };
+                end = block_end.max(n + 1);
+            }
+            PathStep::Index(wanted) => {
+                let dash_indent = leading(lines[first]);
+                if !lines[first].trim_start().starts_with('-') {
+                    return None;
+                }
+                let items: Vec<usize> = (first..end)
+                    .filter(|&n| {
+                        leading(lines[n]) == dash_indent && lines[n].trim_start().starts_with('-')
+                    })
+                    .collect();
+                let n = *items.get(*wanted)?;
+                let item_end = items.get(wanted + 1).copied().unwrap_or(end);
+                let found = Some((n + 1, dash_indent + 3));
+                return locate_in_item(&lines, n, item_end, dash_indent, &path[i + 1..]).or(found);
+            }
+        }
+    }
+    found
+}
+
+/// Continues [`locate`] inside one sequence item whose dash sits at `dash_indent`.
+fn locate_in_item(
+    lines: &[&str],
+    start: usize,
+    end: usize,
+    dash_indent: usize,
+    rest: &[PathStep<'_>],
+) -> Option<(usize, usize)> {
+    if rest.is_empty() {
+        return None;
+    }
+    // Replace the item's dash by a space, so the item reads as a plain mapping.
+    let mut owned: Vec<String> = lines[start..end].iter().map(|l| l.to_string()).collect();
+    if let Some(first) = owned.first_mut() {
+        if first.len() > dash_indent {
+            first.replace_range(dash_indent..dash_indent + 1, " ");
+        }
+    }
+    let text = owned.join("\n");
+    locate(&text, rest).map(|(line, column)| (line + start, column))
+}
+
+/// Splits a line into its indentation (counting a leading `- ` as indentation) and its body.
+fn split_item_prefix(line: &str) -> (usize, &str) {
+    let mut indent = 0;
+    let mut body = line;
+    loop {
+        let trimmed = body.trim_start_matches(' ');
+        indent += body.len() - trimmed.len();
+        if let Some(rest) = trimmed.strip_prefix("- ") {
+            indent += 2;
+            body = rest;
+        } else {
+            return (indent, trimmed);
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use serde::Deserialize;
+
+    #[derive(Debug, Deserialize)]
+    #[serde(deny_unknown_fields)]
+    #[allow(dead_code)]
+    struct Course {
+        length: f64,
+        pitch: String,
+    }
+
+    #[derive(Debug, Deserialize)]
+    #[serde(deny_unknown_fields)]
+    #[allow(dead_code)]
+    struct Doc {
+        name: String,
+        courses: Vec<Course>,
+    }
+
+    #[test]
+    fn unknown_key_names_line_field_and_suggestion() {
+        let text =
+            "name: x\ncourses:\n  - length: 1\n    pitch: E2\n  - lenght: 2\n    pitch: A2\n";
+        let err = parse::<Doc>(text, "i.yaml").unwrap_err().to_string();
+        assert!(err.starts_with("i.yaml:5:"), "{err}");
+        assert!(err.contains("courses[1]"), "{err}");
+        assert!(err.contains("did you mean `length`?"), "{err}");
+    }
+
+    #[test]
+    fn wrong_type_names_field() {
+        let text = "name: x\ncourses:\n  - length: long\n    pitch: E2\n";
+        let err = parse::<Doc>(text, "i.yaml").unwrap_err().to_string();
+        assert!(err.contains("i.yaml:3:"), "{err}");
+        assert!(err.contains("courses[0].length"), "{err}");
+    }
+
+    #[test]
+    fn empty_and_binary_and_non_utf8_are_refused() {
+        assert!(parse::<Doc>("  \n# only a comment\n", "e.yaml")
+            .unwrap_err()
+            .to_string()
+            .contains("empty"));
+        let err = text_from_bytes(b"name: x\n\0\0".to_vec(), "b.yaml")
+            .unwrap_err()
+            .to_string();
+        assert!(
+            err.starts_with("b.yaml:2:1:") && err.contains("binary"),
+            "{err}"
+        );
+        let err = text_from_bytes(b"name: \xff\n".to_vec(), "u.yaml")
+            .unwrap_err()
+            .to_string();
+        assert!(
+            err.starts_with("u.yaml:1:7:") && err.contains("UTF-8"),
+            "{err}"
+        );
+    }
+
+    #[test]
+    fn alias_bomb_is_refused() {
+        let mut text = String::from("a0: &a0 [x, x, x, x, x, x, x, x, x, x]\n");
+        for i in 1..10 {
+            let p = i - 1;
+            text.push_str(&format!(
+                "a{i}: &a{i} [*a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}]\n"
+            ));
+        }
+        let result = parse::<serde_yaml::Value>(&text, "bomb.yaml");
+        assert!(result.is_err());
+    }
+
+    #[test]
+    fn locate_finds_nested_fields() {
+        let text =
+            "name: x\ncourses:\n  - length: 1\n    pitch: E2\n  - length: 2\n    pitch: A2\n";
+        assert_eq!(locate(text, &[PathStep::Key("name")]), Some((1, 1)));
+        assert_eq!(
+            locate(text, &[PathStep::Key("courses"), PathStep::Index(1)]),
+            Some((5, 5))
+        );
+        assert_eq!(
+            locate(
+                text,
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(1),
+                    PathStep::Key("pitch")
+                ]
+            ),
+            Some((6, 5))
+        );
+        assert_eq!(
+            locate(
+                text,
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(0),
+                    PathStep::Key("length")
+                ]
+            ),
+            Some((3, 5))
+        );
+        assert_eq!(locate(text, &[PathStep::Key("missing")]), None);
+    }
+}
