@@ -14,6 +14,7 @@
 )]
 
 pub mod error;
+pub mod units;
 pub mod yaml;
 
 pub use error::{Error, Result};
