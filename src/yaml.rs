@@ -227,20 +227,38 @@ fn first_too_deep_flow(text: &str) -> Option<(usize, usize)> {
 
 fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
     let raw = err.to_string();
+    // The scanner adds where the construct it was reading began (", while scanning a quoted
+    // scalar at line 1 column 7"): the only pointer to an unclosed quote, so keep it.
+    let (head, context) = match raw.split_once(", while ") {
+        Some((head, context))
+            if context.starts_with("scanning") || context.starts_with("parsing") =>
+        {
+            (head, Some(context))
+        }
+        _ => (raw.as_str(), None),
+    };
     // serde_yaml appends " at line L column C" and sometimes prefixes the path; keep the sentence.
-    let mut message = raw.split(" at line ").next().unwrap_or(&raw).to_string();
+    let mut message = head.split(" at line ").next().unwrap_or(head).to_string();
     // serde_yaml may prefix its own (shorter) path; the field is reported separately.
     if let Some((prefix, rest)) = message.split_once(": ") {
         if !prefix.contains(' ') && (path.starts_with(prefix) || prefix == ".") {
             message = rest.to_string();
         }
     }
+    if let Some(context) = context {
+        let context = context
+            .replace(" at line ", " that starts at line ")
+            .replace(" column ", ", column ");
+        message.push_str(&format!(" (while {context})"));
+    }
     let mut error = Error::input(message.clone());
     if let Some(location) = err.location() {
         error = error.at(location.line(), location.column());
     }
-    if !path.is_empty() && path != "." {
-        error = error.field(path);
+    // serde_path_to_error writes `?` for a place it cannot name; say nothing rather than that.
+    let path = path.trim_end_matches(".?");
+    if !path.is_empty() && path != "." && path != "?" {
+        error = error.field(shorten_field(path));
     }
     if let Some(hint) = unknown_field_hint(&message) {
         error = error.help(hint);
@@ -248,6 +266,8 @@ fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
         || message.contains("\t")
     {
         error = error.help("YAML is indented with spaces; replace tabs with spaces");
+    } else if message.contains("while scanning a quoted scalar") {
+        error = error.help("a quote is opened and never closed; close it where the text ends");
     } else if message.contains("recursion limit exceeded")
         || message.contains("repetition limit exceeded")
     {
@@ -256,6 +276,15 @@ fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
         );
     }
     error
+}
+
+/// Cuts a field path that a deeply nested document made too long to read.
+fn shorten_field(path: &str) -> String {
+    const SHOWN: usize = 80;
+    match path.char_indices().nth(SHOWN) {
+        Some((cut, _)) => format!("{}…", &path[..cut]),
+        None => path.to_string(),
+    }
 }
 
 /// For serde's "unknown field `x`, expected one of `a`, `b`" messages, suggests the closest name.
