@@ -164,7 +164,17 @@ pub fn parse_quantity(text: &str, dimension: Dimension) -> Result<f64> {
         )));
     }
     match UNITS.iter().find(|(symbol, _, _)| *symbol == unit) {
-        Some((_, found, factor)) if *found == dimension => Ok(value * factor),
+        Some((_, found, factor)) if *found == dimension => {
+            // A finite number can still overflow once converted (1e308 kN).
+            let si = value * factor;
+            if si.is_finite() {
+                Ok(si)
+            } else {
+                Err(Error::input(format!(
+                    "`{trimmed}` is too large to compute with"
+                )))
+            }
+        }
         Some((_, found, _)) => Err(Error::input(format!(
             "`{trimmed}` is {}, but this field needs {}",
             found.noun(),
