@@ -110,9 +110,22 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
     let deserializer = serde_yaml::Deserializer::from_str(text);
     serde_path_to_error::deserialize(deserializer).map_err(|err| {
         let path = err.path().to_string();
+        let field_position = locate(text, &path_steps(err.path()));
         let inner = err.into_inner();
-        convert_error(&inner, &path).in_origin(origin)
+        convert_error(&inner, &path, field_position).in_origin(origin)
     })
+}
+
+/// The leading steps of a serde path that [`locate`] can follow.
+fn path_steps(path: &serde_path_to_error::Path) -> Vec<PathStep<'_>> {
+    use serde_path_to_error::Segment;
+    path.iter()
+        .map_while(|segment| match segment {
+            Segment::Seq { index } => Some(PathStep::Index(*index)),
+            Segment::Map { key } => Some(PathStep::Key(key.as_str())),
+            _ => None,
+        })
+        .collect()
 }
 
 /// Deepest nesting of flow collections (`[...]`, `{...}`) that [`parse`] hands to the YAML
@@ -225,7 +238,11 @@ fn first_too_deep_flow(text: &str) -> Option<(usize, usize)> {
     None
 }
 
-fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
+fn convert_error(
+    err: &serde_yaml::Error,
+    path: &str,
+    field_position: Option<(usize, usize)>,
+) -> Error {
     let raw = err.to_string();
     // The scanner adds where the construct it was reading began (", while scanning a quoted
     // scalar at line 1 column 7"): the only pointer to an unclosed quote, so keep it.
@@ -241,7 +258,8 @@ fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
     let mut message = head.split(" at line ").next().unwrap_or(head).to_string();
     // serde_yaml may prefix its own (shorter) path; the field is reported separately.
     if let Some((prefix, rest)) = message.split_once(": ") {
-        if !prefix.contains(' ') && (path.starts_with(prefix) || prefix == ".") {
+        let own_path = prefix.strip_prefix('.').unwrap_or(prefix);
+        if !prefix.contains(' ') && (path.starts_with(own_path) || prefix == ".") {
             message = rest.to_string();
         }
     }
@@ -252,8 +270,16 @@ fn convert_error(err: &serde_yaml::Error, path: &str) -> Error {
         message.push_str(&format!(" (while {context})"));
     }
     let mut error = Error::input(message.clone());
-    if let Some(location) = err.location() {
-        error = error.at(location.line(), location.column());
+    // A value's own check (`#[serde(try_from)]`, a quantity's unit) is reported by serde_yaml at
+    // the start of the enclosing mapping, often line 1; the field's own line is more use.
+    let serde_position = err.location().map(|l| (l.line(), l.column()));
+    let position = match (serde_position, field_position) {
+        (Some(reported), Some(field)) if field.0 > reported.0 => Some(field),
+        (Some(reported), _) => Some(reported),
+        (None, field) => field,
+    };
+    if let Some((line, column)) = position {
+        error = error.at(line, column);
     }
     // serde_path_to_error writes `?` for a place it cannot name; say nothing rather than that.
     let path = path.trim_end_matches(".?");
