@@ -110,7 +110,10 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
     let deserializer = serde_yaml::Deserializer::from_str(text);
     serde_path_to_error::deserialize(deserializer).map_err(|err| {
         let path = err.path().to_string();
-        let field_position = locate(text, &path_steps(err.path()));
+        // Real paths are a few steps; a path hundreds deep (a hostile document) would make the
+        // line search slow for no gain.
+        let steps = path_steps(err.path());
+        let field_position = (steps.len() <= 16).then(|| locate(text, &steps)).flatten();
         let inner = err.into_inner();
         convert_error(&inner, &path, field_position).in_origin(origin)
     })
