@@ -179,11 +179,7 @@ fn first_too_deep_flow(text: &str) -> Option<(usize, usize)> {
         match state {
             State::Comment => {}
             State::DoubleQuoted => match c {
-                '\\' => {
-                    if chars.next_if(|&n| n != '\n').is_some() {
-                        column += 1;
-                    }
-                }
+                '\\' if chars.next_if(|&n| n != '\n').is_some() => column += 1,
                 '"' => state = State::Outside,
                 _ => {}
             },
