@@ -18,3 +18,6 @@ pub mod units;
 pub mod yaml;
 
 pub use error::{Error, Result};
+pub mod instrument;
+pub mod plan;
+pub mod warning;
