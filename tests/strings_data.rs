@@ -14,7 +14,11 @@ fn shipped_materials_catalogs_and_kinds_load() {
     for kind in kinds.all() {
         assert!(!kind.gauges().is_empty(), "{}", kind.id);
         for gauge in kind.gauges() {
-            assert!(gauge.unit_mass > 0.0 && gauge.breaking_tension > 0.0, "{}", kind.id);
+            assert!(
+                gauge.unit_mass > 0.0 && gauge.breaking_tension > 0.0,
+                "{}",
+                kind.id
+            );
         }
     }
 }
