@@ -26,6 +26,7 @@ pub mod physics;
 pub mod pitch;
 pub mod plan;
 pub mod select;
+pub mod solve;
 pub mod tuning;
 pub mod units;
 pub mod warning;

@@ -5,26 +5,8 @@
 
 use serde::{Deserialize, Serialize};
 
-/// Default fraction of the breaking strength above which a string gets a caution.
-///
-/// Source: Budynas & Nisbett, *Shigley's Mechanical Engineering Design*, 9th ed., Table 10-5,
-/// gives the elastic limit of music wire in tension as 65–75 % of its ultimate strength
-/// (REFERENCES.md §4.1, READ); a string held above about 70 % sits near the point where it
-/// stretches for good and keeps going flat. The same fraction is used for other materials
-/// (common practice).
-pub const DEFAULT_CAUTION_FRACTION: f64 = 0.70;
-
-/// Default fraction of the breaking strength above which a string gets a danger warning.
-///
-/// 85 % is about 1.4 semitones below the breaking pitch, since stress grows as f²
-/// (2^(−1.4/6) ≈ 0.85, REFERENCES.md §1.2, DERIVED): a slip of the tuner or an unnoticed
-/// overshoot breaks it. Common practice.
-pub const DEFAULT_DANGER_FRACTION: f64 = 0.85;
-
-/// Default relative distance between a chosen string's tension and the target above which the
-/// catalog is said to have nothing close. Common practice: neighbouring steps of the usual gauge
-/// catalogs change tension by 10–20 %, so the nearest is normally within 10 %.
-pub const DEFAULT_TOLERANCE_FRACTION: f64 = 0.10;
+// The stress limits and the tension tolerance are the selector's (`crate::select`), where their
+// sources are given: caution above 65 %, danger above 85 % of breaking strength, ±10 % tolerance.
 
 /// What a warning is about. Serialized in snake_case (`stress_danger`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
@@ -162,14 +144,25 @@ impl StringRef {
         pitch_hz: f64,
     ) -> Warning {
         let semitones = 12.0 * (break_pitch_hz / pitch_hz).log2();
-        let message = format!(
-            "{} runs at {:.0}% of its breaking strength (limit {:.0}%); it would break near {:.1} Hz, {:.1} semitones above its pitch.",
-            self.named(),
-            stress_ratio * 100.0,
-            limit * 100.0,
-            break_pitch_hz,
-            semitones
-        );
+        let message = if stress_ratio >= 1.0 {
+            format!(
+                "{} would need {:.0}% of its breaking strength (limit {:.0}%): it breaks near {:.1} Hz, {:.1} semitones before it reaches its pitch.",
+                self.named(),
+                stress_ratio * 100.0,
+                limit * 100.0,
+                break_pitch_hz,
+                -semitones
+            )
+        } else {
+            format!(
+                "{} runs at {:.0}% of its breaking strength (limit {:.0}%); it would break near {:.1} Hz, {:.1} semitones above its pitch.",
+                self.named(),
+                stress_ratio * 100.0,
+                limit * 100.0,
+                break_pitch_hz,
+                semitones
+            )
+        };
         self.warning(kind, stress_ratio, limit, message)
     }
 
