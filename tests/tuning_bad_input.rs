@@ -15,8 +15,23 @@ const HEAD: &str = "name: test\ndescription: a test scale\n";
 
 #[test]
 fn malformed_yaml_names_file_and_line() {
-    let err = bad_file(&format!("{HEAD}divisions: [12\nperiod: 2/1\n"));
-    assert!(err.contains("scale.yaml:"), "{err}");
+    // A syntax error: a second colon in a plain value.
+    let err = bad_file(&format!("{HEAD}divisions: 12\nperiod: 2/1: x\n"));
+    assert!(err.contains("scale.yaml:4:"), "{err}");
+    // An unterminated quoted string: the parser only notices at the end, but names the field.
+    let err = bad_file(&format!(
+        "{HEAD}divisions: 12\nperiod: \"2/1\nreference: x\n"
+    ));
+    assert!(
+        err.contains("scale.yaml:") && err.contains("`period`"),
+        "{err}"
+    );
+    // A list where a number belongs.
+    let err = bad_file(&format!("{HEAD}divisions: [12]\n"));
+    assert!(err.contains("scale.yaml:3:"), "{err}");
+    assert!(err.contains("field `divisions`"), "{err}");
+    // Tabs for indentation.
+    let err = bad_file(&format!("{HEAD}chain:\n\tgenerator: 3/2\n"));
     assert!(
         err.contains("scale.yaml:3:") || err.contains("scale.yaml:4:"),
         "{err}"
