@@ -18,6 +18,8 @@ proptest! {
 
     #[test]
     fn every_edo_degree_n_is_one_period_up(divisions in 1u32..2000, k in -5000i64..5000) {
+        // Beyond about 1000 octaves from 440 Hz a frequency no longer fits in an f64.
+        prop_assume!(k.abs() / i64::from(divisions) < 900);
         let tuning = load(&format!("{divisions}edo")).unwrap();
         let n = i64::from(divisions);
         let low = tuning.degree(k).unwrap();
@@ -58,6 +60,7 @@ proptest! {
 
     #[test]
     fn nearest_degree_of_a_degree_is_itself(divisions in 1u32..500, k in -2000i64..2000) {
+        prop_assume!(k.abs() / i64::from(divisions) < 900);
         let tuning = load(&format!("{divisions}edo")).unwrap();
         let pitch = tuning.degree(k).unwrap();
         prop_assert_eq!(tuning.nearest_degree(pitch.hz).unwrap().degree, k);
