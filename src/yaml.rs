@@ -36,10 +36,24 @@ pub fn read_text(path: &Path) -> Result<String> {
         ))
         .in_origin(shown));
     }
-    let bytes = std::fs::read(path).map_err(|source| Error::Read {
-        path: path.to_path_buf(),
-        source,
-    })?;
+    // Devices and pipes report a length of 0 (`/dev/zero`, `<(cmd)`): read at most one byte past
+    // the limit, so an endless stream is refused instead of filling the memory.
+    let mut bytes = Vec::new();
+    std::fs::File::open(path)
+        .and_then(|file| {
+            use std::io::Read;
+            file.take(MAX_INPUT_BYTES + 1).read_to_end(&mut bytes)
+        })
+        .map_err(|source| Error::Read {
+            path: path.to_path_buf(),
+            source,
+        })?;
+    if bytes.len() as u64 > MAX_INPUT_BYTES {
+        return Err(Error::input(format!(
+            "the input goes on past {MAX_INPUT_BYTES} bytes; taut reads definition files of at most {MAX_INPUT_BYTES} bytes"
+        ))
+        .in_origin(shown));
+    }
     text_from_bytes(bytes, &shown)
 }
 
