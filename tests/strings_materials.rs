@@ -165,9 +165,9 @@ fn bad_user_materials_are_named_by_file_line_and_field() {
     let err = load_materials_file(&no_unit, "shelf.yaml")
         .unwrap_err()
         .to_string();
-    // The quantity reader reports the entry's line for a bare number; the field names the key.
+    // The reader points a bare number at the key's own line (line 4 of USER_MATERIAL).
     assert!(
-        err.starts_with("shelf.yaml:2:")
+        err.starts_with("shelf.yaml:4:")
             && err.contains("materials[0].density")
             && err.contains("no unit"),
         "{err}"
