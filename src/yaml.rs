@@ -123,14 +123,56 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
     }
     let deserializer = serde_yaml::Deserializer::from_str(text);
     serde_path_to_error::deserialize(deserializer).map_err(|err| {
-        let path = err.path().to_string();
+        let mut path = err.path().to_string();
         // Real paths are a few steps; a path hundreds deep (a hostile document) would make the
         // line search slow for no gain.
-        let steps = path_steps(err.path());
-        let field_position = (steps.len() <= 16).then(|| locate(text, &steps)).flatten();
+        let mut steps = path_steps(err.path());
+        // serde names a duplicate key but places it at the start of its mapping; point at the
+        // second occurrence instead.
+        let message = err.inner().to_string();
+        let duplicate = message
+            .strip_prefix("duplicate field `")
+            .and_then(|rest| rest.split_once('`'))
+            .map(|(key, _)| key);
+        if let Some(key) = duplicate {
+            steps.push(PathStep::Key(key));
+            path = match path.as_str() {
+                "" | "." | "?" => key.to_string(),
+                parent => format!("{parent}.{key}"),
+            };
+        }
+        let mut field_position = (steps.len() <= 16).then(|| locate(text, &steps)).flatten();
+        if let (Some(key), Some(first)) = (duplicate, field_position) {
+            field_position = next_same_key(text, first, key).or(field_position);
+        }
+        drop(steps);
         let inner = err.into_inner();
         convert_error(&inner, &path, field_position).in_origin(origin)
     })
+}
+
+/// The next line after `first` (1-based line and column of a key) that holds the same key at
+/// the same indentation, before the mapping ends.
+fn next_same_key(text: &str, first: (usize, usize), key: &str) -> Option<(usize, usize)> {
+    let indent = first.1.saturating_sub(1);
+    for (index, line) in text.lines().enumerate().skip(first.0) {
+        let (own_indent, body) = split_item_prefix(line);
+        if body.is_empty() || body.starts_with('#') {
+            continue;
+        }
+        if own_indent < indent {
+            return None;
+        }
+        let same_key = body.strip_prefix(key).is_some_and(|rest| {
+            rest.trim_start_matches(['"', '\''])
+                .trim_start()
+                .starts_with(':')
+        });
+        if own_indent == indent && same_key {
+            return Some((index + 1, first.1));
+        }
+    }
+    None
 }
 
 /// The leading steps of a serde path that [`locate`] can follow.
@@ -303,6 +345,7 @@ fn convert_error(
         error = error.help(hint);
     } else if message.contains("found character that cannot start any token")
         || message.contains("\t")
+        || message.contains("tab character")
     {
         error = error.help("YAML is indented with spaces; replace tabs with spaces");
     } else if message.contains("while scanning a quoted scalar") {
