@@ -102,7 +102,50 @@ fn render_input(location: &Location, message: &str, help: Option<&str>) -> Strin
         out.push_str("\n  help: ");
         out.push_str(help);
     }
-    out
+    clip_long_words(&out)
+}
+
+/// Longest run of non-blank characters a message repeats whole, and the longest message. A
+/// 3 MiB pitch on one line was echoed back in full, twice; its start is enough to find it.
+const MAX_WORD_CHARS: usize = 100;
+const MAX_MESSAGE_CHARS: usize = 3000;
+
+/// Cuts every run of non-blank characters longer than [`MAX_WORD_CHARS`], then the whole text
+/// at [`MAX_MESSAGE_CHARS`].
+fn clip_long_words(text: &str) -> String {
+    let mut out = String::with_capacity(text.len().min(MAX_MESSAGE_CHARS + 100));
+    let mut word = String::new();
+    let mut word_chars = 0usize;
+    let mut flush = |word: &mut String, word_chars: &mut usize, out: &mut String| {
+        if *word_chars > MAX_WORD_CHARS {
+            let cut = word
+                .char_indices()
+                .nth(MAX_WORD_CHARS - 20)
+                .map_or(word.len(), |(i, _)| i);
+            out.push_str(&word[..cut]);
+            out.push_str(&format!("…({word_chars} characters)"));
+        } else {
+            out.push_str(word);
+        }
+        word.clear();
+        *word_chars = 0;
+    };
+    for c in text.chars() {
+        if c.is_whitespace() {
+            flush(&mut word, &mut word_chars, &mut out);
+            out.push(c);
+        } else {
+            word_chars += 1;
+            if word_chars <= MAX_WORD_CHARS {
+                word.push(c);
+            }
+        }
+    }
+    flush(&mut word, &mut word_chars, &mut out);
+    match out.char_indices().nth(MAX_MESSAGE_CHARS) {
+        Some((cut, _)) => format!("{}…", &out[..cut]),
+        None => out,
+    }
 }
 
 impl Error {
