@@ -345,6 +345,20 @@ impl Instrument {
 
     /// Attaches this file's name and, where found, the line of `path` to an error.
     pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
+        // An error from an inline value (`tuning: 0edo`) carries a label for an origin but no
+        // line; keep the label in the message so the file and line can be named.
+        let error = match error {
+            Error::Input {
+                location,
+                message,
+                help,
+            } if location.line.is_none() && location.origin.is_some() => Error::Input {
+                message: format!("{location}: {message}"),
+                location: Default::default(),
+                help,
+            },
+            other => other,
+        };
         let mut error = error.field(field_name(path));
         if let Some((line, column)) = yaml::locate(&self.text, path) {
             error = error.at(line, column);
