@@ -1,385 +1,517 @@
-//! The bad-input catalogue: one test per class of mistake a user (or a hostile file) can make.
+//! The bad-input catalogue: one test per class of mistake a user (or a hostile file) can make,
+//! each run through the real `taut` binary.
 //!
-//! Every case checks the same promise: the run fails with the documented exit code (2 for bad
-//! input, 1 for an output that cannot be written), the message names the file and the line,
-//! column and field where there is one, nothing panics, and a `--output` file is either written
-//! whole or not at all (an existing one is left untouched).
-//!
-//! The reader cases at the top go through the library's one YAML reader (`taut::yaml`) and the
-//! quantity parser (`taut::units`) with a probe schema, so they hold for every file kind; the
-//! command-line cases below run the real binary.
+//! Every case checks the same promise (see [`refused`]): the run fails with the documented exit
+//! code (2 for bad input, 1 for an output that cannot be written), standard error holds one
+//! message that names the file and the line, column and field where there is one, nothing
+//! panics, nothing goes to standard output, and the working folder is exactly as before: a
+//! `--output` report that existed is left untouched and no partial or temporary file appears.
 
-use std::path::{Path, PathBuf};
+use std::collections::BTreeMap;
+use std::path::Path;
 
-use serde::Deserialize;
-use taut::error::{Error, EXIT_BAD_INPUT};
-use taut::units::{Force, Frequency, Length};
+use assert_cmd::Command;
 
 // ---------------------------------------------------------------------------------------------
 // Helpers: each case is a line or two.
 // ---------------------------------------------------------------------------------------------
 
-/// A schema shaped like taut's definition files, to drive the shared reader.
-#[derive(Debug, Deserialize)]
-#[serde(deny_unknown_fields)]
-#[allow(dead_code)]
-struct Probe {
-    name: String,
-    #[serde(default)]
-    load: Option<Force>,
-    courses: Vec<ProbeCourse>,
+/// A valid instrument; cases change one thing in it. Line numbers below refer to this text.
+const BASE: &str = "\
+name: Probe
+tuning: 12edo
+scale_length: 648mm
+defaults:
+  kinds: [plain-steel]
+  tension: 70N
+courses:
+  - course: 1
+    pitch: E4
+  - course: 2
+    pitch: B3
+";
+
+/// A report from an earlier run, which a failed run must leave as it was.
+const EARLIER_REPORT: &str = "an earlier report that a failed run must not touch\n";
+
+/// Every file in `dir` (one level) with its bytes.
+fn snapshot(dir: &Path) -> BTreeMap<String, Vec<u8>> {
+    std::fs::read_dir(dir)
+        .expect("list the scratch folder")
+        .map(|entry| {
+            let entry = entry.expect("a folder entry");
+            let name = entry.file_name().to_string_lossy().to_string();
+            let bytes = if entry.path().is_file() {
+                std::fs::read(entry.path()).expect("read a scratch file")
+            } else {
+                b"<folder>".to_vec()
+            };
+            (name, bytes)
+        })
+        .collect()
 }
 
-#[derive(Debug, Deserialize)]
-#[serde(deny_unknown_fields)]
-#[allow(dead_code)]
-struct ProbeCourse {
-    length: Length,
-    pitch: String,
-    #[serde(default)]
-    strings: Option<u32>,
+/// A scratch folder holding `files` and an earlier `report.txt`.
+fn scratch(files: &[(&str, &[u8])]) -> tempfile::TempDir {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    for (name, bytes) in files {
+        std::fs::write(dir.path().join(name), bytes).expect("write a scratch file");
+    }
+    std::fs::write(dir.path().join("report.txt"), EARLIER_REPORT).expect("write the report");
+    dir
 }
 
-/// Parses `text` as a probe document and returns the rendered error, checking it is bad input.
-fn refused(text: &str) -> String {
-    let err = taut::yaml::parse::<Probe>(text, "probe.yaml")
-        .expect_err("the reader accepted a bad document");
-    assert_eq!(err.exit_code(), EXIT_BAD_INPUT, "{err}");
-    let shown = err.to_string();
-    assert!(shown.starts_with("probe.yaml"), "origin missing: {shown}");
-    shown
-}
-
-/// Like [`refused`] but also demands a `file:line:column` position and the named field (the
-/// reported field may go deeper, e.g. `courses[1]` for an unknown key `courses[1].lenght`).
-fn refused_at(text: &str, line: usize, field: &str) -> String {
-    let shown = refused(text);
-    let place = format!("probe.yaml:{line}:");
-    assert!(shown.starts_with(&place), "expected {place}…: {shown}");
+/// Runs `taut ARGS` in `dir` and checks the promise every refusal keeps; returns standard error.
+fn refused_with_code(dir: &Path, args: &[&str], code: i32) -> String {
+    let before = snapshot(dir);
+    let output = Command::cargo_bin("taut")
+        .expect("the taut binary")
+        .current_dir(dir)
+        .args(args)
+        .output()
+        .expect("run taut");
+    let stderr = String::from_utf8_lossy(&output.stderr).to_string();
+    let short: String = stderr.chars().take(2000).collect();
+    assert_eq!(output.status.code(), Some(code), "taut {args:?}: {short}");
     assert!(
-        shown.contains(&format!("field `{field}")),
-        "expected field `{field}`: {shown}"
+        !stderr.contains("panicked"),
+        "taut {args:?} panicked: {short}"
     );
-    shown
+    assert!(stderr.starts_with("error: "), "taut {args:?}: {short}");
+    assert!(output.stdout.is_empty(), "taut {args:?} printed a report");
+    assert!(
+        stderr.len() < 4000,
+        "taut {args:?}: a message of {} bytes",
+        stderr.len()
+    );
+    assert_eq!(
+        snapshot(dir),
+        before,
+        "taut {args:?} changed the folder: {short}"
+    );
+    stderr
 }
 
-/// A valid document with one course line swapped for `course`.
-fn with_course(course: &str) -> String {
-    format!("name: probe\ncourses:\n  - length: 648mm\n    pitch: E2\n{course}")
+/// Runs `taut ARGS` in a scratch folder holding [`BASE`] as `probe.yaml`; expects exit code 2.
+fn cli_refuses(args: &[&str]) -> String {
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    refused_with_code(dir.path(), args, 2)
 }
 
-/// Reads a file through the library's reader and returns the rendered error.
-fn read_refused(path: &Path) -> Error {
-    let err = taut::yaml::read_text(path).expect_err("the reader accepted a bad file");
-    assert_eq!(err.exit_code(), EXIT_BAD_INPUT, "{err}");
-    err
+/// `taut plan probe.yaml -o report.txt` on an instrument file holding `bytes`; expects exit 2.
+fn plan_refuses(bytes: impl AsRef<[u8]>) -> String {
+    let dir = scratch(&[("probe.yaml", bytes.as_ref())]);
+    let stderr = refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "report.txt"], 2);
+    assert!(
+        stderr.contains("probe.yaml"),
+        "the file is not named: {stderr}"
+    );
+    stderr
 }
 
-fn scratch() -> tempfile::TempDir {
-    tempfile::tempdir().expect("a temporary folder")
+/// Like [`plan_refuses`], and the message points at `line` and names `field` (or a field below it).
+fn plan_refuses_at(text: &str, line: usize, field: &str) -> String {
+    let stderr = plan_refuses(text);
+    assert!(
+        stderr.starts_with(&format!("error: probe.yaml:{line}:")),
+        "expected line {line}: {stderr}"
+    );
+    assert!(
+        stderr.contains(&format!("field `{field}")),
+        "expected field `{field}`: {stderr}"
+    );
+    stderr
 }
 
-fn write(dir: &Path, name: &str, bytes: impl AsRef<[u8]>) -> PathBuf {
-    let path = dir.join(name);
-    std::fs::write(&path, bytes).expect("write a test file");
-    path
+/// [`BASE`] with one piece of text replaced (which must be there).
+fn base_with(from: &str, to: &str) -> String {
+    assert!(
+        BASE.contains(from),
+        "`{from}` is not in the base instrument"
+    );
+    BASE.replacen(from, to, 1)
+}
+
+/// [`BASE`] up to and including `courses:`, for cases that write their own courses.
+fn base_without_courses() -> String {
+    let end = BASE.find("courses:\n").expect("the base has courses") + "courses:\n".len();
+    BASE[..end].to_string()
+}
+
+/// `taut tuning show scale.yaml -o report.txt` on a tuning file holding `bytes`; expects exit 2.
+fn tuning_file_refuses(bytes: impl AsRef<[u8]>) -> String {
+    let dir = scratch(&[("scale.yaml", bytes.as_ref())]);
+    let stderr = refused_with_code(
+        dir.path(),
+        &["tuning", "show", "scale.yaml", "-o", "report.txt"],
+        2,
+    );
+    assert!(
+        stderr.contains("scale.yaml"),
+        "the file is not named: {stderr}"
+    );
+    stderr
+}
+
+/// `taut tuning show SPEC -o report.txt` on an inline spec; expects exit 2 and the spec named.
+fn inline_tuning_refuses(spec: &str) -> String {
+    let stderr = cli_refuses(&["tuning", "show", spec, "-o", "report.txt"]);
+    assert!(stderr.contains(&format!("tuning `{spec}`")), "{stderr}");
+    stderr
+}
+
+/// `taut tuning find TUNING PITCH`; expects exit 2 and the pitch named.
+fn pitch_refuses(tuning: &str, pitch: &str) -> String {
+    let stderr = cli_refuses(&["tuning", "find", tuning, pitch, "-o", "report.txt"]);
+    assert!(stderr.contains(&format!("`{pitch}`")), "{stderr}");
+    stderr
 }
 
 // ---------------------------------------------------------------------------------------------
-// Reader: malformed YAML
+// Malformed YAML
 // ---------------------------------------------------------------------------------------------
 
 #[test]
 fn yaml_tab_indentation() {
-    let shown = refused("name: probe\ncourses:\n\t- length: 648mm\n");
-    assert!(shown.contains("probe.yaml:3:"), "{shown}");
-    assert!(shown.contains("tabs"), "{shown}");
+    let stderr = plan_refuses(base_with("  - course: 2", "\t- course: 2"));
+    assert!(stderr.starts_with("error: probe.yaml:10:"), "{stderr}");
+    assert!(stderr.contains("replace tabs with spaces"), "{stderr}");
 }
 
 #[test]
 fn yaml_bad_indentation() {
-    // The second key is indented under a scalar value.
-    let shown = refused("name: probe\n  courses: []\n");
-    assert!(shown.contains("probe.yaml:2:"), "{shown}");
+    let stderr = plan_refuses(base_with("tuning: 12edo", "  tuning: 12edo"));
+    assert!(stderr.starts_with("error: probe.yaml:2:"), "{stderr}");
 }
 
 #[test]
 fn yaml_unclosed_quote() {
-    let shown = refused("name: \"probe\ncourses: []\n");
-    assert!(shown.contains("starts at line 1, column 7"), "{shown}");
-    assert!(shown.contains("never closed"), "{shown}");
+    let stderr = plan_refuses(base_with("name: Probe", "name: \"Probe"));
+    assert!(stderr.contains("starts at line 1, column 7"), "{stderr}");
+    assert!(stderr.contains("never closed"), "{stderr}");
 }
 
 #[test]
-fn yaml_unclosed_flow_sequence() {
-    let shown = refused("name: probe\ncourses: [ {length: 648mm, pitch: E2}\n");
-    assert!(shown.contains("starts at line 2, column 10"), "{shown}");
+fn yaml_unclosed_flow_collection() {
+    let stderr = plan_refuses(base_with("[plain-steel]", "[plain-steel"));
+    assert!(stderr.contains("starts at line 5, column 10"), "{stderr}");
 }
 
 #[test]
 fn yaml_more_than_one_document() {
-    let shown = refused("name: probe\ncourses: []\n---\nname: again\n");
-    assert!(shown.starts_with("probe.yaml:3:1:"), "{shown}");
-    assert!(shown.contains("more than one YAML document"), "{shown}");
+    let stderr = plan_refuses(format!("{BASE}---\n{BASE}"));
+    assert!(stderr.starts_with("error: probe.yaml:12:1:"), "{stderr}");
+    assert!(stderr.contains("more than one YAML document"), "{stderr}");
 }
 
 #[test]
 fn yaml_duplicate_key() {
-    let shown = refused("name: probe\nname: again\ncourses: []\n");
-    assert!(shown.contains("probe.yaml:"), "{shown}");
-    assert!(shown.contains("duplicate"), "{shown}");
+    let stderr = plan_refuses_at(
+        &base_with("tuning: 12edo", "tuning: 12edo\ntuning: 19edo"),
+        3,
+        "tuning",
+    );
+    assert!(stderr.contains("duplicate"), "{stderr}");
 }
 
 #[test]
-fn yaml_top_level_not_a_mapping() {
-    let shown = refused("- just\n- a list\n");
-    assert!(shown.contains("probe.yaml:1:"), "{shown}");
+fn yaml_top_level_is_not_a_mapping() {
+    let stderr = plan_refuses("- course: 1\n- course: 2\n");
+    assert!(stderr.starts_with("error: probe.yaml:1:"), "{stderr}");
+}
+
+#[test]
+fn yaml_unknown_alias() {
+    let stderr = plan_refuses(base_with("tuning: 12edo", "tuning: *chosen"));
+    assert!(stderr.starts_with("error: probe.yaml:2:"), "{stderr}");
+    assert!(stderr.contains("unknown anchor"), "{stderr}");
 }
 
 // ---------------------------------------------------------------------------------------------
-// Reader: schema mistakes
+// Schema: types, keys, required fields
 // ---------------------------------------------------------------------------------------------
 
 #[test]
-fn wrong_type_text_for_number() {
-    refused_at(
-        &with_course("  - length: 648mm\n    pitch: E2\n    strings: two\n"),
-        7,
-        "courses[1].strings",
+fn wrong_type_text_for_a_number() {
+    plan_refuses_at(
+        &base_with("course: 2", "course: two"),
+        10,
+        "courses[1].course",
     );
 }
 
 #[test]
-fn wrong_type_mapping_for_list() {
-    refused_at("name: probe\ncourses:\n  length: 648mm\n", 3, "courses");
+fn wrong_type_mapping_for_a_list() {
+    plan_refuses_at(
+        &base_with("  kinds: [plain-steel]", "  kinds: {plain-steel: yes}"),
+        5,
+        "defaults.kinds",
+    );
+}
+
+#[test]
+fn wrong_type_list_for_a_quantity() {
+    plan_refuses_at(
+        &base_with("scale_length: 648mm", "scale_length: [648mm]"),
+        3,
+        "scale_length",
+    );
 }
 
 #[test]
 fn unknown_key_suggests_the_right_one() {
-    let shown = refused_at(
-        &with_course("  - lenght: 648mm\n    pitch: A2\n"),
-        5,
-        "courses[1]",
+    let stderr = plan_refuses_at(
+        &base_with("scale_length:", "scale_lenght:"),
+        3,
+        "scale_lenght",
     );
-    assert!(shown.contains("did you mean `length`?"), "{shown}");
+    assert!(stderr.contains("did you mean `scale_length`?"), "{stderr}");
 }
 
 #[test]
-fn unknown_key_far_from_any_lists_the_allowed() {
-    let shown = refused("name: probe\nzzzzzz: 1\ncourses: []\n");
-    assert!(shown.contains("allowed:"), "{shown}");
+fn unknown_key_in_a_course_lists_the_allowed() {
+    let stderr = plan_refuses_at(
+        &base_with("    pitch: B3", "    pitch: B3\n    varnish: red"),
+        12,
+        "courses[1].varnish",
+    );
+    assert!(
+        stderr.contains("allowed:") && stderr.contains("pitch"),
+        "{stderr}"
+    );
 }
 
 #[test]
 fn missing_required_field() {
-    let shown = refused_at(&with_course("  - pitch: A2\n"), 5, "courses[1]");
-    assert!(shown.contains("missing field `length`"), "{shown}");
+    let stderr = plan_refuses_at(&base_with("    pitch: B3\n", ""), 10, "courses[1]");
+    assert!(stderr.contains("pitch"), "{stderr}");
+}
+
+#[test]
+fn no_courses() {
+    let text = base_without_courses().replace("courses:\n", "courses: []\n");
+    plan_refuses_at(&text, 7, "courses");
 }
 
 #[test]
 fn empty_file() {
-    assert!(refused("").contains("empty"));
+    assert!(plan_refuses("").contains("empty"));
 }
 
 #[test]
 fn comments_only_file() {
-    assert!(refused("# a tuning, one day\n\n   \n# nothing yet\n").contains("empty"));
+    assert!(plan_refuses("# an instrument, one day\n\n   \n# nothing yet\n").contains("empty"));
 }
 
 #[test]
-fn negative_integer_for_a_count() {
-    refused_at(
-        &with_course("  - length: 648mm\n    pitch: A2\n    strings: -2\n"),
-        7,
-        "courses[1].strings",
+fn negative_count() {
+    plan_refuses_at(
+        &base_with("course: 2", "course: -2"),
+        10,
+        "courses[1].course",
     );
 }
 
 #[test]
-fn integer_too_large_for_a_count() {
-    refused_at(
-        &with_course("  - length: 648mm\n    pitch: A2\n    strings: 99999999999999999999999\n"),
-        7,
-        "courses[1].strings",
+fn count_too_large_for_its_type() {
+    plan_refuses_at(
+        &base_with("course: 2", "course: 99999999999999999999999"),
+        10,
+        "courses[1].course",
     );
+}
+
+#[test]
+fn duplicate_course_numbers() {
+    let stderr = plan_refuses_at(
+        &base_with("course: 2", "course: 1"),
+        10,
+        "courses[1].course",
+    );
+    assert!(
+        stderr.contains("used twice") && stderr.contains("line 8"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn unknown_string_kind_suggests_the_closest() {
+    let stderr = plan_refuses_at(
+        &base_with("[plain-steel]", "[plain-stel]"),
+        5,
+        "defaults.kinds",
+    );
+    assert!(stderr.contains("plain-steel"), "{stderr}");
 }
 
 // ---------------------------------------------------------------------------------------------
-// Reader: quantities with units, in a file (line, column, field) and alone (message, hint)
+// Numbers and quantities with units
 // ---------------------------------------------------------------------------------------------
 
 #[test]
 fn quantity_without_unit() {
-    let shown = refused_at(
-        &with_course("  - length: 648\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
-    );
-    assert!(shown.contains("no unit"), "{shown}");
+    let stderr = plan_refuses_at(&base_with("648mm", "648"), 3, "scale_length");
+    assert!(stderr.contains("no unit"), "{stderr}");
 }
 
 #[test]
-fn quantity_of_the_wrong_dimension() {
-    let shown = refused_at(
-        &with_course("  - length: 70N\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
-    );
+fn length_given_in_newtons() {
+    let stderr = plan_refuses_at(&base_with("648mm", "70N"), 3, "scale_length");
     assert!(
-        shown.contains("is a force") && shown.contains("needs a length"),
-        "{shown}"
+        stderr.contains("is a force") && stderr.contains("needs a length"),
+        "{stderr}"
     );
 }
 
 #[test]
-fn quantity_with_unknown_unit_suggests() {
-    let shown = refused_at(
-        &with_course("  - length: 648 mn\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
+fn tension_given_as_a_length() {
+    let stderr = plan_refuses_at(
+        &base_with("tension: 70N", "tension: 70mm"),
+        6,
+        "defaults.tension",
     );
+    assert!(stderr.contains("is a length"), "{stderr}");
+}
+
+#[test]
+fn unknown_unit_suggests_a_close_one() {
+    let stderr = plan_refuses_at(&base_with("648mm", "648 mn"), 3, "scale_length");
     assert!(
-        shown.contains("unknown unit `mn`") && shown.contains("did you mean"),
-        "{shown}"
+        stderr.contains("unknown unit `mn`") && stderr.contains("did you mean"),
+        "{stderr}"
     );
 }
 
 #[test]
-fn quantity_negative() {
-    refused_at(
-        &with_course("  - length: -648mm\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
+fn negative_quantity() {
+    plan_refuses_at(&base_with("648mm", "-648mm"), 3, "scale_length");
+}
+
+#[test]
+fn zero_quantity() {
+    plan_refuses_at(
+        &base_with("tension: 70N", "tension: 0N"),
+        6,
+        "defaults.tension",
     );
 }
 
 #[test]
-fn quantity_zero() {
-    refused_at(
-        &with_course("  - length: 0mm\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
-    );
+fn nan_quantity() {
+    plan_refuses_at(&base_with("648mm", "NaN mm"), 3, "scale_length");
 }
 
 #[test]
-fn quantity_nan() {
-    refused_at(
-        &with_course("  - length: NaN mm\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
-    );
-    assert!("nan Hz".parse::<Frequency>().is_err());
-}
-
-#[test]
-fn quantity_infinite() {
-    refused_at(
-        &with_course("  - length: inf mm\n    pitch: A2\n"),
-        5,
-        "courses[1].length",
-    );
-    assert!("1e999N".parse::<Force>().is_err());
+fn infinite_quantity() {
+    plan_refuses_at(&base_with("648mm", "inf mm"), 3, "scale_length");
+    plan_refuses_at(&base_with("648mm", "1e999mm"), 3, "scale_length");
 }
 
 #[test]
 fn quantity_that_overflows_when_converted() {
-    // The number is finite, but times the unit's factor it is not: 1e308 kN = 1e311 N.
-    let err = "1e308kN"
-        .parse::<Force>()
-        .expect_err("an infinite force was accepted");
-    assert_eq!(err.exit_code(), EXIT_BAD_INPUT);
-    assert!(taut::units::Force::new(f64::INFINITY).is_err());
-    refused_at(
-        &format!("name: probe\nload: 1e308kN\ncourses: []\n"),
-        2,
-        "load",
+    let stderr = plan_refuses_at(
+        &base_with("tension: 70N", "tension: 1e308kN"),
+        6,
+        "defaults.tension",
+    );
+    assert!(stderr.contains("too large"), "{stderr}");
+}
+
+#[test]
+fn quantity_without_a_number() {
+    let stderr = plan_refuses_at(&base_with("648mm", "mm"), 3, "scale_length");
+    assert!(stderr.contains("no number"), "{stderr}");
+}
+
+#[test]
+fn quantity_with_a_garbled_number() {
+    let stderr = plan_refuses_at(&base_with("648mm", "6.4.8mm"), 3, "scale_length");
+    assert!(stderr.contains("not a number"), "{stderr}");
+}
+
+#[test]
+fn tension_window_upside_down() {
+    plan_refuses_at(
+        &base_with("tension: 70N", "tension: {min: 90N, max: 60N}"),
+        6,
+        "defaults.tension",
+    );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Files that are not definition files
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn missing_instrument_file() {
+    let stderr = cli_refuses(&["plan", "no-such.yaml", "-o", "report.txt"]);
+    assert!(
+        stderr.contains("`no-such.yaml` is neither an instrument file"),
+        "{stderr}"
     );
 }
 
 #[test]
-fn quantity_without_number() {
-    let shown = "mm".parse::<Length>().expect_err("accepted").to_string();
-    assert!(shown.contains("no number"), "{shown}");
+fn missing_tuning_file() {
+    let stderr = cli_refuses(&["tuning", "show", "no-such.yaml", "-o", "report.txt"]);
+    assert!(stderr.contains("no-such.yaml"), "{stderr}");
 }
 
 #[test]
-fn quantity_with_garbled_number() {
-    let shown = "6.4.8mm"
-        .parse::<Length>()
-        .expect_err("accepted")
-        .to_string();
-    assert!(shown.contains("not a number"), "{shown}");
-}
-
-// ---------------------------------------------------------------------------------------------
-// Reader: files that are not definition files
-// ---------------------------------------------------------------------------------------------
-
-#[test]
-fn missing_file() {
-    let dir = scratch();
-    let err = read_refused(&dir.path().join("no-such.yaml"));
-    assert!(err.to_string().contains("no-such.yaml"), "{err}");
-}
-
-#[test]
-fn folder_given_as_file() {
-    let dir = scratch();
-    let err = read_refused(dir.path()).to_string();
-    assert!(err.contains("folder"), "{err}");
+fn folder_given_as_a_file() {
+    let stderr = cli_refuses(&["plan", ".", "-o", "report.txt"]);
+    assert!(stderr.contains("folder"), "{stderr}");
+    let stderr = cli_refuses(&["tuning", "show", ".", "-o", "report.txt"]);
+    assert!(stderr.contains("folder"), "{stderr}");
 }
 
 #[test]
 fn path_through_a_regular_file() {
-    // A path whose "folder" is a file: fails reliably even as root.
-    let dir = scratch();
-    let file = write(dir.path(), "plain.txt", "x");
-    let err = read_refused(&file.join("inner.yaml"));
-    assert!(err.to_string().contains("inner.yaml"), "{err}");
+    // A path whose "folder" is a file fails reliably, even for root.
+    let stderr = cli_refuses(&["plan", "probe.yaml/inner.yaml", "-o", "report.txt"]);
+    assert!(stderr.contains("probe.yaml/inner.yaml"), "{stderr}");
 }
 
 #[test]
 fn binary_file() {
-    let dir = scratch();
-    let file = write(
-        dir.path(),
-        "image.yaml",
-        b"name: x\n\x89PNG\r\n\x1a\n\0\0\0\rIHDR",
-    );
-    let err = read_refused(&file).to_string();
+    let stderr = plan_refuses(b"name: x\n\x89PNG\r\n\x1a\n\0\0\0\rIHDR");
     assert!(
-        err.contains("image.yaml:4:1:") && err.contains("binary"),
-        "{err}"
+        stderr.starts_with("error: probe.yaml:4:1:") && stderr.contains("binary"),
+        "{stderr}"
     );
 }
 
 #[test]
 fn non_utf8_text() {
-    let dir = scratch();
     // "Saitenstärke" in Latin-1: the ä is the byte 0xE4.
-    let file = write(dir.path(), "latin1.yaml", b"name: Saitenst\xe4rke\n");
-    let err = read_refused(&file).to_string();
+    let stderr = plan_refuses(b"name: Saitenst\xe4rke\n");
     assert!(
-        err.contains("latin1.yaml:1:15:") && err.contains("UTF-8"),
-        "{err}"
+        stderr.starts_with("error: probe.yaml:1:15:") && stderr.contains("UTF-8"),
+        "{stderr}"
     );
 }
 
 #[test]
 fn file_over_the_size_limit() {
-    let dir = scratch();
-    let big = "# padding\n".repeat((taut::yaml::MAX_INPUT_BYTES as usize) / 10 + 1);
-    let file = write(dir.path(), "huge.yaml", big);
-    let err = read_refused(&file).to_string();
+    let padding = "# padding\n".repeat((taut::yaml::MAX_INPUT_BYTES as usize) / 10 + 1);
+    let stderr = plan_refuses(format!("{BASE}{padding}"));
+    assert!(stderr.contains("at most 4194304 bytes"), "{stderr}");
+}
+
+#[test]
+fn endless_device_as_input() {
+    if !Path::new("/dev/zero").exists() {
+        return;
+    }
+    let stderr = cli_refuses(&["plan", "/dev/zero", "-o", "report.txt"]);
     assert!(
-        err.contains("huge.yaml") && err.contains("at most"),
-        "{err}"
+        stderr.contains("/dev/zero") && stderr.contains("at most"),
+        "{stderr}"
     );
 }
 
 // ---------------------------------------------------------------------------------------------
-// Reader: documents built to eat the machine
+// Documents built (or mistaken) to eat the machine
 // ---------------------------------------------------------------------------------------------
 
 #[test]
@@ -390,46 +522,337 @@ fn alias_bomb() {
         let row = vec![previous.as_str(); 10].join(", ");
         text.push_str(&format!("a{level}: &a{level} [{row}]\n"));
     }
-    text.push_str("name: probe\ncourses: []\n");
-    let shown = refused(&text);
-    assert!(shown.contains("help:"), "{shown}");
+    let stderr = plan_refuses(format!("{BASE}{text}"));
+    assert!(stderr.contains("help:"), "{stderr}");
 }
 
 #[test]
 fn deeply_nested_flow_document() {
-    let depth = 100_000;
-    let text = format!(
-        "name: {}x{}\ncourses: []\n",
-        "[".repeat(depth),
-        "]".repeat(depth)
-    );
-    let shown = refused(&text);
-    assert!(
-        shown.contains("probe.yaml:1:135:") && shown.contains("more than 128 levels"),
-        "{shown}"
-    );
+    let stderr = plan_refuses(base_with("Probe", &"[".repeat(1_000_000)));
+    assert!(stderr.starts_with("error: probe.yaml:1:135:"), "{stderr}");
+    assert!(stderr.contains("more than 128 levels"), "{stderr}");
 }
 
 #[test]
 fn deeply_nested_block_document() {
-    let mut text = String::from("name: probe\ncourses: []\nload:\n");
-    for depth in 1..2000 {
-        text.push_str(&" ".repeat(depth));
-        text.push_str("k:\n");
+    let mut nested = String::from("about:\n");
+    for depth in 1..1000 {
+        nested.push_str(&" ".repeat(depth));
+        nested.push_str("k:\n");
     }
-    refused(&text);
+    let stderr = plan_refuses(format!("{BASE}{nested}"));
+    assert!(stderr.contains("probe.yaml:"), "{stderr}");
 }
 
 #[test]
 fn very_long_line() {
-    // A 3 MiB pitch on one line: under the size limit, so it reaches the schema and is
-    // reported like any other value (here: the course lacks its length).
-    let long = "E".repeat(3 * 1024 * 1024);
-    let shown = refused(&format!("name: probe\ncourses:\n  - pitch: {long}\n"));
-    assert!(
-        shown.contains("probe.yaml:3:"),
-        "{}",
-        &shown[..shown.len().min(300)]
+    // A 3 MiB pitch on one line: under the size limit, so it reaches the pitch reader, whose
+    // message must not echo it whole.
+    let stderr = plan_refuses_at(
+        &base_with("pitch: B3", &format!("pitch: {}", "B".repeat(3 << 20))),
+        11,
+        "courses[1].pitch",
     );
-    assert!(shown.len() < 10_000, "the message echoes the whole line");
+    assert!(stderr.len() < 4000);
+}
+
+#[test]
+fn more_courses_than_the_limit() {
+    let mut text = base_without_courses();
+    for number in 1..=1001 {
+        text.push_str(&format!("  - {{course: {number}, pitch: E4}}\n"));
+    }
+    let stderr = plan_refuses_at(&text, 7, "courses");
+    assert!(stderr.contains("at most 1000"), "{stderr}");
+}
+
+#[test]
+fn a_million_courses() {
+    // Ten bytes a course is the least YAML allows, so a million courses cannot fit the size limit.
+    let mut text = base_without_courses();
+    text.push_str(&"- {pitch: E4}\n".repeat(1_000_000));
+    let stderr = plan_refuses(text);
+    assert!(stderr.contains("at most 4194304 bytes"), "{stderr}");
+}
+
+#[test]
+fn edo_of_a_billion() {
+    let stderr = inline_tuning_refuses("1000000000edo");
+    assert!(stderr.contains("at most 10000"), "{stderr}");
+}
+
+#[test]
+fn edo_too_large_for_any_integer() {
+    let stderr = inline_tuning_refuses("1000000000000000000000000000000edo");
+    assert!(stderr.contains("at most 10000"), "{stderr}");
+}
+
+#[test]
+fn tuning_file_with_a_billion_divisions() {
+    let stderr = tuning_file_refuses("name: wide\ndivisions: 1000000000\n");
+    assert!(
+        stderr.starts_with("error: scale.yaml:2:") && stderr.contains("at most 10000"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn listing_range_too_long() {
+    let stderr = cli_refuses(&[
+        "tuning",
+        "show",
+        "12edo",
+        "--from=-1000000000",
+        "--to=1000000000",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(stderr.contains("at most 10000"), "{stderr}");
+}
+
+// ---------------------------------------------------------------------------------------------
+// Tunings: inline specs, files, references
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn zero_divisions() {
+    inline_tuning_refuses("0edo");
+}
+
+#[test]
+fn period_not_wider_than_a_unison() {
+    assert!(inline_tuning_refuses("12ed1/1").contains("wider than a unison"));
+    assert!(inline_tuning_refuses("12ed-1200c").contains("wider than a unison"));
+}
+
+#[test]
+fn ratio_with_zero_denominator() {
+    assert!(inline_tuning_refuses("12ed3/0").contains("zero denominator"));
+}
+
+#[test]
+fn cents_not_ascending() {
+    assert!(inline_tuning_refuses("cents:0,700,400").contains("ascending"));
+}
+
+#[test]
+fn frequency_list_with_nan_or_negative() {
+    inline_tuning_refuses("hertz:100,nan");
+    inline_tuning_refuses("hertz:-100,200");
+}
+
+#[test]
+fn empty_inline_list() {
+    inline_tuning_refuses("ratios:");
+}
+
+#[test]
+fn unknown_tuning_name() {
+    let stderr = cli_refuses(&["tuning", "show", "pythagorian-12", "-o", "report.txt"]);
+    assert!(stderr.contains("pythagorean-12"), "{stderr}");
+}
+
+#[test]
+fn bad_reference() {
+    inline_tuning_refuses("12edo@A4=0");
+    inline_tuning_refuses("12edo@Z9");
+}
+
+#[test]
+fn tuning_file_unknown_key() {
+    let stderr = tuning_file_refuses("name: x\ndivisons: 19\n");
+    assert!(
+        stderr.starts_with("error: scale.yaml:2:") && stderr.contains("did you mean `divisions`?"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn tuning_file_with_two_layouts() {
+    let stderr = tuning_file_refuses("name: x\ndivisions: 19\ncents: [0, 100]\n");
+    assert!(stderr.contains("scale.yaml"), "{stderr}");
+}
+
+#[test]
+fn instrument_naming_an_unknown_tuning() {
+    plan_refuses_at(
+        &base_with("tuning: 12edo", "tuning: 19-edo-ish"),
+        2,
+        "tuning",
+    );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Pitches
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn pitch_the_tuning_cannot_address_on_the_command_line() {
+    let stderr = pitch_refuses("19edo", "E2");
+    assert!(stderr.contains("~E2"), "{stderr}");
+    pitch_refuses("hertz:98,110,123.47", "deg5");
+}
+
+#[test]
+fn pitch_the_tuning_cannot_address_in_a_file() {
+    let stderr = plan_refuses_at(
+        &base_with("tuning: 12edo", "tuning: 19edo"),
+        9,
+        "courses[0].pitch",
+    );
+    assert!(stderr.contains("~E4"), "{stderr}");
+}
+
+#[test]
+fn pitch_that_is_not_a_pitch() {
+    pitch_refuses("12edo", "H7");
+    pitch_refuses("12edo", "E2+abc");
+    plan_refuses_at(
+        &base_with("pitch: B3", "pitch: B-flat"),
+        11,
+        "courses[1].pitch",
+    );
+}
+
+#[test]
+fn degree_too_large_for_any_integer() {
+    pitch_refuses("12edo", "deg99999999999999999999");
+}
+
+#[test]
+fn degree_too_far_to_have_a_frequency() {
+    assert!(pitch_refuses("12edo", "deg9223372036854775807").contains("too far"));
+}
+
+// ---------------------------------------------------------------------------------------------
+// Options and arguments
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn option_value_outside_its_choices() {
+    let stderr = cli_refuses(&["plan", "probe.yaml", "--format", "xml", "-o", "report.txt"]);
+    assert!(stderr.contains("possible values"), "{stderr}");
+}
+
+#[test]
+fn tension_option_with_the_wrong_dimension() {
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--tension",
+        "70mm",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(
+        stderr.contains("--tension") && stderr.contains("is a length"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn tension_option_window_upside_down() {
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--tension",
+        "90N..60N",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(stderr.contains("--tension"), "{stderr}");
+}
+
+#[test]
+fn tuning_option_that_is_not_a_tuning() {
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--tuning",
+        "1e9edo",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(stderr.contains("--tuning"), "{stderr}");
+}
+
+#[test]
+fn number_option_too_large() {
+    cli_refuses(&[
+        "tuning",
+        "show",
+        "12edo",
+        "--from",
+        "99999999999999999999",
+        "-o",
+        "report.txt",
+    ]);
+}
+
+#[test]
+fn range_option_backwards() {
+    let stderr = cli_refuses(&[
+        "tuning",
+        "show",
+        "12edo",
+        "--from",
+        "10",
+        "--to",
+        "5",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(stderr.contains("backwards"), "{stderr}");
+}
+
+#[test]
+fn odd_limit_not_offered() {
+    let stderr = cli_refuses(&["tuning", "fit", "12edo", "--limit", "4", "-o", "report.txt"]);
+    assert!(stderr.contains("--limit"), "{stderr}");
+}
+
+#[test]
+fn missing_argument_and_unknown_option() {
+    cli_refuses(&["plan"]);
+    cli_refuses(&["plan", "probe.yaml", "--gauge-everything"]);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Output files (exit code 1: the input was fine, the report could not be written)
+// ---------------------------------------------------------------------------------------------
+
+fn output_refused(target: &str) -> String {
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    let stderr = refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", target], 1);
+    assert!(
+        stderr.contains(target),
+        "the output path is not named: {stderr}"
+    );
+    stderr
+}
+
+#[test]
+fn output_in_a_missing_folder() {
+    output_refused("no-such-folder/report.txt");
+}
+
+#[test]
+fn output_under_a_regular_file() {
+    // The "folder" is a file: fails reliably, even for root.
+    output_refused("probe.yaml/report.txt");
+}
+
+#[test]
+fn output_onto_a_folder() {
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    std::fs::create_dir(dir.path().join("reports")).expect("a folder");
+    refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "reports"], 1);
+}
+
+#[test]
+fn failed_run_keeps_the_input_it_would_overwrite() {
+    // Writing the report over its own (bad) input must leave the input as it was.
+    let bad = base_with("648mm", "648");
+    let dir = scratch(&[("probe.yaml", bad.as_bytes())]);
+    refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "probe.yaml"], 2);
 }
