@@ -6,8 +6,9 @@ use super::{Tuning, TuningSummary};
 use crate::error::{Error, Result};
 use crate::pitch::{nearest_note_name, serialize_optional_ratio, ExactRatio};
 
-/// Most rows one listing may hold.
-pub const MAX_ROWS: u64 = 10_000;
+/// Most rows one listing may hold: the default range (one period and its closing degree) of the
+/// largest tuning taut accepts, so that every accepted tuning lists without options.
+pub const MAX_ROWS: u64 = super::MAX_DEGREES_PER_PERIOD as u64 + 1;
 
 /// One degree in a listing.
 #[derive(Debug, Clone, PartialEq, Serialize)]
