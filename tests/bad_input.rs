@@ -597,6 +597,26 @@ fn tuning_file_with_a_billion_divisions() {
 }
 
 #[test]
+fn largest_accepted_tuning_lists_with_defaults() {
+    // Not a refusal: the largest tuning taut accepts must list without options (it once asked
+    // for `--to` because one period and its closing degree came to 10,001 rows).
+    let dir = scratch(&[]);
+    Command::cargo_bin("taut")
+        .expect("the taut binary")
+        .current_dir(dir.path())
+        .args([
+            "tuning", "show", "10000edo", "--format", "json", "-o", "all.json",
+        ])
+        .assert()
+        .success();
+    let listing: serde_json::Value = serde_json::from_slice(
+        &std::fs::read(dir.path().join("all.json")).expect("the listing was written"),
+    )
+    .expect("JSON");
+    assert_eq!(listing["rows"].as_array().map(Vec::len), Some(10_001));
+}
+
+#[test]
 fn listing_range_too_long() {
     let stderr = cli_refuses(&[
         "tuning",
@@ -607,7 +627,7 @@ fn listing_range_too_long() {
         "-o",
         "report.txt",
     ]);
-    assert!(stderr.contains("at most 10000"), "{stderr}");
+    assert!(stderr.contains("at most 10001"), "{stderr}");
 }
 
 // ---------------------------------------------------------------------------------------------
