@@ -130,9 +130,10 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
         // serde names a duplicate key but places it at the start of its mapping; point at the
         // second occurrence instead.
         let message = err.inner().to_string();
+        // serde_yaml may put its own path before the sentence (`defaults: duplicate field …`).
         let duplicate = message
-            .strip_prefix("duplicate field `")
-            .and_then(|rest| rest.split_once('`'))
+            .split_once("duplicate field `")
+            .and_then(|(_, rest)| rest.split_once('`'))
             .map(|(key, _)| key);
         if let Some(key) = duplicate {
             steps.push(PathStep::Key(key));
