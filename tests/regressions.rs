@@ -105,3 +105,94 @@ fn deep_field_path_is_shortened() {
         "{shown}"
     );
 }
+
+// ---------------------------------------------------------------------------------------------
+// Found by the bad-input catalogue, through the real binary
+// ---------------------------------------------------------------------------------------------
+
+fn taut_in(dir: &std::path::Path, args: &[&str]) -> std::process::Output {
+    assert_cmd::Command::cargo_bin("taut")
+        .expect("the taut binary")
+        .current_dir(dir)
+        .args(args)
+        .output()
+        .expect("run taut")
+}
+
+fn instrument(tuning: &str, second_pitch: &str) -> String {
+    format!(
+        "name: Probe\ntuning: {tuning}\nscale_length: 648mm\ndefaults:\n  kinds: [plain-steel]\n  tension: 70N\ncourses:\n  - course: 1\n    pitch: E4\n  - course: 2\n    pitch: {second_pitch}\n"
+    )
+}
+
+/// `taut plan /dev/zero` read until the machine ran out of memory: a device reports a length
+/// of 0, so the size check passed and the read never ended.
+#[test]
+fn endless_device_is_cut_at_the_size_limit() {
+    if !std::path::Path::new("/dev/zero").exists() {
+        return;
+    }
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    let output = taut_in(dir.path(), &["plan", "/dev/zero"]);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2), "{stderr}");
+    assert!(stderr.contains("goes on past 4194304 bytes"), "{stderr}");
+}
+
+/// A 3 MiB pitch on one line came back in the message whole, twice (6 MiB of standard error).
+#[test]
+fn a_huge_value_is_not_echoed_whole() {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    let text = instrument("12edo", &"B".repeat(3 << 20));
+    std::fs::write(dir.path().join("long.yaml"), text).expect("write");
+    let output = taut_in(dir.path(), &["plan", "long.yaml"]);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2));
+    assert!(stderr.len() < 2000, "{} bytes of message", stderr.len());
+    assert!(stderr.contains("characters)"), "{stderr}");
+}
+
+/// `tuning: 0edo` in an instrument file was reported as "tuning `0edo`:2:1: …": the line of the
+/// file under the spec's label, and no file name.
+#[test]
+fn a_bad_inline_tuning_in_a_file_names_the_file() {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    std::fs::write(dir.path().join("i.yaml"), instrument("0edo", "B3")).expect("write");
+    let output = taut_in(dir.path(), &["plan", "i.yaml"]);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2));
+    assert!(
+        stderr.starts_with("error: i.yaml:2:1: field `tuning`: tuning `0edo`"),
+        "{stderr}"
+    );
+}
+
+/// A key written twice was reported at line 1, column 1, without the field.
+#[test]
+fn a_duplicate_key_points_at_its_second_line() {
+    let text = instrument("12edo", "B3").replace("tension: 70N", "tension: 70N\n  tension: 80N");
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    std::fs::write(dir.path().join("d.yaml"), text).expect("write");
+    let output = taut_in(dir.path(), &["plan", "d.yaml"]);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert!(
+        stderr.starts_with("error: d.yaml:7:3: field `defaults.tension`: duplicate field"),
+        "{stderr}"
+    );
+}
+
+/// `taut tuning show 10000edo` refused its own default range (10,001 rows against a limit of
+/// 10,000), blaming a `--to` the user never wrote.
+#[test]
+fn the_largest_tuning_lists_by_default() {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    let output = taut_in(
+        dir.path(),
+        &["tuning", "show", "10000edo", "--format", "json"],
+    );
+    assert!(
+        output.status.success(),
+        "{}",
+        String::from_utf8_lossy(&output.stderr)
+    );
+}
