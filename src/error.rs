@@ -116,7 +116,7 @@ fn clip_long_words(text: &str) -> String {
     let mut out = String::with_capacity(text.len().min(MAX_MESSAGE_CHARS + 100));
     let mut word = String::new();
     let mut word_chars = 0usize;
-    let mut flush = |word: &mut String, word_chars: &mut usize, out: &mut String| {
+    let flush = |word: &mut String, word_chars: &mut usize, out: &mut String| {
         if *word_chars > MAX_WORD_CHARS {
             let cut = word
                 .char_indices()
