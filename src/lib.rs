@@ -14,6 +14,8 @@
 )]
 
 pub mod error;
+pub mod pitch;
+pub mod tuning;
 pub mod units;
 pub mod yaml;
 

@@ -1,6 +1,9 @@
 //! Command-line layer: argument parsing (clap), rendering and exit codes. Nothing below this
 //! layer sees clap.
 
+mod output;
+mod tuning;
+
 use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
@@ -14,10 +17,26 @@ pub struct Cli {
 }
 
 #[derive(Debug, Subcommand)]
-enum Command {}
+enum Command {
+    /// Work with tunings: list degrees, fit just intervals, compare, resolve pitches.
+    Tuning(tuning::TuningArgs),
+}
 
 /// Runs the command line and returns the process exit code.
 pub fn main() -> ExitCode {
     let cli = Cli::parse();
-    match cli.command {}
+    let result = match cli.command {
+        Command::Tuning(args) => tuning::run(args),
+    };
+    output::finish(result)
+}
+
+#[cfg(test)]
+mod tests {
+    use clap::CommandFactory;
+
+    #[test]
+    fn command_line_definition_is_consistent() {
+        super::Cli::command().debug_assert();
+    }
 }
