@@ -1,0 +1,218 @@
+//! Gauge catalogs: the diameters a kind of string is available in.
+//!
+//! The shipped catalogs (`src/data/gauges.yaml`) hold the usual trade steps (PRACTICE). A user can
+//! list what is on their own shelf in a file of the same schema ([`load_catalogs_file`]).
+
+use std::sync::OnceLock;
+
+use serde::Deserialize;
+
+use crate::error::{did_you_mean, Error, Result};
+use crate::id::Id;
+use crate::units::Length;
+
+/// Largest number of gauges one catalog may hold; a range with a tiny step is a mistake.
+pub const MAX_GAUGES: usize = 2000;
+
+/// A list of available diameters, sorted thinnest first, without duplicates.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GaugeCatalog {
+    /// Identifier used by string kinds, e.g. `steel-plain-inch`.
+    pub id: Id,
+    /// Name shown to people.
+    pub name: String,
+    /// Where the list comes from.
+    pub source: String,
+    diameters: Vec<f64>,
+}
+
+impl GaugeCatalog {
+    /// The diameters in metres, thinnest first.
+    pub fn diameters(&self) -> &[f64] {
+        &self.diameters
+    }
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct CatalogSpec {
+    id: Id,
+    name: String,
+    #[serde(default)]
+    diameters: Vec<Length>,
+    #[serde(default)]
+    ranges: Vec<RangeSpec>,
+    source: String,
+}
+
+/// `from`, `to` (both included) and `step`, e.g. 0.40mm to 1.00mm by 0.02mm.
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RangeSpec {
+    from: Length,
+    to: Length,
+    step: Length,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct CatalogsFile {
+    catalogs: Vec<CatalogSpec>,
+}
+
+/// Gauge catalogs with unique ids.
+#[derive(Debug, Clone, Default)]
+pub struct GaugeCatalogs {
+    list: Vec<GaugeCatalog>,
+}
+
+/// The shipped gauge catalogs.
+pub const BUILTIN_GAUGES_YAML: &str = include_str!("data/gauges.yaml");
+
+impl GaugeCatalogs {
+    /// The catalogs shipped with `taut`, parsed once.
+    pub fn builtin() -> Result<&'static GaugeCatalogs> {
+        static BUILTIN: OnceLock<std::result::Result<GaugeCatalogs, String>> = OnceLock::new();
+        BUILTIN
+            .get_or_init(|| {
+                load_catalogs_file(BUILTIN_GAUGES_YAML, "built-in gauges.yaml")
+                    .map_err(|err| err.to_string())
+            })
+            .as_ref()
+            .map_err(|message| Error::input(format!("taut's own gauge data is broken: {message}")))
+    }
+
+    /// All catalogs in file order.
+    pub fn all(&self) -> &[GaugeCatalog] {
+        &self.list
+    }
+
+    /// The catalog with this id, or an error that suggests the closest id.
+    pub fn get(&self, id: &str) -> Result<&GaugeCatalog> {
+        if let Some(found) = self.list.iter().find(|c| c.id.as_str() == id) {
+            return Ok(found);
+        }
+        let err = Error::input(format!("unknown gauge catalog `{id}`"));
+        Err(
+            match did_you_mean(id, self.list.iter().map(|c| c.id.as_str())) {
+                Some(best) => err.help(format!("did you mean `{best}`?")),
+                None => err.help(format!(
+                    "known catalogs: {}",
+                    self.list
+                        .iter()
+                        .map(|c| c.id.as_str())
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                )),
+            },
+        )
+    }
+
+    /// Adds catalogs (e.g. a user's shelf), refusing an id that is already taken.
+    pub fn extend(&mut self, more: GaugeCatalogs) -> Result<()> {
+        for catalog in more.list {
+            if self.list.iter().any(|c| c.id == catalog.id) {
+                return Err(Error::input(format!(
+                    "gauge catalog `{}` is already defined",
+                    catalog.id
+                ))
+                .help("choose a new id for your own catalog"));
+            }
+            self.list.push(catalog);
+        }
+        Ok(())
+    }
+}
+
+/// Reads a gauge catalog file (`catalogs:` list; each catalog has `diameters`, `ranges` or both),
+/// naming `origin`, line and field on bad input.
+pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
+    let file: CatalogsFile = crate::yaml::parse(text, origin)?;
+    let mut catalogs = GaugeCatalogs::default();
+    for (index, spec) in file.catalogs.into_iter().enumerate() {
+        let place = |err: Error, field: &str, sub: Option<usize>| {
+            use crate::yaml::PathStep;
+            let mut path = vec![
+                PathStep::Key("catalogs"),
+                PathStep::Index(index),
+                PathStep::Key(field),
+            ];
+            if let Some(sub) = sub {
+                path.push(PathStep::Index(sub));
+            }
+            let field_path = match sub {
+                Some(sub) => format!("catalogs[{index}].{field}[{sub}]"),
+                None => format!("catalogs[{index}].{field}"),
+            };
+            let err = err.field(field_path);
+            let err = match crate::yaml::locate(text, &path) {
+                Some((line, column)) => err.at(line, column),
+                None => err,
+            };
+            err.in_origin(origin)
+        };
+        if catalogs.list.iter().any(|c| c.id == spec.id) {
+            return Err(place(
+                Error::input(format!("gauge catalog `{}` appears twice", spec.id)),
+                "id",
+                None,
+            ));
+        }
+        let mut diameters: Vec<f64> = spec.diameters.iter().map(|d| d.si()).collect();
+        for (range_index, range) in spec.ranges.iter().enumerate() {
+            let (from, to, step) = (range.from.si(), range.to.si(), range.step.si());
+            if to < from {
+                return Err(place(
+                    Error::input("`to` is smaller than `from`"),
+                    "ranges",
+                    Some(range_index),
+                ));
+            }
+            let steps = ((to - from) / step).round();
+            if steps > MAX_GAUGES as f64 {
+                return Err(place(
+                    Error::input(format!(
+                        "this range makes {steps} gauges; a catalog holds at most {MAX_GAUGES}"
+                    )),
+                    "ranges",
+                    Some(range_index),
+                ));
+            }
+            if (from + steps * step - to).abs() > 1e-6 * to {
+                return Err(place(
+                    Error::input("`to` is not reached in whole steps from `from`")
+                        .help("make `to` − `from` a whole number of `step`s"),
+                    "ranges",
+                    Some(range_index),
+                ));
+            }
+            // Multiplying rather than accumulating keeps 0.40 + 30 × 0.02 equal to 1.00.
+            diameters.extend((0..=steps as usize).map(|i| from + i as f64 * step));
+        }
+        if diameters.is_empty() {
+            return Err(place(
+                Error::input("the catalog lists no diameters")
+                    .help("add `diameters: [0.010in, 0.011in]` or a `ranges` entry"),
+                "id",
+                None,
+            ));
+        }
+        if diameters.len() > MAX_GAUGES {
+            return Err(place(
+                Error::input(format!("a catalog holds at most {MAX_GAUGES} gauges")),
+                "diameters",
+                None,
+            ));
+        }
+        diameters.sort_by(f64::total_cmp);
+        // Ranges meet at their ends (1.00 mm ends one and starts the next): merge near-equal values.
+        diameters.dedup_by(|later, earlier| (*later - *earlier).abs() <= 1e-9 * *later);
+        catalogs.list.push(GaugeCatalog {
+            id: spec.id,
+            name: spec.name,
+            source: spec.source,
+            diameters,
+        });
+    }
+    Ok(catalogs)
+}

@@ -1,0 +1,357 @@
+//! String kinds: named, selectable combinations of a construction, its materials and a gauge
+//! catalog (e.g. `nickel-wound` = hexagonal music-wire core, nickel-plated steel wrap, inch
+//! gauges). Instrument files refer to kinds by id.
+//!
+//! The shipped kinds live in `src/data/kinds.yaml`. Resolving a kind computes, once, every gauge's
+//! linear density and breaking tension, so that the selector only reads precomputed numbers.
+
+use std::sync::OnceLock;
+
+use serde::Deserialize;
+
+use crate::construction::{default_core_ratio, Construction, WoundRecipe, DEFAULT_INNER_SHARE};
+use crate::error::{did_you_mean, Error, Result};
+use crate::gauge::GaugeCatalogs;
+use crate::id::Id;
+use crate::material::{Material, Materials};
+use crate::physics::CoreShape;
+
+/// One available gauge of a kind, with the numbers the selector needs (all SI).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Gauge {
+    /// Outer diameter, m.
+    pub diameter: f64,
+    /// Linear density, kg/m.
+    pub unit_mass: f64,
+    /// Tension at which the load-bearing section reaches its breaking strength, N.
+    pub breaking_tension: f64,
+}
+
+/// How a kind's strings are built.
+// Built once per kind and never moved in a hot loop, so the wound variant's size does not matter.
+#[allow(clippy::large_enum_variant)]
+#[derive(Debug, Clone, PartialEq)]
+pub enum KindBuild {
+    /// Solid wire or monofilament.
+    Plain {
+        /// The material.
+        material: Material,
+    },
+    /// Round-wound on a core.
+    Wound {
+        /// Core material.
+        core_material: Material,
+        /// Core section.
+        core_shape: CoreShape,
+        /// Core nominal diameter / outer diameter.
+        core_ratio: f64,
+        /// Inner (or only) wrap material.
+        inner: Material,
+        /// Outer wrap material and the inner layer's share of the wrap thickness.
+        outer: Option<(Material, f64)>,
+    },
+}
+
+/// A resolved string kind.
+#[derive(Debug, Clone, PartialEq)]
+pub struct StringKind {
+    /// Identifier, e.g. `plain-steel`.
+    pub id: Id,
+    /// Name shown to people.
+    pub name: String,
+    /// The gauge catalog's id.
+    pub catalog: Id,
+    /// Where the construction choices come from.
+    pub source: String,
+    /// How it is built.
+    pub build: KindBuild,
+    gauges: Vec<Gauge>,
+}
+
+impl StringKind {
+    /// The gauges, thinnest (and lightest) first.
+    pub fn gauges(&self) -> &[Gauge] {
+        &self.gauges
+    }
+
+    /// The full construction of a string of this kind with the given outer diameter.
+    pub fn construction(&self, outer_diameter: f64) -> Construction<'_> {
+        match &self.build {
+            KindBuild::Plain { material } => Construction::Plain {
+                material,
+                diameter: outer_diameter,
+            },
+            KindBuild::Wound {
+                core_material,
+                core_shape,
+                core_ratio,
+                inner,
+                outer,
+            } => WoundRecipe {
+                core_material,
+                core_shape: *core_shape,
+                core_ratio: *core_ratio,
+                inner,
+                outer: outer.as_ref().map(|(m, share)| (m, *share)),
+            }
+            .build(outer_diameter),
+        }
+    }
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct KindSpec {
+    id: Id,
+    name: String,
+    #[serde(default)]
+    plain: Option<PlainSpec>,
+    #[serde(default)]
+    wound: Option<WoundSpec>,
+    catalog: Id,
+    source: String,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct PlainSpec {
+    material: Id,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct WoundSpec {
+    core: CoreSpec,
+    wraps: Vec<Id>,
+    #[serde(default)]
+    inner_share: Option<f64>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct CoreSpec {
+    material: Id,
+    shape: CoreShape,
+    #[serde(default)]
+    ratio: Option<f64>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct KindsFile {
+    kinds: Vec<KindSpec>,
+}
+
+/// String kinds with unique ids.
+#[derive(Debug, Clone, Default)]
+pub struct StringKinds {
+    list: Vec<StringKind>,
+}
+
+/// The shipped string kinds.
+pub const BUILTIN_KINDS_YAML: &str = include_str!("data/kinds.yaml");
+
+impl StringKinds {
+    /// The kinds shipped with `taut`, resolved against the shipped materials and catalogs, once.
+    pub fn builtin() -> Result<&'static StringKinds> {
+        static BUILTIN: OnceLock<std::result::Result<StringKinds, String>> = OnceLock::new();
+        BUILTIN
+            .get_or_init(|| {
+                let materials = Materials::builtin().map_err(|e| e.to_string())?;
+                let catalogs = GaugeCatalogs::builtin().map_err(|e| e.to_string())?;
+                load_kinds_file(
+                    BUILTIN_KINDS_YAML,
+                    "built-in kinds.yaml",
+                    materials,
+                    catalogs,
+                )
+                .map_err(|err| err.to_string())
+            })
+            .as_ref()
+            .map_err(|message| {
+                Error::input(format!("taut's own string kinds are broken: {message}"))
+            })
+    }
+
+    /// All kinds in file order.
+    pub fn all(&self) -> &[StringKind] {
+        &self.list
+    }
+
+    /// The kind with this id, or an error that suggests the closest id.
+    pub fn get(&self, id: &str) -> Result<&StringKind> {
+        if let Some(found) = self.list.iter().find(|k| k.id.as_str() == id) {
+            return Ok(found);
+        }
+        let err = Error::input(format!("unknown string kind `{id}`"));
+        Err(
+            match did_you_mean(id, self.list.iter().map(|k| k.id.as_str())) {
+                Some(best) => err.help(format!("did you mean `{best}`?")),
+                None => err.help(format!(
+                    "known kinds: {}",
+                    self.list
+                        .iter()
+                        .map(|k| k.id.as_str())
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                )),
+            },
+        )
+    }
+
+    /// Adds kinds (e.g. from a user's file), refusing an id that is already taken.
+    pub fn extend(&mut self, more: StringKinds) -> Result<()> {
+        for kind in more.list {
+            if self.list.iter().any(|k| k.id == kind.id) {
+                return Err(
+                    Error::input(format!("string kind `{}` is already defined", kind.id))
+                        .help("choose a new id for your own kind"),
+                );
+            }
+            self.list.push(kind);
+        }
+        Ok(())
+    }
+}
+
+/// Reads a string-kinds file (`kinds:` list, schema as `src/data/kinds.yaml`) and resolves its
+/// material and catalog ids, naming `origin`, line and field on bad input.
+pub fn load_kinds_file(
+    text: &str,
+    origin: &str,
+    materials: &Materials,
+    catalogs: &GaugeCatalogs,
+) -> Result<StringKinds> {
+    let file: KindsFile = crate::yaml::parse(text, origin)?;
+    let mut kinds = StringKinds::default();
+    for (index, spec) in file.kinds.into_iter().enumerate() {
+        let place = |err: Error, path: &[&str]| {
+            use crate::yaml::PathStep;
+            let mut steps = vec![PathStep::Key("kinds"), PathStep::Index(index)];
+            steps.extend(path.iter().map(|key| PathStep::Key(key)));
+            let err = err.field(format!("kinds[{index}].{}", path.join(".")));
+            let err = match crate::yaml::locate(text, &steps) {
+                Some((line, column)) => err.at(line, column),
+                None => err,
+            };
+            err.in_origin(origin)
+        };
+        if kinds.list.iter().any(|k| k.id == spec.id) {
+            return Err(place(
+                Error::input(format!("string kind `{}` appears twice", spec.id)),
+                &["id"],
+            ));
+        }
+        let material = |id: &Id, path: &[&str]| {
+            materials
+                .get(id.as_str())
+                .cloned()
+                .map_err(|err| place(err, path))
+        };
+        let load_bearing = |m: Material, path: &[&str]| {
+            if m.breaking_strength.is_none() {
+                Err(place(
+                    Error::input(format!(
+                        "material `{}` has no breaking strength, so it cannot carry the tension",
+                        m.id
+                    ))
+                    .help("use it as a wrap, or give the material a `breaking_strength`"),
+                    path,
+                ))
+            } else {
+                Ok(m)
+            }
+        };
+        let build = match (&spec.plain, &spec.wound) {
+            (Some(plain), None) => KindBuild::Plain {
+                material: load_bearing(
+                    material(&plain.material, &["plain", "material"])?,
+                    &["plain", "material"],
+                )?,
+            },
+            (None, Some(wound)) => {
+                let core_path = ["wound", "core", "material"];
+                let core_material =
+                    load_bearing(material(&wound.core.material, &core_path)?, &core_path)?;
+                let (inner, outer_id) = match wound.wraps.as_slice() {
+                    [only] => (material(only, &["wound", "wraps"])?, None),
+                    [inner, outer] => (material(inner, &["wound", "wraps"])?, Some(outer)),
+                    _ => {
+                        return Err(place(
+                            Error::input("a wound kind has one or two wrap layers")
+                                .help("write e.g. `wraps: [nickel-plated-steel]`"),
+                            &["wound", "wraps"],
+                        ))
+                    }
+                };
+                let ratio = wound.core.ratio.unwrap_or_else(|| {
+                    default_core_ratio(wound.core.shape, wound.wraps.len(), core_material.density())
+                });
+                if !(ratio > 0.0 && ratio < 1.0) {
+                    return Err(place(
+                        Error::input(format!("core ratio {ratio} must lie between 0 and 1")),
+                        &["wound", "core", "ratio"],
+                    ));
+                }
+                let share = wound.inner_share.unwrap_or(DEFAULT_INNER_SHARE);
+                if !(share > 0.0 && share < 1.0) {
+                    return Err(place(
+                        Error::input(format!("inner share {share} must lie between 0 and 1")),
+                        &["wound", "inner_share"],
+                    ));
+                }
+                let outer = match outer_id {
+                    Some(id) => Some((material(id, &["wound", "wraps"])?, share)),
+                    None => None,
+                };
+                KindBuild::Wound {
+                    core_material,
+                    core_shape: wound.core.shape,
+                    core_ratio: ratio,
+                    inner,
+                    outer,
+                }
+            }
+            _ => {
+                return Err(place(
+                    Error::input("a kind is either `plain:` or `wound:`, exactly one of them"),
+                    &["id"],
+                ))
+            }
+        };
+        let catalog = catalogs
+            .get(spec.catalog.as_str())
+            .map_err(|err| place(err, &["catalog"]))?;
+        let mut kind = StringKind {
+            id: spec.id,
+            name: spec.name,
+            catalog: spec.catalog.clone(),
+            source: spec.source,
+            build,
+            gauges: Vec::with_capacity(catalog.diameters().len()),
+        };
+        let gauges: Vec<Gauge> = catalog
+            .diameters()
+            .iter()
+            .map(|&diameter| {
+                let string = kind.construction(diameter);
+                Gauge {
+                    diameter,
+                    unit_mass: string.unit_mass(),
+                    breaking_tension: string.breaking_tension().unwrap_or(f64::NAN),
+                }
+            })
+            .collect();
+        // The selector binary-searches by linear density; a fixed recipe makes it grow with the
+        // diameter, and this check keeps that promise explicit.
+        if gauges.windows(2).any(|w| w[1].unit_mass <= w[0].unit_mass) {
+            return Err(place(
+                Error::input("linear density does not grow with diameter for this kind"),
+                &["id"],
+            ));
+        }
+        kind.gauges = gauges;
+        kinds.list.push(kind);
+    }
+    Ok(kinds)
+}

@@ -1,0 +1,307 @@
+//! String materials: density, elastic modulus, breaking strength, and where each number comes from.
+//!
+//! The shipped materials live in `src/data/materials.yaml` (values and provenance from
+//! `REFERENCES.md` §2–§4), read once through [`crate::yaml::parse`]. Users can add their own
+//! with [`load_materials_file`], in the same schema.
+
+use std::fmt;
+use std::sync::OnceLock;
+
+use serde::de::{self, MapAccess, SeqAccess, Visitor};
+use serde::{Deserialize, Deserializer};
+
+use crate::error::{did_you_mean, Error, Result};
+use crate::id::Id;
+use crate::units::{Density, Length, Pressure};
+
+/// A property that may depend on the wire's diameter (strength and modulus of drawn wire do).
+#[derive(Debug, Clone, PartialEq)]
+pub enum Curve {
+    /// The same value at every diameter, in SI.
+    Constant(f64),
+    /// Linear interpolation between (diameter, value) rows sorted by diameter, clamped to the
+    /// first and last rows outside the table (as for the ASTM A228 table).
+    Linear(Vec<(f64, f64)>),
+    /// Ranges: each (diameter, value) row applies to diameters above the previous row's and up
+    /// to and including its own (as in "over 0.009 to 0.010 in" tables such as ASTM A313). The
+    /// last row's value applies beyond it.
+    Steps(Vec<(f64, f64)>),
+}
+
+impl Curve {
+    /// The value at `diameter` (m), in SI.
+    pub fn at(&self, diameter: f64) -> f64 {
+        match self {
+            Curve::Constant(value) => *value,
+            Curve::Linear(rows) => interpolate(rows, diameter),
+            Curve::Steps(rows) => rows
+                .iter()
+                .find(|(upper, _)| diameter <= *upper)
+                .or(rows.last())
+                .map_or(f64::NAN, |(_, value)| *value),
+        }
+    }
+}
+
+fn interpolate(rows: &[(f64, f64)], diameter: f64) -> f64 {
+    let (Some(first), Some(last)) = (rows.first(), rows.last()) else {
+        return f64::NAN;
+    };
+    if diameter <= first.0 {
+        return first.1;
+    }
+    if diameter >= last.0 {
+        return last.1;
+    }
+    let above = rows.partition_point(|(d, _)| *d < diameter);
+    let (d1, v1) = rows[above - 1];
+    let (d2, v2) = rows[above];
+    if d2 == d1 {
+        return v2;
+    }
+    v1 + (v2 - v1) * (diameter - d1) / (d2 - d1)
+}
+
+/// How a [`Curve`] is written in a file: `203.4GPa`, or a map with one of
+/// `linear_by_diameter` / `steps_by_diameter` holding `[diameter, value]` rows.
+impl<'de> Deserialize<'de> for Curve {
+    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> std::result::Result<Self, D::Error> {
+        deserializer.deserialize_any(CurveVisitor)
+    }
+}
+
+struct CurveVisitor;
+
+const CURVE_KEYS: &[&str] = &["linear_by_diameter", "steps_by_diameter"];
+
+impl<'de> Visitor<'de> for CurveVisitor {
+    type Value = Curve;
+
+    fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str("a value with its unit such as `2.1GPa`, or a map with `linear_by_diameter` or `steps_by_diameter` rows")
+    }
+
+    fn visit_str<E: de::Error>(self, text: &str) -> std::result::Result<Curve, E> {
+        text.parse::<Pressure>()
+            .map(|p| Curve::Constant(p.si()))
+            .map_err(|err| E::custom(short_message(&err)))
+    }
+
+    fn visit_f64<E: de::Error>(self, number: f64) -> std::result::Result<Curve, E> {
+        Err(E::custom(format!(
+            "`{number}` has no unit; write a stress with its unit, e.g. `2.1GPa`"
+        )))
+    }
+
+    fn visit_u64<E: de::Error>(self, number: u64) -> std::result::Result<Curve, E> {
+        self.visit_f64(number as f64)
+    }
+
+    fn visit_i64<E: de::Error>(self, number: i64) -> std::result::Result<Curve, E> {
+        self.visit_f64(number as f64)
+    }
+
+    fn visit_map<A: MapAccess<'de>>(self, mut map: A) -> std::result::Result<Curve, A::Error> {
+        let Some(key) = map.next_key::<String>()? else {
+            return Err(de::Error::custom(
+                "the map is empty; give `linear_by_diameter` or `steps_by_diameter` rows",
+            ));
+        };
+        let rows: Vec<Row> = match key.as_str() {
+            "linear_by_diameter" | "steps_by_diameter" => map.next_value()?,
+            other => return Err(de::Error::unknown_field(other, CURVE_KEYS)),
+        };
+        if let Some(extra) = map.next_key::<String>()? {
+            return Err(de::Error::custom(format!(
+                "unexpected `{extra}`: give exactly one of `linear_by_diameter` or `steps_by_diameter`"
+            )));
+        }
+        let rows: Vec<(f64, f64)> = rows.into_iter().map(|r| (r.0.si(), r.1.si())).collect();
+        if rows.is_empty() {
+            return Err(de::Error::custom("the table has no rows"));
+        }
+        if let Some(pair) = rows.windows(2).find(|pair| pair[1].0 <= pair[0].0) {
+            return Err(de::Error::custom(format!(
+                "the rows must be sorted by increasing diameter; {} m follows {} m",
+                pair[1].0, pair[0].0
+            )));
+        }
+        Ok(if key == "linear_by_diameter" {
+            Curve::Linear(rows)
+        } else {
+            Curve::Steps(rows)
+        })
+    }
+
+    fn visit_seq<A: SeqAccess<'de>>(self, _seq: A) -> std::result::Result<Curve, A::Error> {
+        Err(de::Error::custom(
+            "a list needs a heading: write `linear_by_diameter:` or `steps_by_diameter:` above the rows",
+        ))
+    }
+}
+
+/// One `[diameter, value]` table row.
+#[derive(Deserialize)]
+struct Row(Length, Pressure);
+
+fn short_message(err: &Error) -> String {
+    match err {
+        Error::Input {
+            message,
+            help: Some(help),
+            ..
+        } => format!("{message} ({help})"),
+        Error::Input { message, .. } => message.clone(),
+        other => other.to_string(),
+    }
+}
+
+/// A string material.
+#[derive(Debug, Clone, PartialEq, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct Material {
+    /// Identifier used by string kinds and user files, e.g. `music-wire`.
+    pub id: Id,
+    /// Name shown to people.
+    pub name: String,
+    /// Density (kg/m³ once read).
+    pub density: Density,
+    /// Young's modulus, possibly by diameter (Pa).
+    pub elastic_modulus: Curve,
+    /// Minimum tensile (breaking) strength, possibly by diameter (Pa). Absent for materials that
+    /// only ever serve as a wrap, which carries no load in `taut`'s model (REFERENCES §6.2).
+    #[serde(default)]
+    pub breaking_strength: Option<Curve>,
+    /// Where the numbers come from, with provenance tags (READ / from memory / DERIVED / PRACTICE).
+    pub source: String,
+}
+
+impl Material {
+    /// Density in kg/m³.
+    pub fn density(&self) -> f64 {
+        self.density.si()
+    }
+
+    /// Young's modulus (Pa) of a wire of this diameter (m).
+    pub fn modulus_at(&self, diameter: f64) -> f64 {
+        self.elastic_modulus.at(diameter)
+    }
+
+    /// Breaking strength (Pa) of a wire of this diameter (m), if the material has one.
+    pub fn strength_at(&self, diameter: f64) -> Option<f64> {
+        self.breaking_strength.as_ref().map(|c| c.at(diameter))
+    }
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct MaterialsFile {
+    materials: Vec<Material>,
+}
+
+/// A set of materials with unique ids, looked up by id.
+#[derive(Debug, Clone, Default)]
+pub struct Materials {
+    list: Vec<Material>,
+}
+
+impl Materials {
+    /// The materials shipped with `taut` (`src/data/materials.yaml`), parsed once.
+    pub fn builtin() -> Result<&'static Materials> {
+        static BUILTIN: OnceLock<std::result::Result<Materials, String>> = OnceLock::new();
+        BUILTIN
+            .get_or_init(|| {
+                load_materials_file(BUILTIN_MATERIALS_YAML, "built-in materials.yaml")
+                    .map_err(|err| err.to_string())
+            })
+            .as_ref()
+            .map_err(|message| {
+                Error::input(format!("taut's own material data is broken: {message}"))
+            })
+    }
+
+    /// All materials in file order.
+    pub fn all(&self) -> &[Material] {
+        &self.list
+    }
+
+    /// The material with this id, or an error that suggests the closest id.
+    pub fn get(&self, id: &str) -> Result<&Material> {
+        if let Some(found) = self.list.iter().find(|m| m.id.as_str() == id) {
+            return Ok(found);
+        }
+        let known = self.list.iter().map(|m| m.id.as_str());
+        let err = Error::input(format!("unknown material `{id}`"));
+        Err(match did_you_mean(id, known) {
+            Some(best) => err.help(format!("did you mean `{best}`?")),
+            None => err.help(format!(
+                "known materials: {}",
+                self.list
+                    .iter()
+                    .map(|m| m.id.as_str())
+                    .collect::<Vec<_>>()
+                    .join(", ")
+            )),
+        })
+    }
+
+    /// Adds materials (e.g. from a user's file), refusing an id that is already taken.
+    pub fn extend(&mut self, more: Materials) -> Result<()> {
+        for material in more.list {
+            if self.list.iter().any(|m| m.id == material.id) {
+                return Err(
+                    Error::input(format!("material `{}` is already defined", material.id))
+                        .help("choose a new id for your own material"),
+                );
+            }
+            self.list.push(material);
+        }
+        Ok(())
+    }
+}
+
+/// The shipped material data.
+pub const BUILTIN_MATERIALS_YAML: &str = include_str!("data/materials.yaml");
+
+/// Reads a materials file (`materials:` list, schema as `src/data/materials.yaml`), naming
+/// `origin`, line and field on bad input.
+pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
+    let file: MaterialsFile = crate::yaml::parse(text, origin)?;
+    let mut materials = Materials::default();
+    for (index, material) in file.materials.into_iter().enumerate() {
+        if material.source.trim().is_empty() {
+            return Err(locate(
+                Error::input("say where the numbers come from (measured, a data sheet, a book)"),
+                text,
+                index,
+                "source",
+            )
+            .in_origin(origin));
+        }
+        if materials.list.iter().any(|m| m.id == material.id) {
+            return Err(locate(
+                Error::input(format!("material `{}` appears twice", material.id)),
+                text,
+                index,
+                "id",
+            )
+            .in_origin(origin));
+        }
+        materials.list.push(material);
+    }
+    Ok(materials)
+}
+
+fn locate(err: Error, text: &str, index: usize, field: &str) -> Error {
+    use crate::yaml::PathStep;
+    let path = [
+        PathStep::Key("materials"),
+        PathStep::Index(index),
+        PathStep::Key(field),
+    ];
+    let err = err.field(format!("materials[{index}].{field}"));
+    match crate::yaml::locate(text, &path) {
+        Some((line, column)) => err.at(line, column),
+        None => err,
+    }
+}
