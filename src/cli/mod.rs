@@ -2,6 +2,7 @@
 //! layer sees clap.
 
 mod output;
+mod plan;
 mod tuning;
 
 use std::process::ExitCode;
@@ -18,6 +19,8 @@ pub struct Cli {
 
 #[derive(Debug, Subcommand)]
 enum Command {
+    /// Choose a string for every course of an instrument in a tuning.
+    Plan(plan::PlanArgs),
     /// Work with tunings: list degrees, fit just intervals, compare, resolve pitches.
     Tuning(tuning::TuningArgs),
 }
@@ -26,6 +29,7 @@ enum Command {
 pub fn main() -> ExitCode {
     let cli = Cli::parse();
     let result = match cli.command {
+        Command::Plan(args) => plan::run(&args),
         Command::Tuning(args) => tuning::run(args),
     };
     output::finish(result)

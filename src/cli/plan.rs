@@ -1,0 +1,126 @@
+//! `taut plan`: solve a string for every course of an instrument in a tuning.
+
+mod render;
+
+use std::path::PathBuf;
+
+use clap::{Args, ValueEnum};
+
+use taut::error::Result;
+use taut::instrument::{Instrument, TensionSpec};
+use taut::solve::{self, SolveOptions};
+use taut::units::{ForceUnit, LengthUnit};
+
+pub use render::DisplayUnits;
+
+use super::output;
+
+/// Output formats of a plan.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum PlanFormat {
+    /// A table for the terminal, with totals, warnings and safety cautions.
+    Table,
+    /// One JSON document (documented in README).
+    Json,
+    /// One row per string.
+    Csv,
+    /// The JSON document's fields as YAML.
+    Yaml,
+}
+
+/// Units a tension can be shown in besides newtons.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum ForceChoice {
+    /// Newtons only.
+    N,
+    /// Pound-force.
+    Lbf,
+    /// Kilogram-force.
+    Kgf,
+}
+
+/// Units a vibrating length can be shown in.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum LengthChoice {
+    /// Millimetres.
+    Mm,
+    /// Inches.
+    In,
+    /// Metres.
+    M,
+}
+
+/// Arguments of `taut plan`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Choose a string for every course of an instrument in a tuning, with tension, stress and warnings",
+    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+)]
+pub struct PlanArgs {
+    /// Instrument definition (a YAML file) or the name of a built-in template.
+    #[arg(value_name = "INSTRUMENT")]
+    pub instrument: String,
+    /// Tuning to use instead of the instrument's own: a shipped name (e.g. `19edo`), an inline
+    /// spec, or a YAML file, optionally with `@reference`.
+    #[arg(long, value_name = "TUNING")]
+    pub tuning: Option<String>,
+    /// Tension for every course instead of the file's: a target such as `70N`, `16lbf`, `7kgf`,
+    /// or a window such as `60N..90N`.
+    #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
+    pub tension: Option<String>,
+    /// Show tensions in newtons and this unit.
+    #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
+    pub force_unit: ForceChoice,
+    /// Show vibrating lengths in this unit (diameters are always shown in inches and mm).
+    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
+    pub length_unit: LengthChoice,
+    /// Output format (plans add CSV and YAML to the shared table and JSON).
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: PlanFormat,
+    /// Write to this file instead of standard output (written whole, or not at all).
+    #[arg(long, short = 'o', value_name = "FILE")]
+    pub output: Option<PathBuf>,
+}
+
+/// Runs `taut plan`.
+pub fn run(args: &PlanArgs) -> Result<()> {
+    let tension = args
+        .tension
+        .as_deref()
+        .map(|text| {
+            text.parse::<TensionSpec>()
+                .map_err(|err| err.in_origin("--tension"))
+        })
+        .transpose()?;
+    let instrument = Instrument::load(&args.instrument)?;
+    let plan = solve::plan(
+        &instrument,
+        &SolveOptions {
+            tuning: args.tuning.clone(),
+            tension,
+        },
+    )?;
+    let units = DisplayUnits {
+        force: match args.force_unit {
+            ForceChoice::N => ForceUnit::N,
+            ForceChoice::Lbf => ForceUnit::Lbf,
+            ForceChoice::Kgf => ForceUnit::Kgf,
+        },
+        length: match args.length_unit {
+            LengthChoice::Mm => LengthUnit::Mm,
+            LengthChoice::In => LengthUnit::In,
+            LengthChoice::M => LengthUnit::M,
+        },
+    };
+    let text = match args.format {
+        PlanFormat::Table => render::table(&plan, units),
+        PlanFormat::Json => render::json(&plan)?,
+        PlanFormat::Csv => render::csv(&plan)?,
+        PlanFormat::Yaml => render::yaml(&plan)?,
+    };
+    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
+    match &args.output {
+        Some(path) => output::write_atomically(path, text.as_bytes()),
+        None => output::write_stdout(text.as_bytes()),
+    }
+}
