@@ -63,24 +63,15 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
         .load_preset(presets::UTF8_BORDERS_ONLY)
         .set_content_arrangement(ContentArrangement::Disabled)
         .set_header(vec![
-            "Course",
-            "Pitch",
-            "Hz",
-            "Length",
-            "String",
-            "Diameter in",
-            "mm",
-            "μ g/m",
-            "Tension",
-            "Stress",
-            "",
+            "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Tension",
+            "Stress", "",
         ]);
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
             let number = index + 1;
             let first = index == 0;
             let pitch = if first {
-                format!("{} ({})", course.pitch_label, note_text(course))
+                pitch_text(course)
             } else {
                 format!("  {}", string.interval)
             };
@@ -114,7 +105,7 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
             ]);
         }
     }
-    let mut out = format!("{} in {}\n{table}\n", plan.instrument, plan.tuning);
+    let mut out = format!("{} — tuning {}\n{table}\n", plan.instrument, plan.tuning);
     out.push_str(&format!(
         "Total tension: {} over {} strings",
         tension_text(plan.total_tension_n, units.force),
@@ -158,11 +149,19 @@ fn note_text(course: &CoursePlan) -> String {
     }
 }
 
+/// The course's pitch as written, with the nearest 12-EDO note when that says something more.
+fn pitch_text(course: &CoursePlan) -> String {
+    let note = note_text(course);
+    if note == course.pitch_label {
+        note
+    } else {
+        format!("{} ({note})", course.pitch_label)
+    }
+}
+
+/// The string's kind id: the diameter columns already give its size.
 fn string_text(string: &StringPlan) -> String {
-    format!(
-        "{} {} ({})",
-        string.choice.construction, string.choice.material, string.choice.gauge
-    )
+    string.choice.kind.clone()
 }
 
 /// The JSON document (pretty-printed, ending in a newline).
