@@ -141,7 +141,13 @@ struct CoreSpec {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct KindsFile {
+    #[serde(default)]
     kinds: Vec<KindSpec>,
+    // A stock file (`taut plan --stock`) may hold all three sections in one document.
+    #[serde(default, rename = "materials")]
+    _materials: Option<serde::de::IgnoredAny>,
+    #[serde(default, rename = "catalogs")]
+    _catalogs: Option<serde::de::IgnoredAny>,
 }
 
 /// String kinds with unique ids.

@@ -27,6 +27,7 @@ pub mod pitch;
 pub mod plan;
 pub mod select;
 pub mod solve;
+pub mod stock;
 pub mod tuning;
 pub mod units;
 pub mod warning;

@@ -68,6 +68,10 @@ pub struct PlanArgs {
     /// or a window such as `60N..90N`.
     #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
     pub tension: Option<String>,
+    /// A stock file: extra materials, gauge catalogs and string kinds (e.g. the strings on your
+    /// shelf) that the instrument's `kinds` may name. May be given more than once.
+    #[arg(long, value_name = "FILE")]
+    pub stock: Vec<PathBuf>,
     /// Show tensions in newtons and this unit.
     #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
     pub force_unit: ForceChoice,
@@ -98,6 +102,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         &SolveOptions {
             tuning: args.tuning.clone(),
             tension,
+            stock_files: args.stock.clone(),
         },
     )?;
     let units = DisplayUnits {
