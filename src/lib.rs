@@ -7,6 +7,7 @@
 //! | read input | [`yaml`] (the one YAML reader), [`units`] (quantities with units) |
 //! | pitch | [`pitch`] (pitch addressing), [`tuning`] (tuning definitions, library, analysis) |
 //! | strings | [`physics`], [`material`], [`construction`], [`gauge`], [`kind`], [`select`] |
+//! | plan | [`instrument`] (instrument definitions), [`solve`] (the per-course solve), [`plan`] (the result), [`warning`] |
 //!
 //! Errors are [`error::Error`]; every bad input names its file, line and field.
 #![cfg_attr(
@@ -18,11 +19,17 @@ pub mod construction;
 pub mod error;
 pub mod gauge;
 pub mod id;
+pub mod instrument;
 pub mod kind;
 pub mod material;
 pub mod physics;
+pub mod pitch;
+pub mod plan;
 pub mod select;
+pub mod solve;
+pub mod tuning;
 pub mod units;
+pub mod warning;
 pub mod yaml;
 
 pub use error::{Error, Result};

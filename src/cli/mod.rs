@@ -3,6 +3,8 @@
 
 use std::process::ExitCode;
 
+mod plan;
+
 use clap::{Parser, Subcommand};
 
 /// Plan strings for any tuning on any instrument.
@@ -14,10 +16,22 @@ pub struct Cli {
 }
 
 #[derive(Debug, Subcommand)]
-enum Command {}
+enum Command {
+    /// Choose a string for every course of an instrument in a tuning.
+    Plan(plan::PlanArgs),
+}
 
 /// Runs the command line and returns the process exit code.
 pub fn main() -> ExitCode {
     let cli = Cli::parse();
-    match cli.command {}
+    let result = match &cli.command {
+        Command::Plan(args) => plan::run(args),
+    };
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(err) => {
+            eprintln!("error: {err}");
+            ExitCode::from(err.exit_code())
+        }
+    }
 }

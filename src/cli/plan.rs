@@ -1,0 +1,161 @@
+//! `taut plan`: solve a string for every course of an instrument in a tuning.
+
+mod render;
+
+use std::io::Write;
+use std::path::{Path, PathBuf};
+
+use clap::{Args, ValueEnum};
+
+use taut::error::{Error, Result};
+use taut::instrument::{Instrument, TensionSpec};
+use taut::solve::{self, SolveOptions};
+use taut::units::{ForceUnit, LengthUnit};
+
+pub use render::DisplayUnits;
+
+/// Output formats of a plan.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum PlanFormat {
+    /// A table for the terminal, with totals, warnings and safety cautions.
+    Table,
+    /// One JSON document (documented in README).
+    Json,
+    /// One row per string.
+    Csv,
+    /// The JSON document's fields as YAML.
+    Yaml,
+}
+
+/// Units a tension can be shown in besides newtons.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum ForceChoice {
+    /// Newtons only.
+    N,
+    /// Pound-force.
+    Lbf,
+    /// Kilogram-force.
+    Kgf,
+}
+
+/// Units a vibrating length can be shown in.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum LengthChoice {
+    /// Millimetres.
+    Mm,
+    /// Inches.
+    In,
+    /// Metres.
+    M,
+}
+
+/// Arguments of `taut plan`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Choose a string for every course of an instrument in a tuning, with tension, stress and warnings",
+    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+)]
+pub struct PlanArgs {
+    /// Instrument definition (a YAML file) or the name of a built-in template.
+    #[arg(value_name = "INSTRUMENT")]
+    pub instrument: String,
+    /// Tuning to use instead of the instrument's own: a shipped name (e.g. `19edo`), an inline
+    /// spec, or a YAML file, optionally with `@reference`.
+    #[arg(long, value_name = "TUNING")]
+    pub tuning: Option<String>,
+    /// Tension for every course instead of the file's: a target such as `70N`, `16lbf`, `7kgf`,
+    /// or a window such as `60N..90N`.
+    #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
+    pub tension: Option<String>,
+    /// Show tensions in newtons and this unit.
+    #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
+    pub force_unit: ForceChoice,
+    /// Show vibrating lengths in this unit (diameters are always shown in inches and mm).
+    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
+    pub length_unit: LengthChoice,
+    /// Output format.
+    #[arg(long, short = 'f', value_enum, default_value = "table")]
+    pub format: PlanFormat,
+    /// Write to this file instead of standard output (written whole, or not at all).
+    #[arg(long, short = 'o', value_name = "FILE")]
+    pub output: Option<PathBuf>,
+}
+
+/// Runs `taut plan`.
+pub fn run(args: &PlanArgs) -> Result<()> {
+    let tension = args
+        .tension
+        .as_deref()
+        .map(|text| {
+            text.parse::<TensionSpec>()
+                .map_err(|err| err.in_origin("--tension"))
+        })
+        .transpose()?;
+    let instrument = Instrument::load(&args.instrument)?;
+    let plan = solve::plan(
+        &instrument,
+        &SolveOptions {
+            tuning: args.tuning.clone(),
+            tension,
+        },
+    )?;
+    let units = DisplayUnits {
+        force: match args.force_unit {
+            ForceChoice::N => ForceUnit::N,
+            ForceChoice::Lbf => ForceUnit::Lbf,
+            ForceChoice::Kgf => ForceUnit::Kgf,
+        },
+        length: match args.length_unit {
+            LengthChoice::Mm => LengthUnit::Mm,
+            LengthChoice::In => LengthUnit::In,
+            LengthChoice::M => LengthUnit::M,
+        },
+    };
+    let text = match args.format {
+        PlanFormat::Table => render::table(&plan, units),
+        PlanFormat::Json => render::json(&plan)?,
+        PlanFormat::Csv => render::csv(&plan)?,
+        PlanFormat::Yaml => render::yaml(&plan)?,
+    };
+    write_output(&text, args.output.as_deref())
+}
+
+/// Writes `text` to standard output (a closed pipe ends quietly), or to `path` through a
+/// temporary file renamed into place, so a failed run never leaves a partial file.
+fn write_output(text: &str, path: Option<&Path>) -> Result<()> {
+    let Some(path) = path else {
+        let mut stdout = std::io::stdout().lock();
+        return match stdout
+            .write_all(text.as_bytes())
+            .and_then(|()| stdout.flush())
+        {
+            Err(err) if err.kind() == std::io::ErrorKind::BrokenPipe => Ok(()),
+            other => other.map_err(|source| Error::Write {
+                path: PathBuf::from("standard output"),
+                source,
+            }),
+        };
+    };
+    let fail = |source| Error::Write {
+        path: path.to_path_buf(),
+        source,
+    };
+    let folder = match path.parent() {
+        Some(parent) if !parent.as_os_str().is_empty() => parent.to_path_buf(),
+        _ => PathBuf::from("."),
+    };
+    let name = path
+        .file_name()
+        .map(|name| name.to_string_lossy().into_owned())
+        .unwrap_or_else(|| "plan".to_string());
+    let temporary = folder.join(format!(".{name}.{}.partial", std::process::id()));
+    let written = std::fs::File::create(&temporary).and_then(|mut file| {
+        file.write_all(text.as_bytes())?;
+        file.sync_all()
+    });
+    if let Err(source) = written.and_then(|()| std::fs::rename(&temporary, path)) {
+        let _ = std::fs::remove_file(&temporary);
+        return Err(fail(source));
+    }
+    Ok(())
+}

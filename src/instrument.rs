@@ -1,0 +1,545 @@
+//! Instrument definitions: the courses to string, their pitches and lengths, and what each may
+//! carry.
+//!
+//! An instrument file is YAML (read through [`crate::yaml::parse`]); its schema is documented in
+//! README and in the examples/ folder. Checks that need one value are done while reading, so they
+//! name line and column; checks across values (duplicate course numbers, a course without any
+//! length) run in [`Instrument::from_text`] and are pointed back at their line with
+//! [`crate::yaml::locate`].
+
+mod interval;
+mod scalar_or_map;
+mod templates;
+mod tension;
+
+use std::path::Path;
+use std::str::FromStr;
+
+use serde::Deserialize;
+
+pub use interval::Interval;
+pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
+pub use templates::{template, TEMPLATES};
+pub use tension::{Shape, TensionGoal, TensionSpec};
+
+use crate::error::{did_you_mean, Error, Result};
+use crate::units::{Force, Length};
+use crate::yaml::{self, PathStep};
+
+/// The most courses one instrument may have. Concert harps have 47 and large zithers a few
+/// hundred; a thousand leaves room while catching a runaway generated file.
+pub const MAX_COURSES: usize = 1000;
+/// The most strings one course may hold (single, pair or triple courses).
+pub const MAX_STRINGS_PER_COURSE: usize = 3;
+
+/// A fraction written as a percentage, e.g. `10%`.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Percent(f64);
+
+impl Percent {
+    /// The fraction (0.1 for `10%`).
+    pub fn fraction(self) -> f64 {
+        self.0
+    }
+}
+
+impl FromStr for Percent {
+    type Err = Error;
+
+    fn from_str(text: &str) -> Result<Self> {
+        let trimmed = text.trim();
+        let number = trimmed.strip_suffix('%').ok_or_else(|| {
+            Error::input(format!("`{trimmed}` is not a percentage"))
+                .help("write the per cent sign, e.g. `10%`")
+        })?;
+        let value: f64 = number
+            .trim()
+            .parse()
+            .map_err(|_| Error::input(format!("`{trimmed}` is not a percentage")))?;
+        if !(value.is_finite() && value > 0.0 && value <= 1000.0) {
+            return Err(Error::input(format!(
+                "`{trimmed}` must be above 0% and at most 1000%"
+            )));
+        }
+        Ok(Percent(value / 100.0))
+    }
+}
+
+impl Expecting for Percent {
+    const EXPECTING: &'static str = "a percentage such as `10%`";
+}
+
+impl<'de> Deserialize<'de> for Percent {
+    fn deserialize<D: serde::Deserializer<'de>>(
+        deserializer: D,
+    ) -> std::result::Result<Self, D::Error> {
+        scalar_or_map::scalar(deserializer)
+    }
+}
+
+/// The vibrating length: one for every course, or two end values spread across the courses
+/// (a fanned neck, a harp's changing string length given by its ends).
+#[derive(Debug, Clone, PartialEq)]
+pub enum ScaleLength {
+    /// The same length for every course.
+    Uniform(Length),
+    /// From the first listed course to the last, with a shape between them.
+    Spread {
+        /// Length at the first listed course.
+        first: Length,
+        /// Length at the last listed course.
+        last: Length,
+        /// How the length moves between them (linear for frets fanned on a straight line).
+        shape: Shape,
+    },
+}
+
+#[derive(Debug, Clone, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct SpreadDetail {
+    #[serde(deserialize_with = "scalar_or_map::scalar")]
+    first: Length,
+    #[serde(deserialize_with = "scalar_or_map::scalar")]
+    last: Length,
+    #[serde(default)]
+    shape: Shape,
+}
+
+impl<'de> Deserialize<'de> for ScaleLength {
+    fn deserialize<D: serde::Deserializer<'de>>(
+        deserializer: D,
+    ) -> std::result::Result<Self, D::Error> {
+        Ok(
+            match ScalarOrMap::<Length, SpreadDetail>::deserialize(deserializer)? {
+                ScalarOrMap::Scalar(length) => ScaleLength::Uniform(length),
+                ScalarOrMap::Map(spread) => ScaleLength::Spread {
+                    first: spread.first,
+                    last: spread.last,
+                    shape: spread.shape,
+                },
+            },
+        )
+    }
+}
+
+impl ScaleLength {
+    /// The length in metres a fraction `position` of the way from the first course to the last.
+    pub fn at(&self, position: f64) -> f64 {
+        match self {
+            ScaleLength::Uniform(length) => length.si(),
+            ScaleLength::Spread { first, last, shape } => {
+                shape.between(first.si(), last.si(), position)
+            }
+        }
+    }
+}
+
+/// Fractions of the breaking strength at which the stress warnings fire.
+#[derive(Debug, Clone, Copy, PartialEq, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct StressLimits {
+    /// Above this fraction a caution is shown.
+    pub caution: Option<Percent>,
+    /// Above this fraction a danger is shown.
+    pub danger: Option<Percent>,
+}
+
+/// Settings any course may give and the instrument's `defaults` give for all.
+#[derive(Debug, Clone, Default, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct CourseSettings {
+    /// Ids of the string kinds (construction, materials and gauge catalog) allowed.
+    pub kinds: Option<Vec<String>>,
+    /// Tension target, window or (in `defaults` only) profile.
+    pub tension: Option<TensionSpec>,
+    /// The widest string the nut slot, bridge hole or tuner takes.
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub max_diameter: Option<Length>,
+}
+
+/// One string of a course.
+#[derive(Debug, Clone, PartialEq)]
+pub struct CourseString {
+    /// Its interval from the course pitch.
+    pub interval: Interval,
+    /// Kinds allowed for this string alone (e.g. a plain octave string in a wound course).
+    pub kinds: Option<Vec<String>>,
+}
+
+#[derive(Debug, Clone, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct CourseStringDetail {
+    interval: Interval,
+    kinds: Option<Vec<String>>,
+}
+
+impl Expecting for Interval {
+    const EXPECTING: &'static str =
+        "an interval such as `unison`, `octave`, `octave below`, `3/2` or `+702c`";
+}
+
+impl<'de> Deserialize<'de> for CourseString {
+    fn deserialize<D: serde::Deserializer<'de>>(
+        deserializer: D,
+    ) -> std::result::Result<Self, D::Error> {
+        Ok(
+            match ScalarOrMap::<Interval, CourseStringDetail>::deserialize(deserializer)? {
+                ScalarOrMap::Scalar(interval) => CourseString {
+                    interval,
+                    kinds: None,
+                },
+                ScalarOrMap::Map(detail) => CourseString {
+                    interval: detail.interval,
+                    kinds: detail.kinds,
+                },
+            },
+        )
+    }
+}
+
+fn one_unison() -> Vec<CourseString> {
+    vec![CourseString {
+        interval: Interval::unison(),
+        kinds: None,
+    }]
+}
+
+/// One course: its pitch, its strings and anything it sets for itself.
+#[derive(Debug, Clone, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct Course {
+    /// The course number shown in output; defaults to its position in the list, from 1.
+    pub course: Option<u32>,
+    /// The pitch in the tuning's own addressing (e.g. `E2`, a degree, a ratio, Hz).
+    pub pitch: String,
+    /// This course's own vibrating length.
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub scale_length: Option<Length>,
+    /// The strings of the course (default: one string at unison).
+    #[serde(default = "one_unison")]
+    pub strings: Vec<CourseString>,
+    /// Kinds allowed on this course.
+    pub kinds: Option<Vec<String>>,
+    /// Tension target or window for this course.
+    pub tension: Option<TensionSpec>,
+    /// The widest string this course's slot or hole takes.
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub max_diameter: Option<Length>,
+}
+
+/// The file's contents, as written.
+#[derive(Debug, Clone, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct InstrumentFile {
+    name: String,
+    about: Option<String>,
+    tuning: Option<String>,
+    scale_length: Option<ScaleLength>,
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    rated_load: Option<Force>,
+    tolerance: Option<Percent>,
+    stress_limits: Option<StressLimits>,
+    #[serde(default)]
+    defaults: CourseSettings,
+    courses: Vec<Course>,
+}
+
+/// A checked instrument definition, with the text it came from so later errors can point at
+/// their line.
+#[derive(Debug, Clone)]
+pub struct Instrument {
+    /// The instrument's name.
+    pub name: String,
+    /// A sentence about it.
+    pub about: Option<String>,
+    /// The tuning to use when none is given on the command line.
+    pub tuning: Option<String>,
+    /// Instrument-wide vibrating length.
+    pub scale_length: Option<ScaleLength>,
+    /// The most total tension the maker rates the neck or soundboard for.
+    pub rated_load: Option<Force>,
+    /// How far a chosen string's tension may sit from the target before a warning.
+    pub tolerance: Option<Percent>,
+    /// Overrides of the stress warning thresholds.
+    pub stress_limits: Option<StressLimits>,
+    /// Settings for every course that does not give its own.
+    pub defaults: CourseSettings,
+    /// The courses in the order written (at least one).
+    pub courses: Vec<Course>,
+    origin: String,
+    text: String,
+}
+
+/// What the solver needs for one course, with every default applied. Borrows from the
+/// [`Instrument`], so building it does not allocate.
+#[derive(Debug, Clone, Copy)]
+pub struct CourseInput<'a> {
+    /// Position in the course list, from 0.
+    pub index: usize,
+    /// The course number shown to the user.
+    pub number: u32,
+    /// The pitch as written.
+    pub pitch: &'a str,
+    /// Vibrating length in metres.
+    pub length_m: f64,
+    /// Tension target and window, in newtons.
+    pub tension: Option<TensionGoal>,
+    /// Kinds allowed on the course, before any string's own choice.
+    pub kinds: Option<&'a [String]>,
+    /// The widest string the slot takes, in metres.
+    pub max_diameter_m: Option<f64>,
+    /// The course's strings (at least one).
+    pub strings: &'a [CourseString],
+}
+
+impl Instrument {
+    /// Loads an instrument from a file path or, when no such file exists, a compiled-in template
+    /// name (see [`TEMPLATES`]).
+    pub fn load(spec: &str) -> Result<Self> {
+        let path = Path::new(spec);
+        if path.exists() {
+            let text = yaml::read_text(path)?;
+            return Instrument::from_text(text, spec);
+        }
+        if let Some(text) = template(spec) {
+            return Instrument::from_text(text.to_string(), &format!("template `{spec}`"));
+        }
+        let names = TEMPLATES.iter().map(|(name, _)| *name);
+        let mut error = Error::input(format!(
+            "`{spec}` is neither an instrument file nor a built-in template"
+        ));
+        error = match did_you_mean(spec, names.clone()) {
+            Some(best) => error.help(format!("did you mean the template `{best}`?")),
+            None => error.help(format!(
+                "give a path to a YAML file, or one of: {}",
+                names.collect::<Vec<_>>().join(", ")
+            )),
+        };
+        Err(error.in_origin("INSTRUMENT"))
+    }
+
+    /// Parses and checks an instrument definition; `origin` names it in messages.
+    pub fn from_text(text: String, origin: &str) -> Result<Self> {
+        let file: InstrumentFile = yaml::parse(&text, origin)?;
+        let instrument = Instrument {
+            name: file.name,
+            about: file.about,
+            tuning: file.tuning,
+            scale_length: file.scale_length,
+            rated_load: file.rated_load,
+            tolerance: file.tolerance,
+            stress_limits: file.stress_limits,
+            defaults: file.defaults,
+            courses: file.courses,
+            origin: origin.to_string(),
+            text,
+        };
+        instrument.check()?;
+        Ok(instrument)
+    }
+
+    /// Where this definition came from (a path or a template label).
+    pub fn origin(&self) -> &str {
+        &self.origin
+    }
+
+    /// Attaches this file's name and, where found, the line of `path` to an error.
+    pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
+        let mut error = error.field(field_name(path));
+        if let Some((line, column)) = yaml::locate(&self.text, path) {
+            error = error.at(line, column);
+        }
+        error.in_origin(self.origin.clone())
+    }
+
+    fn check(&self) -> Result<()> {
+        if self.courses.is_empty() {
+            return Err(self.point(
+                Error::input("the instrument has no courses; list at least one")
+                    .help("write e.g. `courses: [{pitch: E4}]`"),
+                &[PathStep::Key("courses")],
+            ));
+        }
+        if self.courses.len() > MAX_COURSES {
+            return Err(self.point(
+                Error::input(format!(
+                    "the instrument has {} courses; taut plans at most {MAX_COURSES}",
+                    self.courses.len()
+                )),
+                &[PathStep::Key("courses")],
+            ));
+        }
+        if self
+            .defaults
+            .tension
+            .as_ref()
+            .is_some_and(|t| t.is_profile())
+            && self.courses.len() < 2
+        {
+            return Err(self.point(
+                Error::input("a tension profile runs from the first course to the last; it needs at least two courses"),
+                &[PathStep::Key("defaults"), PathStep::Key("tension")],
+            ));
+        }
+        self.check_kind_list(
+            self.defaults.kinds.as_deref(),
+            &[PathStep::Key("defaults"), PathStep::Key("kinds")],
+        )?;
+        let mut numbers: Vec<(u32, usize)> = Vec::with_capacity(self.courses.len());
+        for (index, course) in self.courses.iter().enumerate() {
+            let at = |key: &'static str| {
+                [
+                    PathStep::Key("courses"),
+                    PathStep::Index(index),
+                    PathStep::Key(key),
+                ]
+            };
+            let number = self.course_number(index);
+            if number == 0 {
+                return Err(self.point(Error::input("course numbers start at 1"), &at("course")));
+            }
+            numbers.push((number, index));
+            if course.pitch.trim().is_empty() {
+                return Err(self.point(Error::input("the pitch is empty"), &at("pitch")));
+            }
+            if course.scale_length.is_none() && self.scale_length.is_none() {
+                return Err(self.point(
+                    Error::input(format!("course {number} has no vibrating length"))
+                        .field(format!("courses[{index}].scale_length"))
+                        .help("give the course a `scale_length`, or give the instrument one for all courses"),
+                    &[PathStep::Key("courses"), PathStep::Index(index)],
+                ));
+            }
+            if course.tension.as_ref().is_some_and(|t| t.is_profile()) {
+                return Err(self.point(
+                    Error::input("a tension profile (`first`/`last`) spans the whole instrument")
+                        .help("put the profile in `defaults.tension`, or give this course a target or window"),
+                    &at("tension"),
+                ));
+            }
+            if course.strings.is_empty() || course.strings.len() > MAX_STRINGS_PER_COURSE {
+                return Err(self.point(
+                    Error::input(format!(
+                        "course {number} lists {} strings; a course holds 1 to {MAX_STRINGS_PER_COURSE}",
+                        course.strings.len()
+                    )),
+                    &at("strings"),
+                ));
+            }
+            self.check_kind_list(course.kinds.as_deref(), &at("kinds"))?;
+            for (string_index, string) in course.strings.iter().enumerate() {
+                self.check_kind_list(
+                    string.kinds.as_deref(),
+                    &[
+                        PathStep::Key("courses"),
+                        PathStep::Index(index),
+                        PathStep::Key("strings"),
+                        PathStep::Index(string_index),
+                        PathStep::Key("kinds"),
+                    ],
+                )?;
+            }
+        }
+        numbers.sort_unstable();
+        if let Some(pair) = numbers.windows(2).find(|pair| pair[0].0 == pair[1].0) {
+            let (number, first_index) = pair[0];
+            let second_index = pair[1].1;
+            let first_line = yaml::locate(
+                &self.text,
+                &[PathStep::Key("courses"), PathStep::Index(first_index)],
+            )
+            .map(|(line, _)| format!(" (line {line})"))
+            .unwrap_or_default();
+            return Err(self.point(
+                Error::input(format!(
+                    "course number {number} is used twice; it was already given to the course at position {}{first_line}",
+                    first_index + 1
+                )),
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(second_index),
+                    PathStep::Key("course"),
+                ],
+            ));
+        }
+        Ok(())
+    }
+
+    fn check_kind_list(&self, kinds: Option<&[String]>, path: &[PathStep<'_>]) -> Result<()> {
+        if kinds.is_some_and(|k| k.is_empty()) {
+            return Err(self.point(
+                Error::input(
+                    "the list of allowed kinds is empty; name at least one, or leave the key out",
+                ),
+                path,
+            ));
+        }
+        Ok(())
+    }
+
+    /// The number shown for the course at `index`: its own `course`, or its position from 1.
+    pub fn course_number(&self, index: usize) -> u32 {
+        self.courses
+            .get(index)
+            .and_then(|course| course.course)
+            .unwrap_or_else(|| u32::try_from(index + 1).unwrap_or(u32::MAX))
+    }
+
+    /// The course at `index` with every default applied; `tension_override` replaces any tension
+    /// the file gives (e.g. from the command line).
+    pub fn course_input(
+        &self,
+        index: usize,
+        tension_override: Option<&TensionSpec>,
+    ) -> Option<CourseInput<'_>> {
+        let course = self.courses.get(index)?;
+        let position = if self.courses.len() > 1 {
+            index as f64 / (self.courses.len() - 1) as f64
+        } else {
+            0.0
+        };
+        let length_m = match (&course.scale_length, &self.scale_length) {
+            (Some(own), _) => own.si(),
+            (None, Some(shared)) => shared.at(position),
+            // `check` refuses a course without any length, so this is not reached.
+            (None, None) => return None,
+        };
+        let tension = tension_override
+            .or(course.tension.as_ref())
+            .or(self.defaults.tension.as_ref())
+            .map(|spec| spec.goal_at(position));
+        Some(CourseInput {
+            index,
+            number: self.course_number(index),
+            pitch: course.pitch.trim(),
+            length_m,
+            tension,
+            kinds: course.kinds.as_deref().or(self.defaults.kinds.as_deref()),
+            max_diameter_m: course
+                .max_diameter
+                .or(self.defaults.max_diameter)
+                .map(Length::si),
+            strings: &course.strings,
+        })
+    }
+}
+
+/// Renders a path as `courses[3].pitch`.
+pub fn field_name(path: &[PathStep<'_>]) -> String {
+    let mut out = String::new();
+    for step in path {
+        match step {
+            PathStep::Key(key) => {
+                if !out.is_empty() {
+                    out.push('.');
+                }
+                out.push_str(key);
+            }
+            PathStep::Index(index) => out.push_str(&format!("[{index}]")),
+        }
+    }
+    out
+}
+
+#[cfg(test)]
+mod tests;

@@ -1,0 +1,578 @@
+//! Pitch addressing: cents, exact ratios, note names and the [`PitchSpec`] syntax.
+//!
+//! Cents follow A. J. Ellis, "On the Musical Scales of Various Nations", *Journal of the Society
+//! of Arts* 33 (1885): 1200 cents make an octave, so an interval of frequency ratio `r` measures
+//! `1200 · log2(r)` cents. Note names are scientific pitch notation (C4 is middle C, A4 the
+//! concert pitch of ISO 16:1975, 440 Hz by default), placed in 12-tone equal temperament:
+//! `f = a4 · 2^((m − 69)/12)` with `m` the MIDI-style note number (A4 = 69).
+//!
+//! # Pitch syntax
+//!
+//! | form | example | meaning |
+//! |---|---|---|
+//! | note name | `E2`, `F#3`, `Bb4`, `C-1` | a 12-tone note at the tuning's concert A4; must land on a degree |
+//! | note with offset | `E2+14c`, `A4-3.5c` | that note moved by the cents given; a free pitch |
+//! | snapped note | `~E2`, `~C#4+20c` | the degree nearest to the note |
+//! | degree | `deg7`, `deg-12` | degree k of the tuning (degree 0 starts period 0) |
+//! | degree in a period | `deg3p1`, `deg0p-2` | degree 3 of period 1 (period 0 holds degrees 0 … N−1) |
+//! | cents | `386.3c`, `-700c` | cents above (or below) the reference pitch |
+//! | ratio | `3/2`, `5/4` | exact frequency ratio to the reference pitch |
+//! | frequency | `82.41hz`, `440Hz` | absolute frequency |
+
+use std::fmt;
+use std::str::FromStr;
+
+use num_rational::Ratio;
+use num_traits::CheckedMul;
+use serde::Serialize;
+
+use crate::error::{Error, Result};
+
+/// Exact frequency ratio, in checked 128-bit arithmetic.
+pub type ExactRatio = Ratio<i128>;
+
+/// Concert pitch of ISO 16:1975: A4 = 440 Hz.
+pub const ISO_16_A4_HZ: f64 = 440.0;
+
+/// MIDI-style number of A4 (C4 = 60).
+const A4_NUMBER: i64 = 69;
+
+/// The interval in cents of a frequency ratio: `1200 · log2(ratio)` (Ellis 1885).
+pub fn cents(ratio: f64) -> f64 {
+    1200.0 * ratio.log2()
+}
+
+/// The frequency ratio of an interval in cents: `2^(cents/1200)` (inverse of [`cents`]).
+pub fn ratio_from_cents(cents: f64) -> f64 {
+    (cents / 1200.0).exp2()
+}
+
+/// Cents of an exact ratio, computed as `1200 · (log2 p − log2 q)` so that large numerators and
+/// denominators do not lose precision in one division first.
+pub fn cents_of_ratio(ratio: &ExactRatio) -> f64 {
+    1200.0 * ((*ratio.numer() as f64).log2() - (*ratio.denom() as f64).log2())
+}
+
+/// An exact ratio as a float.
+pub fn ratio_to_f64(ratio: &ExactRatio) -> f64 {
+    *ratio.numer() as f64 / *ratio.denom() as f64
+}
+
+/// `base^exponent` in checked arithmetic; `None` on overflow or for a zero base with a negative
+/// exponent.
+pub fn checked_ratio_pow(base: &ExactRatio, exponent: i64) -> Option<ExactRatio> {
+    let mut factor = if exponent < 0 {
+        if *base.numer() == 0 {
+            return None;
+        }
+        // The reciprocal keeps the sign in the numerator, as Ratio expects.
+        let (numer, denom) = (*base.denom(), *base.numer());
+        if denom < 0 {
+            Ratio::new_raw(numer.checked_neg()?, denom.checked_neg()?)
+        } else {
+            Ratio::new_raw(numer, denom)
+        }
+    } else {
+        *base
+    };
+    let mut remaining = exponent.unsigned_abs();
+    let mut result = Ratio::from_integer(1);
+    while remaining > 0 {
+        if remaining & 1 == 1 {
+            result = result.checked_mul(&factor)?;
+        }
+        remaining >>= 1;
+        if remaining > 0 {
+            factor = factor.checked_mul(&factor)?;
+        }
+    }
+    Some(result)
+}
+
+/// Formats an exact ratio as `p/q` (always with the denominator, so `2/1` reads as a ratio).
+pub fn format_ratio(ratio: &ExactRatio) -> String {
+    format!("{}/{}", ratio.numer(), ratio.denom())
+}
+
+/// Serializes an exact ratio as the text `p/q`, which JSON readers keep exact.
+pub fn serialize_ratio<S: serde::Serializer>(
+    ratio: &ExactRatio,
+    serializer: S,
+) -> std::result::Result<S::Ok, S::Error> {
+    serializer.serialize_str(&format_ratio(ratio))
+}
+
+/// Serializes an optional exact ratio as `p/q` or `null`.
+pub fn serialize_optional_ratio<S: serde::Serializer>(
+    ratio: &Option<ExactRatio>,
+    serializer: S,
+) -> std::result::Result<S::Ok, S::Error> {
+    match ratio {
+        Some(ratio) => serializer.serialize_str(&format_ratio(ratio)),
+        None => serializer.serialize_none(),
+    }
+}
+
+/// Parses `p/q` (or a whole number `p`, read as `p/1`) into an exact positive ratio.
+pub fn parse_ratio(text: &str) -> Result<ExactRatio> {
+    let text = text.trim();
+    let (numer_text, denom_text) = text.split_once('/').unwrap_or((text, "1"));
+    let part = |digits: &str, what: &str| -> Result<i128> {
+        let digits = digits.trim();
+        if digits.is_empty() || !digits.bytes().all(|b| b.is_ascii_digit()) {
+            return Err(Error::input(format!(
+                "`{text}` is not a ratio: the {what} must be a whole number without a sign"
+            ))
+            .help("write a ratio such as `3/2`"));
+        }
+        digits.parse::<i128>().map_err(|_| {
+            Error::input(format!(
+                "`{text}` is too large for exact arithmetic (at most 38 digits each side)"
+            ))
+        })
+    };
+    let numer = part(numer_text, "numerator")?;
+    let denom = part(denom_text, "denominator")?;
+    if denom == 0 {
+        return Err(Error::input(format!(
+            "`{text}` has a zero denominator, which is not a ratio"
+        )));
+    }
+    if numer == 0 {
+        return Err(Error::input(format!(
+            "`{text}` is zero; a frequency ratio must be above zero"
+        )));
+    }
+    Ok(Ratio::new(numer, denom))
+}
+
+/// Parses a finite number, naming what it is for in the error.
+pub(crate) fn parse_finite(text: &str, what: &str) -> Result<f64> {
+    let trimmed = text.trim();
+    let value: f64 = trimmed
+        .parse()
+        .map_err(|_| Error::input(format!("`{trimmed}` is not a number ({what})")))?;
+    if !value.is_finite() {
+        return Err(Error::input(format!(
+            "`{trimmed}` is not a finite number ({what})"
+        )));
+    }
+    Ok(value)
+}
+
+/// A 12-tone note name in scientific pitch notation, e.g. `F#3`.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+pub struct NoteName {
+    letter: char,
+    /// Sharps (positive) or flats (negative).
+    alteration: i8,
+    octave: i32,
+}
+
+impl NoteName {
+    /// Semitones above C of the same octave, before alteration.
+    fn letter_semitones(letter: char) -> i64 {
+        match letter {
+            'C' => 0,
+            'D' => 2,
+            'E' => 4,
+            'F' => 5,
+            'G' => 7,
+            'A' => 9,
+            _ => 11,
+        }
+    }
+
+    /// The MIDI-style note number (C4 = 60, A4 = 69); notes outside MIDI's 0–127 keep counting.
+    pub fn number(&self) -> i64 {
+        (i64::from(self.octave) + 1) * 12
+            + Self::letter_semitones(self.letter)
+            + i64::from(self.alteration)
+    }
+
+    /// Semitones above A4 (negative below).
+    pub fn semitones_from_a4(&self) -> i64 {
+        self.number() - A4_NUMBER
+    }
+
+    /// The 12-tone equal-tempered frequency of this note for a concert A4.
+    pub fn hz(&self, concert_a4_hz: f64) -> f64 {
+        concert_a4_hz * (self.semitones_from_a4() as f64 / 12.0).exp2()
+    }
+}
+
+impl fmt::Display for NoteName {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let accidental = match self.alteration {
+            2 => "##",
+            1 => "#",
+            -1 => "b",
+            -2 => "bb",
+            _ => "",
+        };
+        write!(f, "{}{accidental}{}", self.letter, self.octave)
+    }
+}
+
+impl FromStr for NoteName {
+    type Err = Error;
+
+    fn from_str(text: &str) -> Result<Self> {
+        let mut chars = text.trim().chars().peekable();
+        let help = "write a note as letter, optional # or b, octave: `E2`, `F#3`, `Bb4`, `C-1`";
+        let letter = match chars.next().map(|c| c.to_ascii_uppercase()) {
+            Some(c @ 'A'..='G') => c,
+            _ => return Err(Error::input(format!("`{text}` is not a note name")).help(help)),
+        };
+        let mut alteration: i8 = 0;
+        while let Some(&c) = chars.peek() {
+            let step = match c {
+                '#' | '♯' => 1,
+                'b' | '♭' => -1,
+                _ => break,
+            };
+            if alteration != 0 && alteration.signum() != step {
+                return Err(Error::input(format!("`{text}` mixes sharps and flats")).help(help));
+            }
+            alteration += step;
+            if alteration.abs() > 2 {
+                return Err(
+                    Error::input(format!("`{text}` has more than two sharps or flats")).help(help),
+                );
+            }
+            chars.next();
+        }
+        let octave_text: String = chars.collect();
+        let octave: i32 = octave_text.parse().map_err(|_| {
+            Error::input(format!("`{text}` has no octave number after the letter")).help(help)
+        })?;
+        if !(-10..=20).contains(&octave) {
+            return Err(Error::input(format!(
+                "`{text}`: octave {octave} is outside the audible and sub-audible range taut handles (-10 to 20)"
+            )));
+        }
+        Ok(NoteName {
+            letter,
+            alteration,
+            octave,
+        })
+    }
+}
+
+/// The nearest 12-tone equal-tempered note to a frequency, and the frequency's offset from it in
+/// cents (positive: sharp of the note). Sharps name the black keys. For a frequency that is not
+/// positive and finite, the name is `?` and the offset NaN.
+pub fn nearest_note_name(hz: f64, concert_a4_hz: f64) -> (String, f64) {
+    let semitones = 12.0 * (hz / concert_a4_hz).log2();
+    if !semitones.is_finite() || semitones.abs() > 1.0e6 {
+        return ("?".to_string(), f64::NAN);
+    }
+    let nearest = semitones.round();
+    let offset = (semitones - nearest) * 100.0;
+    let number = nearest as i64 + A4_NUMBER;
+    const NAMES: [&str; 12] = [
+        "C", "C#", "D", "D#", "E", "F", "F#", "G", "G#", "A", "A#", "B",
+    ];
+    let name = NAMES[number.rem_euclid(12) as usize];
+    let octave = number.div_euclid(12) - 1;
+    (format!("{name}{octave}"), offset)
+}
+
+/// A pitch as the user wrote it; resolve it against a tuning with
+/// [`crate::tuning::Tuning::resolve`]. See the [module documentation](self) for the syntax.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+#[serde(tag = "form", rename_all = "snake_case")]
+pub enum PitchSpec {
+    /// A 12-tone note name, optionally moved by cents, optionally snapped to the nearest degree.
+    Note {
+        /// The note.
+        note: NoteName,
+        /// Cents added to the note (0 when none was written).
+        offset_cents: f64,
+        /// Whether an offset was written (then the pitch is free and need not land on a degree).
+        has_offset: bool,
+        /// Whether to use the nearest degree (`~` prefix).
+        snap: bool,
+    },
+    /// A degree counted from degree 0 of the tuning.
+    Degree {
+        /// The degree (negative below degree 0).
+        degree: i64,
+    },
+    /// A step within a numbered period.
+    PeriodStep {
+        /// The period (0 holds degrees 0 … N−1).
+        period: i64,
+        /// The step within the period, 0 … N−1.
+        step: i64,
+    },
+    /// Cents from the reference pitch.
+    Cents {
+        /// Cents (negative below the reference).
+        cents: f64,
+    },
+    /// An exact ratio to the reference pitch.
+    Ratio {
+        /// The ratio.
+        #[serde(serialize_with = "serialize_ratio")]
+        ratio: ExactRatio,
+    },
+    /// An absolute frequency.
+    Hz {
+        /// Frequency in hertz.
+        hz: f64,
+    },
+}
+
+/// One-line summary of the pitch syntax, for error help and `--help`.
+pub const PITCH_SYNTAX_HELP: &str = "pitches: note `E2`, `F#3`, `Bb4`, `C-1`; note with cents `E2+14c`; nearest degree to a note `~E2`; degree `deg7`, `deg-3`; degree of a period `deg3p1`; cents from the reference `386.3c`; ratio to the reference `3/2`; frequency `82.41hz`";
+
+impl FromStr for PitchSpec {
+    type Err = Error;
+
+    fn from_str(text: &str) -> Result<Self> {
+        let trimmed = text.trim();
+        let lower = trimmed.to_ascii_lowercase();
+        let fail = |message: String| Error::input(message).help(PITCH_SYNTAX_HELP);
+        if trimmed.is_empty() {
+            return Err(fail("the pitch is empty".to_string()));
+        }
+        if let Some(number) = lower.strip_suffix("hz") {
+            let hz = parse_finite(number, "frequency in hertz")?;
+            if hz <= 0.0 {
+                return Err(fail(format!("`{trimmed}`: a frequency must be above 0 Hz")));
+            }
+            return Ok(PitchSpec::Hz { hz });
+        }
+        if let Some(rest) = lower.strip_prefix("deg") {
+            let bad = || {
+                fail(format!(
+                    "`{trimmed}` is not a degree; write `deg7`, `deg-3`, or `deg3p1` for degree 3 of period 1"
+                ))
+            };
+            return match rest.split_once('p') {
+                Some((step, period)) => Ok(PitchSpec::PeriodStep {
+                    period: period.parse().map_err(|_| bad())?,
+                    step: step.parse().map_err(|_| bad())?,
+                }),
+                None => Ok(PitchSpec::Degree {
+                    degree: rest.parse().map_err(|_| bad())?,
+                }),
+            };
+        }
+        if trimmed.contains('/') {
+            return Ok(PitchSpec::Ratio {
+                ratio: parse_ratio(trimmed).map_err(|e| e.help(PITCH_SYNTAX_HELP))?,
+            });
+        }
+        if let Some(number) = lower.strip_suffix('c') {
+            if number.starts_with(|c: char| c.is_ascii_digit() || "+-.".contains(c)) {
+                return Ok(PitchSpec::Cents {
+                    cents: parse_finite(number, "cents")?,
+                });
+            }
+        }
+        let (snap, body) = match trimmed.strip_prefix('~') {
+            Some(rest) => (true, rest),
+            None => (false, trimmed),
+        };
+        if body.starts_with(|c: char| c.is_ascii_alphabetic()) {
+            // The octave may be negative (`C-1`), so the offset's sign is the first + or - after
+            // the octave digits begin.
+            let octave_start = body
+                .char_indices()
+                .skip(1)
+                .find(|(_, c)| c.is_ascii_digit() || *c == '-')
+                .map(|(i, _)| i);
+            let split = octave_start.and_then(|start| {
+                let after_sign = if body[start..].starts_with('-') {
+                    start + 1
+                } else {
+                    start
+                };
+                body[after_sign..]
+                    .find(['+', '-'])
+                    .map(|offset| after_sign + offset)
+            });
+            let (note_text, offset_text) = match split {
+                Some(at) => (&body[..at], Some(&body[at..])),
+                None => (body, None),
+            };
+            let note: NoteName = note_text
+                .parse()
+                .map_err(|e: Error| e.help(PITCH_SYNTAX_HELP))?;
+            let offset_cents = match offset_text {
+                Some(offset) => {
+                    let number = offset
+                        .strip_suffix('c')
+                        .or_else(|| offset.strip_suffix('C'))
+                        .ok_or_else(|| {
+                            fail(format!(
+                                "`{trimmed}`: an offset from a note is in cents and ends in `c`, e.g. `E2+14c`"
+                            ))
+                        })?;
+                    parse_finite(number, "cents offset")?
+                }
+                None => 0.0,
+            };
+            return Ok(PitchSpec::Note {
+                note,
+                offset_cents,
+                has_offset: offset_text.is_some(),
+                snap,
+            });
+        }
+        Err(fail(format!("`{trimmed}` is not a pitch")))
+    }
+}
+
+impl fmt::Display for PitchSpec {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            PitchSpec::Note {
+                note,
+                offset_cents,
+                has_offset,
+                snap,
+            } => {
+                if *snap {
+                    write!(f, "~")?;
+                }
+                write!(f, "{note}")?;
+                if *has_offset {
+                    write!(f, "{offset_cents:+}c")?;
+                }
+                Ok(())
+            }
+            PitchSpec::Degree { degree } => write!(f, "deg{degree}"),
+            PitchSpec::PeriodStep { period, step } => write!(f, "deg{step}p{period}"),
+            PitchSpec::Cents { cents } => write!(f, "{cents}c"),
+            PitchSpec::Ratio { ratio } => write!(f, "{}", format_ratio(ratio)),
+            PitchSpec::Hz { hz } => write!(f, "{hz} Hz"),
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use approx::assert_abs_diff_eq;
+
+    #[test]
+    fn note_numbers_follow_scientific_pitch_notation() {
+        // MIDI numbering (from memory, REFERENCES §7.2): C4 = 60, A4 = 69, E2 = 40, C-1 = 0.
+        let number = |t: &str| t.parse::<NoteName>().unwrap().number();
+        assert_eq!(number("C4"), 60);
+        assert_eq!(number("A4"), 69);
+        assert_eq!(number("E2"), 40);
+        assert_eq!(number("C-1"), 0);
+        assert_eq!(number("Bb4"), 70);
+        assert_eq!(number("F#3"), 54);
+        assert_eq!(number("B#3"), 60);
+        assert_eq!(number("Cbb4"), 58);
+    }
+
+    #[test]
+    fn twelve_tone_frequencies_match_iso_16_and_the_equal_temperament_formula() {
+        // ISO 16:1975: A4 = 440 Hz; REFERENCES §7.2 (DERIVED): E2 = 82.4069, E4 = 329.6276,
+        // C4 = 261.6256 Hz.
+        let hz = |t: &str| t.parse::<NoteName>().unwrap().hz(ISO_16_A4_HZ);
+        assert_abs_diff_eq!(hz("A4"), 440.0, epsilon = 1e-12);
+        assert_abs_diff_eq!(hz("E2"), 82.4069, epsilon = 5e-5);
+        assert_abs_diff_eq!(hz("E4"), 329.6276, epsilon = 5e-5);
+        assert_abs_diff_eq!(hz("C4"), 261.6256, epsilon = 5e-5);
+    }
+
+    #[test]
+    fn cents_match_ellis() {
+        // Ellis 1885 via REFERENCES §7.3 (DERIVED values): 3/2 = 701.9550, 81/80 = 21.5063.
+        assert_abs_diff_eq!(cents(1.5), 701.9550, epsilon = 5e-5);
+        assert_abs_diff_eq!(cents_of_ratio(&Ratio::new(81, 80)), 21.5063, epsilon = 5e-5);
+        assert_abs_diff_eq!(ratio_from_cents(1200.0), 2.0, epsilon = 1e-12);
+    }
+
+    #[test]
+    fn nearest_note_names_the_note_and_offset() {
+        let (name, offset) = nearest_note_name(82.4069, 440.0);
+        assert_eq!(name, "E2");
+        assert!(offset.abs() < 0.01);
+        let (name, offset) = nearest_note_name(440.0 * ratio_from_cents(-30.0), 440.0);
+        assert_eq!(name, "A4");
+        assert_abs_diff_eq!(offset, -30.0, epsilon = 1e-9);
+        let (name, _) = nearest_note_name(466.1638, 440.0);
+        assert_eq!(name, "A#4");
+        assert_eq!(nearest_note_name(f64::NAN, 440.0).0, "?");
+        assert_eq!(nearest_note_name(0.0, 440.0).0, "?");
+    }
+
+    #[test]
+    fn pitch_specs_parse_every_form() {
+        let parse = |t: &str| t.parse::<PitchSpec>().unwrap();
+        assert!(matches!(
+            parse("E2+14c"),
+            PitchSpec::Note { offset_cents, has_offset: true, snap: false, .. } if offset_cents == 14.0
+        ));
+        assert!(matches!(
+            parse("C-1"),
+            PitchSpec::Note {
+                has_offset: false,
+                ..
+            }
+        ));
+        assert!(matches!(
+            parse("C-1-5c"),
+            PitchSpec::Note { offset_cents, .. } if offset_cents == -5.0
+        ));
+        assert!(matches!(parse("~F#3"), PitchSpec::Note { snap: true, .. }));
+        assert_eq!(parse("deg-7"), PitchSpec::Degree { degree: -7 });
+        assert!(matches!(parse("D7"), PitchSpec::Note { .. }));
+        assert_eq!(
+            parse("deg3p-1"),
+            PitchSpec::PeriodStep {
+                period: -1,
+                step: 3
+            }
+        );
+        assert_eq!(parse("-700c"), PitchSpec::Cents { cents: -700.0 });
+        assert_eq!(
+            parse("5/4"),
+            PitchSpec::Ratio {
+                ratio: Ratio::new(5, 4)
+            }
+        );
+        assert_eq!(parse("82.5Hz"), PitchSpec::Hz { hz: 82.5 });
+        assert_eq!(parse("Bb4").to_string(), "Bb4");
+        assert_eq!(parse("~E2+14c").to_string(), "~E2+14c");
+    }
+
+    #[test]
+    fn bad_pitch_specs_are_refused_with_help() {
+        for bad in [
+            "", "H2", "E", "3/0", "0/4", "-3/2", "nanc", "0hz", "E2+14", "E#b2", "deg", "degx",
+            "deg3p",
+        ] {
+            let err = bad.parse::<PitchSpec>().unwrap_err().to_string();
+            assert!(!err.is_empty(), "{bad}");
+        }
+        let err = "3/0".parse::<PitchSpec>().unwrap_err().to_string();
+        assert!(err.contains("zero denominator"), "{err}");
+    }
+
+    #[test]
+    fn checked_powers_are_exact_and_overflow_to_none() {
+        // Python: Fraction(3, 2) ** -3 == Fraction(8, 27)
+        assert_eq!(
+            checked_ratio_pow(&Ratio::new(3, 2), -3),
+            Some(Ratio::new(8, 27))
+        );
+        assert_eq!(
+            checked_ratio_pow(&Ratio::new(3, 2), 0),
+            Some(Ratio::from_integer(1))
+        );
+        assert_eq!(checked_ratio_pow(&Ratio::new(3, 2), 200), None);
+        assert_eq!(
+            checked_ratio_pow(&Ratio::from_integer(1), i64::MIN),
+            Some(Ratio::from_integer(1))
+        );
+    }
+}

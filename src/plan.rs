@@ -1,0 +1,124 @@
+//! The result of planning an instrument: plain data that the table, JSON, CSV and YAML renderers
+//! read. Every quantity is SI and says its unit in its field name.
+//!
+//! The JSON layout is documented in README ("The plan's JSON"); field names are a stable
+//! interface for scripts.
+
+use serde::{Deserialize, Serialize};
+
+use crate::warning::{Severity, Warning};
+
+/// A solved instrument.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Plan {
+    /// The instrument's name.
+    pub instrument: String,
+    /// The tuning's name.
+    pub tuning: String,
+    /// One entry per course, in the order the instrument lists them.
+    pub courses: Vec<CoursePlan>,
+    /// Sum of the tensions of every string, in newtons.
+    pub total_tension_n: f64,
+    /// The maker's rated total load, in newtons, when the instrument states one.
+    pub rated_load_n: Option<f64>,
+    /// Stress fraction above which a caution fires.
+    pub caution_stress_ratio: f64,
+    /// Stress fraction above which a danger fires.
+    pub danger_stress_ratio: f64,
+    /// Every warning of the plan: those of each course (repeated from the course) and those of
+    /// the whole instrument (with `course` null), in course order.
+    pub warnings: Vec<Warning>,
+}
+
+/// One course of the plan.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct CoursePlan {
+    /// The course number.
+    pub course: u32,
+    /// The pitch as written in the instrument file.
+    pub pitch: String,
+    /// The tuning's own label for the pitch (e.g. a degree).
+    pub pitch_label: String,
+    /// The nearest 12-tone note name at the tuning's concert pitch, e.g. `E4`.
+    pub note_name: String,
+    /// Offset from that note in cents.
+    pub note_offset_cents: f64,
+    /// The course's frequency in hertz.
+    pub pitch_hz: f64,
+    /// Vibrating length in metres.
+    pub length_m: f64,
+    /// The strings of the course, in the order the file lists them.
+    pub strings: Vec<StringPlan>,
+    /// Warnings about this course.
+    pub warnings: Vec<Warning>,
+}
+
+/// One planned string.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct StringPlan {
+    /// Interval from the course pitch, as written (`unison`, `octave`, `3/2`, …).
+    pub interval: String,
+    /// This string's frequency in hertz.
+    pub pitch_hz: f64,
+    /// The tension aimed for, in newtons.
+    pub target_tension_n: f64,
+    /// The exact linear density the target asks for, before the catalog rounds it, in kg/m.
+    pub required_unit_mass_kg_per_m: f64,
+    /// The chosen string. Its figures are flattened into this object.
+    #[serde(flatten)]
+    pub choice: StringChoice,
+    /// Nearby choices.
+    pub alternatives: Alternatives,
+}
+
+/// A catalog string at this string's pitch and length: what it is and how it behaves there.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct StringChoice {
+    /// Id of the string kind (construction, materials and catalog).
+    pub kind: String,
+    /// `plain` or `wound` (or the kind's own construction name).
+    pub construction: String,
+    /// Material in words, e.g. `carbon steel` or `phosphor bronze on steel`.
+    pub material: String,
+    /// The catalog's name for this gauge, e.g. `0.010 in` or `0.80 mm`.
+    pub gauge: String,
+    /// Outer diameter in millimetres.
+    pub diameter_mm: f64,
+    /// Outer diameter in inches.
+    pub diameter_in: f64,
+    /// Linear density in kg/m.
+    pub unit_mass_kg_per_m: f64,
+    /// The tension at this pitch and length, in newtons.
+    pub tension_n: f64,
+    /// Stress in the load-bearing cross-section over breaking strength.
+    pub stress_ratio: f64,
+    /// The pitch at which this string, at this length, would break, in hertz.
+    pub break_pitch_hz: f64,
+    /// Fletcher's inharmonicity coefficient B, when the kind gives a modulus.
+    pub inharmonicity: Option<f64>,
+}
+
+/// The choices around the chosen string.
+#[derive(Debug, Clone, Default, PartialEq, Serialize, Deserialize)]
+pub struct Alternatives {
+    /// The next thinner catalog step of the chosen kind.
+    pub thinner: Option<StringChoice>,
+    /// The next thicker catalog step of the chosen kind.
+    pub thicker: Option<StringChoice>,
+    /// The best string of each other allowed kind.
+    pub other_kinds: Vec<StringChoice>,
+}
+
+impl Plan {
+    /// Whether any warning is a caution or a danger (then the safety cautions are shown).
+    pub fn needs_safety_cautions(&self) -> bool {
+        self.warnings
+            .iter()
+            .any(|warning| warning.severity >= Severity::Caution)
+    }
+
+    /// Number of strings over all courses.
+    pub fn string_count(&self) -> usize {
+        self.courses.iter().map(|course| course.strings.len()).sum()
+    }
+}

@@ -1,0 +1,307 @@
+//! Warnings a plan can raise: each has a kind, a severity, the course (and string) it concerns,
+//! the figure that set it off with its limit, and a plain sentence.
+//!
+//! The wording lives here, in one place, so every renderer says the same thing.
+
+use serde::{Deserialize, Serialize};
+
+// The stress limits and the tension tolerance are the selector's (`crate::select`), where their
+// sources are given: caution above 65 %, danger above 85 % of breaking strength, ±10 % tolerance.
+
+/// What a warning is about. Serialized in snake_case (`stress_danger`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum WarningKind {
+    /// Stress above the caution fraction of breaking strength.
+    StressCaution,
+    /// Stress above the danger fraction of breaking strength.
+    StressDanger,
+    /// The tension asks for a string lighter than the thinnest practical one.
+    ThinnerThanPractical,
+    /// The tension asks for a string heavier than the heaviest in the catalog.
+    ThickerThanCatalog,
+    /// The chosen string is wider than the slot, hole or tuner takes.
+    WiderThanSlot,
+    /// Tension below the stated window: floppy, buzzing.
+    TensionBelowWindow,
+    /// Tension above the stated window.
+    TensionAboveWindow,
+    /// No catalog string lands within the tolerance of the target tension.
+    OffTarget,
+    /// The instrument's total tension exceeds its rated load.
+    OverRatedLoad,
+}
+
+impl WarningKind {
+    /// Every kind, for documentation and tests.
+    pub const ALL: [WarningKind; 9] = [
+        WarningKind::StressCaution,
+        WarningKind::StressDanger,
+        WarningKind::ThinnerThanPractical,
+        WarningKind::ThickerThanCatalog,
+        WarningKind::WiderThanSlot,
+        WarningKind::TensionBelowWindow,
+        WarningKind::TensionAboveWindow,
+        WarningKind::OffTarget,
+        WarningKind::OverRatedLoad,
+    ];
+
+    /// The name used in JSON, CSV and tables.
+    pub fn name(self) -> &'static str {
+        match self {
+            WarningKind::StressCaution => "stress_caution",
+            WarningKind::StressDanger => "stress_danger",
+            WarningKind::ThinnerThanPractical => "thinner_than_practical",
+            WarningKind::ThickerThanCatalog => "thicker_than_catalog",
+            WarningKind::WiderThanSlot => "wider_than_slot",
+            WarningKind::TensionBelowWindow => "tension_below_window",
+            WarningKind::TensionAboveWindow => "tension_above_window",
+            WarningKind::OffTarget => "off_target",
+            WarningKind::OverRatedLoad => "over_rated_load",
+        }
+    }
+
+    /// How serious this kind is.
+    pub fn severity(self) -> Severity {
+        match self {
+            WarningKind::StressDanger | WarningKind::OverRatedLoad => Severity::Danger,
+            WarningKind::StressCaution
+            | WarningKind::ThinnerThanPractical
+            | WarningKind::WiderThanSlot
+            | WarningKind::TensionAboveWindow => Severity::Caution,
+            WarningKind::ThickerThanCatalog
+            | WarningKind::TensionBelowWindow
+            | WarningKind::OffTarget => Severity::Note,
+        }
+    }
+}
+
+/// How serious a warning is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Severity {
+    /// Worth knowing; nothing breaks.
+    Note,
+    /// Risky: check before stringing.
+    Caution,
+    /// Likely to break a string or damage the instrument.
+    Danger,
+}
+
+/// One warning in a plan.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Warning {
+    /// What it is about.
+    pub kind: WarningKind,
+    /// How serious it is.
+    pub severity: Severity,
+    /// The course number, or `None` for the whole instrument.
+    pub course: Option<u32>,
+    /// The string within the course, from 1, when it concerns one string.
+    pub string: Option<usize>,
+    /// The figure that set it off (unit given by the kind: a fraction for stress, newtons for
+    /// tension and load, metres for diameters, a relative distance for `off_target`).
+    pub value: f64,
+    /// The limit it was measured against, in the same unit.
+    pub limit: f64,
+    /// A plain sentence with the figure.
+    pub message: String,
+}
+
+/// Where a string-level warning points.
+#[derive(Debug, Clone, Copy)]
+pub struct StringRef {
+    /// Course number.
+    pub course: u32,
+    /// String within the course, from 1.
+    pub string: usize,
+}
+
+impl StringRef {
+    fn named(self) -> String {
+        format!("Course {} string {}", self.course, self.string)
+    }
+
+    fn warning(self, kind: WarningKind, value: f64, limit: f64, message: String) -> Warning {
+        Warning {
+            kind,
+            severity: kind.severity(),
+            course: Some(self.course),
+            string: Some(self.string),
+            value,
+            limit,
+            message,
+        }
+    }
+
+    /// Stress above the danger or caution fraction; `break_pitch_hz` is where it would break.
+    pub fn stress(
+        self,
+        kind: WarningKind,
+        stress_ratio: f64,
+        limit: f64,
+        break_pitch_hz: f64,
+        pitch_hz: f64,
+    ) -> Warning {
+        let semitones = 12.0 * (break_pitch_hz / pitch_hz).log2();
+        let message = if stress_ratio >= 1.0 {
+            format!(
+                "{} would need {:.0}% of its breaking strength (limit {:.0}%): it breaks near {:.1} Hz, {:.1} semitones before it reaches its pitch.",
+                self.named(),
+                stress_ratio * 100.0,
+                limit * 100.0,
+                break_pitch_hz,
+                -semitones
+            )
+        } else {
+            format!(
+                "{} runs at {:.0}% of its breaking strength (limit {:.0}%); it would break near {:.1} Hz, {:.1} semitones above its pitch.",
+                self.named(),
+                stress_ratio * 100.0,
+                limit * 100.0,
+                break_pitch_hz,
+                semitones
+            )
+        };
+        self.warning(kind, stress_ratio, limit, message)
+    }
+
+    /// The target asks for a lighter string than the thinnest available.
+    pub fn thinner_than_practical(self, required_unit_mass: f64, lightest: f64) -> Warning {
+        let message = format!(
+            "{} would need {:.3} g/m for its target tension, lighter than the thinnest practical string ({:.3} g/m); the thinnest is used and carries more tension.",
+            self.named(),
+            required_unit_mass * 1000.0,
+            lightest * 1000.0
+        );
+        self.warning(
+            WarningKind::ThinnerThanPractical,
+            required_unit_mass,
+            lightest,
+            message,
+        )
+    }
+
+    /// The target asks for a heavier string than the catalog holds.
+    pub fn thicker_than_catalog(self, required_unit_mass: f64, heaviest: f64) -> Warning {
+        let message = format!(
+            "{} would need {:.3} g/m for its target tension, heavier than any catalog string ({:.3} g/m); the heaviest is used and carries less tension.",
+            self.named(),
+            required_unit_mass * 1000.0,
+            heaviest * 1000.0
+        );
+        self.warning(
+            WarningKind::ThickerThanCatalog,
+            required_unit_mass,
+            heaviest,
+            message,
+        )
+    }
+
+    /// The chosen string does not fit its slot.
+    pub fn wider_than_slot(self, diameter_m: f64, slot_m: f64) -> Warning {
+        let message = format!(
+            "{} is {:.3} mm ({:.4} in) across, wider than the {:.3} mm its slot or hole takes.",
+            self.named(),
+            diameter_m * 1000.0,
+            diameter_m / crate::units::METRES_PER_INCH,
+            slot_m * 1000.0
+        );
+        self.warning(WarningKind::WiderThanSlot, diameter_m, slot_m, message)
+    }
+
+    /// Tension outside the stated window.
+    pub fn outside_window(
+        self,
+        tension_n: f64,
+        min_n: Option<f64>,
+        max_n: Option<f64>,
+    ) -> Option<Warning> {
+        if let Some(min) = min_n.filter(|&min| tension_n < min) {
+            let message = format!(
+                "{} carries {:.1} N, below the window's {:.1} N: it will feel slack and may buzz.",
+                self.named(),
+                tension_n,
+                min
+            );
+            return Some(self.warning(WarningKind::TensionBelowWindow, tension_n, min, message));
+        }
+        if let Some(max) = max_n.filter(|&max| tension_n > max) {
+            let message = format!(
+                "{} carries {:.1} N, above the window's {:.1} N.",
+                self.named(),
+                tension_n,
+                max
+            );
+            return Some(self.warning(WarningKind::TensionAboveWindow, tension_n, max, message));
+        }
+        None
+    }
+
+    /// No catalog string near the target.
+    pub fn off_target(self, tension_n: f64, target_n: f64, tolerance: f64) -> Warning {
+        let distance = (tension_n - target_n).abs() / target_n;
+        let message = format!(
+            "{}: the closest catalog string gives {:.1} N against a target of {:.1} N ({:+.0}%, tolerance {:.0}%).",
+            self.named(),
+            tension_n,
+            target_n,
+            (tension_n / target_n - 1.0) * 100.0,
+            tolerance * 100.0
+        );
+        self.warning(WarningKind::OffTarget, distance, tolerance, message)
+    }
+}
+
+/// The instrument's total tension against its rated load.
+pub fn over_rated_load(total_n: f64, rated_n: f64) -> Warning {
+    Warning {
+        kind: WarningKind::OverRatedLoad,
+        severity: WarningKind::OverRatedLoad.severity(),
+        course: None,
+        string: None,
+        value: total_n,
+        limit: rated_n,
+        message: format!(
+            "The strings pull {:.0} N in total, {:.0}% of the {:.0} N the instrument is rated for.",
+            total_n,
+            total_n / rated_n * 100.0,
+            rated_n
+        ),
+    }
+}
+
+/// The cautions shown with any danger or caution, deferring to the maker.
+pub const SAFETY_CAUTIONS: [&str; 4] = [
+    "Strings can snap and whip: wear eye protection while tuning up, and keep faces away from the strings.",
+    "Bring tension up gradually, over several passes across all courses, and listen for creaks.",
+    "Respect the maker's load rating for the neck, bridge and soundboard; more tension than it was built for can pull a bridge or bow a neck.",
+    "These figures are estimates from published material data: defer to the instrument maker's specifications and to local practice.",
+];
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn names_match_serde() {
+        for kind in WarningKind::ALL {
+            let json = serde_json::to_string(&kind).unwrap();
+            assert_eq!(json, format!("\"{}\"", kind.name()));
+        }
+    }
+
+    #[test]
+    fn window_fires_only_outside() {
+        let at = StringRef {
+            course: 3,
+            string: 1,
+        };
+        assert!(at.outside_window(70.0, Some(60.0), Some(90.0)).is_none());
+        let low = at.outside_window(50.0, Some(60.0), None).unwrap();
+        assert_eq!(low.kind, WarningKind::TensionBelowWindow);
+        assert!(low.message.contains("50.0 N"), "{}", low.message);
+        let high = at.outside_window(95.0, None, Some(90.0)).unwrap();
+        assert_eq!(high.kind, WarningKind::TensionAboveWindow);
+    }
+}
