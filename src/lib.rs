@@ -8,6 +8,7 @@
 //! | pitch | [`pitch`] (pitch addressing), [`tuning`] (tuning definitions, library, analysis) |
 //! | strings | [`physics`], [`material`], [`construction`], [`gauge`], [`kind`], [`select`] |
 //! | plan | [`instrument`] (instrument definitions), [`solve`] (the per-course solve), [`plan`] (the result), [`warning`] |
+//! | beyond one plan | [`set`] (string-set files), [`audit`] (an installed set under a tuning), [`feel`] (stiffness and bend) |
 //!
 //! Errors are [`error::Error`]; every bad input names its file, line and field.
 #![cfg_attr(
@@ -15,8 +16,10 @@
     deny(clippy::unwrap_used, clippy::expect_used, clippy::panic)
 )]
 
+pub mod audit;
 pub mod construction;
 pub mod error;
+pub mod feel;
 pub mod gauge;
 pub mod id;
 pub mod instrument;
@@ -26,6 +29,7 @@ pub mod physics;
 pub mod pitch;
 pub mod plan;
 pub mod select;
+pub mod set;
 pub mod solve;
 pub mod tuning;
 pub mod units;
