@@ -73,7 +73,7 @@ where
 /// [`StringSet::from_text`] where the line can still be found.
 #[derive(Debug, Clone, Deserialize)]
 #[serde(deny_unknown_fields)]
-struct StringEntryFile {
+pub(crate) struct StringEntryFile {
     kind: Option<String>,
     diameter: Option<Located<Length>>,
     core_diameter: Option<Located<Length>>,
@@ -530,7 +530,7 @@ fn trimmed(value: f64, decimals: usize) -> String {
 }
 
 /// Checks one string entry; on failure returns the error and the key it concerns.
-fn check_entry(
+pub(crate) fn check_entry(
     entry: StringEntryFile,
     kinds: &StringKinds,
     materials: &Materials,
