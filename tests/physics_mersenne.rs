@@ -127,7 +127,7 @@ fn stress_below_the_breaking_pitch_falls_as_the_square() {
     let f_break = physics::breaking_frequency_plain(strength, rho, length);
     for (k, ratio) in [
         (1.0, 0.8909),
-        (3.0, 0.7071),
+        (3.0, std::f64::consts::FRAC_1_SQRT_2), // 0.7071 in §1.2
         (4.0, 0.6300),
         (6.0, 0.5),
         (12.0, 0.25),

@@ -1,9 +1,11 @@
 //! Command-line layer: argument parsing (clap), rendering and exit codes. Nothing below this
 //! layer sees clap.
 
-use std::process::ExitCode;
-
+mod output;
 mod plan;
+mod tuning;
+
+use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
@@ -19,19 +21,26 @@ pub struct Cli {
 enum Command {
     /// Choose a string for every course of an instrument in a tuning.
     Plan(plan::PlanArgs),
+    /// Work with tunings: list degrees, fit just intervals, compare, resolve pitches.
+    Tuning(tuning::TuningArgs),
 }
 
 /// Runs the command line and returns the process exit code.
 pub fn main() -> ExitCode {
     let cli = Cli::parse();
-    let result = match &cli.command {
-        Command::Plan(args) => plan::run(args),
+    let result = match cli.command {
+        Command::Plan(args) => plan::run(&args),
+        Command::Tuning(args) => tuning::run(args),
     };
-    match result {
-        Ok(()) => ExitCode::SUCCESS,
-        Err(err) => {
-            eprintln!("error: {err}");
-            ExitCode::from(err.exit_code())
-        }
+    output::finish(result)
+}
+
+#[cfg(test)]
+mod tests {
+    use clap::CommandFactory;
+
+    #[test]
+    fn command_line_definition_is_consistent() {
+        super::Cli::command().debug_assert();
     }
 }

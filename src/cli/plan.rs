@@ -2,17 +2,18 @@
 
 mod render;
 
-use std::io::Write;
-use std::path::{Path, PathBuf};
+use std::path::PathBuf;
 
 use clap::{Args, ValueEnum};
 
-use taut::error::{Error, Result};
+use taut::error::Result;
 use taut::instrument::{Instrument, TensionSpec};
 use taut::solve::{self, SolveOptions};
 use taut::units::{ForceUnit, LengthUnit};
 
 pub use render::DisplayUnits;
+
+use super::output;
 
 /// Output formats of a plan.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -73,8 +74,8 @@ pub struct PlanArgs {
     /// Show vibrating lengths in this unit (diameters are always shown in inches and mm).
     #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
     pub length_unit: LengthChoice,
-    /// Output format.
-    #[arg(long, short = 'f', value_enum, default_value = "table")]
+    /// Output format (plans add CSV and YAML to the shared table and JSON).
+    #[arg(long, value_enum, default_value = "table")]
     pub format: PlanFormat,
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
@@ -117,45 +118,9 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         PlanFormat::Csv => render::csv(&plan)?,
         PlanFormat::Yaml => render::yaml(&plan)?,
     };
-    write_output(&text, args.output.as_deref())
-}
-
-/// Writes `text` to standard output (a closed pipe ends quietly), or to `path` through a
-/// temporary file renamed into place, so a failed run never leaves a partial file.
-fn write_output(text: &str, path: Option<&Path>) -> Result<()> {
-    let Some(path) = path else {
-        let mut stdout = std::io::stdout().lock();
-        return match stdout
-            .write_all(text.as_bytes())
-            .and_then(|()| stdout.flush())
-        {
-            Err(err) if err.kind() == std::io::ErrorKind::BrokenPipe => Ok(()),
-            other => other.map_err(|source| Error::Write {
-                path: PathBuf::from("standard output"),
-                source,
-            }),
-        };
-    };
-    let fail = |source| Error::Write {
-        path: path.to_path_buf(),
-        source,
-    };
-    let folder = match path.parent() {
-        Some(parent) if !parent.as_os_str().is_empty() => parent.to_path_buf(),
-        _ => PathBuf::from("."),
-    };
-    let name = path
-        .file_name()
-        .map(|name| name.to_string_lossy().into_owned())
-        .unwrap_or_else(|| "plan".to_string());
-    let temporary = folder.join(format!(".{name}.{}.partial", std::process::id()));
-    let written = std::fs::File::create(&temporary).and_then(|mut file| {
-        file.write_all(text.as_bytes())?;
-        file.sync_all()
-    });
-    if let Err(source) = written.and_then(|()| std::fs::rename(&temporary, path)) {
-        let _ = std::fs::remove_file(&temporary);
-        return Err(fail(source));
+    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
+    match &args.output {
+        Some(path) => output::write_atomically(path, text.as_bytes()),
+        None => output::write_stdout(text.as_bytes()),
     }
-    Ok(())
 }
