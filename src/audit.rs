@@ -26,9 +26,10 @@ use serde::Serialize;
 
 use crate::error::{Error, Result};
 use crate::feel::{self, Feel, FeelOptions};
-use crate::instrument::{CourseInput, Instrument};
+use crate::instrument::{CourseInput, CourseString, Instrument};
 use crate::kind::StringKinds;
 use crate::material::Materials;
+use crate::physics;
 use crate::pitch::{nearest_note_name, PitchSpec};
 use crate::select::{self, Checks, StressLimits, Warnings};
 use crate::set::{ResolvedString, SetString, StringSet};
@@ -291,13 +292,23 @@ pub(crate) fn cautions_for(warnings: &[Warning]) -> Vec<String> {
     }
 }
 
+/// Where the strings are now, for measuring tension changes: an instrument (often the same one)
+/// in a tuning. Courses are matched by number.
+#[derive(Debug, Clone, Copy)]
+pub struct Reference<'a> {
+    /// The instrument as strung now.
+    pub instrument: &'a Instrument,
+    /// The tuning it is in now.
+    pub tuning: &'a Tuning,
+}
+
 /// Audits `set` on `instrument` in `tuning`; tension changes are measured from `reference`
-/// (e.g. the tuning the strings were bought for) when given.
+/// (where the strings are now) when given.
 pub fn audit(
     instrument: &Instrument,
     set: &StringSet,
     tuning: &Tuning,
-    reference: Option<&Tuning>,
+    reference: Option<Reference<'_>>,
     options: &AuditOptions,
 ) -> Result<Audit> {
     check_no_extra_courses(set, instrument)?;
@@ -320,13 +331,22 @@ pub fn audit(
                 .help("add the course to the set, numbered as in the instrument")
             })?;
         let pitch = course_pitch(instrument, &course, tuning)?;
-        let reference_pitch = reference
-            .map(|r| course_pitch(instrument, &course, r))
-            .transpose()?;
+        let mut now = None;
+        if let Some(reference) = reference {
+            let found = (0..reference.instrument.courses.len())
+                .find(|&i| reference.instrument.course_number(i) == course.number)
+                .and_then(|i| reference.instrument.course_input(i, None));
+            if let Some(old) = found {
+                if old.strings.len() == course.strings.len() {
+                    let old_pitch = course_pitch(reference.instrument, &old, reference.tuning)?;
+                    now = Some((old_pitch, old.length_m, old.strings));
+                }
+            }
+        }
         courses.push(audit_course(
             &course,
             &pitch,
-            reference_pitch.as_ref(),
+            now.as_ref().map(|(p, l, s)| (p, *l, *s)),
             &strings,
             limits,
             options,
@@ -356,7 +376,7 @@ pub fn audit(
         instrument: instrument.name.clone(),
         set: set.name.clone(),
         tuning: tuning.name().to_string(),
-        reference_tuning: reference.map(|r| r.name().to_string()),
+        reference_tuning: reference.map(|r| r.tuning.name().to_string()),
         courses_ok: courses.iter().filter(|c| c.verdict != Verdict::No).count(),
         cautions: cautions_for(&warnings),
         courses,
@@ -370,7 +390,7 @@ pub fn audit(
 fn audit_course(
     course: &CourseInput<'_>,
     pitch: &CoursePitch,
-    reference: Option<&CoursePitch>,
+    reference: Option<(&CoursePitch, f64, &[CourseString])>,
     strings: &[(SetString, ResolvedString<'_>)],
     limits: StressLimits,
     options: &AuditOptions,
@@ -395,14 +415,12 @@ fn audit_course(
         let pitch_hz = pitch.hz * layout.interval.ratio();
         let evaluation =
             select::evaluate(&resolved.construction, pitch_hz, course.length_m, &checks);
-        let reference_tension_n = reference.map(|r| {
-            select::evaluate(
-                &resolved.construction,
-                r.hz * layout.interval.ratio(),
-                course.length_m,
-                &checks,
+        let reference_tension_n = reference.map(|(old_pitch, old_length, old_strings)| {
+            physics::tension(
+                evaluation.unit_mass,
+                old_length,
+                old_pitch.hz * old_strings[string_index].interval.ratio(),
             )
-            .tension
         });
         let change = reference_tension_n.map(|before| evaluation.tension / before - 1.0);
         let flags = evaluation.warnings;

@@ -26,9 +26,9 @@
 //! following a smooth curve. Our own threshold, chosen so that ordinary gauge steps pass: one step
 //! of a plain-steel inch catalog changes μ by about 10 %, so v by about 5 %; 15 % in v is roughly
 //! three such steps in one course, or a change of construction (plain to wound) without
-//! re-gauging. A course whose length moves the opposite way from its pitch (a lower course
-//! shorter than its higher neighbour) is flagged as a fold-back, which a straight or gently
-//! curved bridge cannot follow.
+//! re-gauging. A course whose length moves the opposite way from its pitch by more than 1 %
+//! ([`FOLD_BACK_TOLERANCE`]; a lower course shorter than its higher neighbour) is flagged as a
+//! fold-back, which a straight or gently curved bridge cannot follow.
 
 use std::path::Path;
 use std::str::FromStr;
@@ -53,6 +53,10 @@ use crate::yaml::{self, PathStep};
 /// Default largest change of the wave speed √(T/μ) between neighbouring courses: 15 % (see the
 /// module documentation).
 pub const DEFAULT_MAX_STEP: f64 = 0.15;
+
+/// A length moving against the pitch by at most this fraction (1 %) is not called a fold-back:
+/// a bridge pin can sit a few millimetres off a smooth line.
+pub const FOLD_BACK_TOLERANCE: f64 = 0.01;
 
 /// The tuning used when the layout names none.
 pub const DEFAULT_TUNING: &str = crate::solve::DEFAULT_TUNING;
@@ -470,7 +474,9 @@ pub fn solve_layout(
             }
             let pitch_direction = resolved.hz - previous.pitch_hz;
             let length_direction = length_m - previous.length_m;
-            if pitch_direction * length_direction > 0.0 {
+            if pitch_direction * length_direction > 0.0
+                && (length_m / previous.length_m - 1.0).abs() > FOLD_BACK_TOLERANCE
+            {
                 let change = (length_m / previous.length_m - 1.0) * 100.0;
                 jumps.push(Jump {
                     kind: JumpKind::FoldBack,

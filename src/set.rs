@@ -514,7 +514,10 @@ pub fn length_text(metres: f64) -> String {
     let inches = metres / METRES_PER_INCH;
     let half_thousandths = inches * 2000.0;
     if (half_thousandths - half_thousandths.round()).abs() < 1e-6 && inches < 1.0 {
-        format!("{}in", trimmed(half_thousandths.round() / 2000.0, 4))
+        // The trade writes whole thousandths with three decimals (0.020 in), halves with four.
+        let steps = half_thousandths.round();
+        let decimals = if steps % 2.0 == 0.0 { 3 } else { 4 };
+        format!("{:.*}in", decimals, steps / 2000.0)
     } else {
         format!("{}mm", trimmed(metres * 1000.0, 6))
     }
@@ -710,7 +713,7 @@ mod tests {
 
     #[test]
     fn length_text_uses_the_trade_units() {
-        assert_eq!(length_text(0.010 * METRES_PER_INCH), "0.01in");
+        assert_eq!(length_text(0.010 * METRES_PER_INCH), "0.010in");
         assert_eq!(length_text(0.0115 * METRES_PER_INCH), "0.0115in");
         assert_eq!(length_text(0.00084), "0.84mm");
         assert_eq!(length_text(0.648), "648mm");
