@@ -25,7 +25,9 @@
 //! the whole string between its two anchors, the vibrating length plus the afterlengths beyond
 //! the nut and the bridge (defaults 80 mm and 40 mm, [`physics::DEFAULT_NUT_AFTERLENGTH`] and
 //! [`physics::DEFAULT_BRIDGE_AFTERLENGTH`]: a typical guitar headstock and bridge; set them for
-//! your instrument). Longer afterlengths make a string feel slinkier. Friction at the nut and
+//! your instrument). Longer afterlengths spread the added tension over more string: the string
+//! gives more under the finger, and the same rise takes a longer travel and a bigger push.
+//! Friction at the nut and
 //! saddle, which makes real strings stiffer to bend, is not modelled; E·A is the load-bearing
 //! section's (the core of a wound string).
 
