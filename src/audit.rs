@@ -261,6 +261,18 @@ pub(crate) fn set_strings<'k>(
     Ok(Some(out))
 }
 
+/// The error for an instrument course the set does not string.
+pub(crate) fn missing_course(set: &StringSet, instrument: &Instrument, number: u32) -> Error {
+    set.point(
+        Error::input(format!(
+            "the set has no strings for course {number}, which the instrument `{}` lists",
+            instrument.name
+        ))
+        .help("add the course to the set, numbered as in the instrument"),
+        &[PathStep::Key("courses")],
+    )
+}
+
 /// Refuses set courses the instrument does not have.
 pub(crate) fn check_no_extra_courses(set: &StringSet, instrument: &Instrument) -> Result<()> {
     for (index, course) in set.courses.iter().enumerate() {
@@ -320,16 +332,8 @@ pub fn audit(
         let course = instrument
             .course_input(index, None)
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
-        let strings =
-            set_strings(set, instrument, &course, kinds, materials)?.ok_or_else(|| {
-                Error::input(format!(
-                    "the set has no strings for course {}, which the instrument `{}` lists",
-                    course.number, instrument.name
-                ))
-                .in_origin(set.origin().to_string())
-                .field("courses")
-                .help("add the course to the set, numbered as in the instrument")
-            })?;
+        let strings = set_strings(set, instrument, &course, kinds, materials)?
+            .ok_or_else(|| missing_course(set, instrument, course.number))?;
         let pitch = course_pitch(instrument, &course, tuning)?;
         let mut now = None;
         if let Some(reference) = reference {

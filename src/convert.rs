@@ -36,7 +36,8 @@
 use serde::Serialize;
 
 use crate::audit::{
-    cautions_for, check_no_extra_courses, course_pitch, set_strings, stress_limits, CoursePitch,
+    cautions_for, check_no_extra_courses, course_pitch, missing_course, set_strings, stress_limits,
+    CoursePitch,
 };
 use crate::construction::Construction;
 use crate::error::{Error, Result};
@@ -409,15 +410,8 @@ fn installed<'k>(
     kinds: &'k StringKinds,
     materials: &'k Materials,
 ) -> Result<Installed<'k>> {
-    let strings = set_strings(set, instrument, course, kinds, materials)?.ok_or_else(|| {
-        Error::input(format!(
-            "the set has no strings for course {}, which the instrument `{}` lists",
-            course.number, instrument.name
-        ))
-        .in_origin(set.origin().to_string())
-        .field("courses")
-        .help("add the course to the set, numbered as in the instrument")
-    })?;
+    let strings = set_strings(set, instrument, course, kinds, materials)?
+        .ok_or_else(|| missing_course(set, instrument, course.number))?;
     Ok(strings
         .into_iter()
         .map(|(written, resolved)| (written, resolved.construction, resolved.kind))
