@@ -10,11 +10,21 @@ fn taut() -> Command {
 
 fn audit(extra: &[&str]) -> Value {
     let output = taut()
-        .args(["audit", "--set", "examples/steel-guitar-set.yaml", "--format", "json"])
+        .args([
+            "audit",
+            "--set",
+            "examples/steel-guitar-set.yaml",
+            "--format",
+            "json",
+        ])
         .args(extra)
         .output()
         .unwrap();
-    assert!(output.status.success(), "{}", String::from_utf8_lossy(&output.stderr));
+    assert!(
+        output.status.success(),
+        "{}",
+        String::from_utf8_lossy(&output.stderr)
+    );
     serde_json::from_slice(&output.stdout).unwrap()
 }
 
@@ -64,13 +74,21 @@ fn retune_to_a_22_edo_mode_answers_per_course_with_reasons() {
     let v = verdicts(&report);
     // Top string up a minor third: too much stress and tension.
     assert_eq!(v[0], "no");
-    assert!(report["courses"][0]["reason"].as_str().unwrap().contains("breaking strength"));
+    assert!(report["courses"][0]["reason"]
+        .as_str()
+        .unwrap()
+        .contains("breaking strength"));
     // Bottom string down a major third: tension falls about 37 % (f² law): too slack.
     assert_eq!(v[5], "no");
-    let change = report["courses"][5]["strings"][0]["tension_change_pct"].as_f64().unwrap();
+    let change = report["courses"][5]["strings"][0]["tension_change_pct"]
+        .as_f64()
+        .unwrap();
     let expected = ((64.38_f64 / 82.41).powi(2) - 1.0) * 100.0;
     assert!((change - expected).abs() < 0.5, "{change} vs {expected}");
-    assert!(report["courses"][5]["reason"].as_str().unwrap().contains("slack"));
+    assert!(report["courses"][5]["reason"]
+        .as_str()
+        .unwrap()
+        .contains("slack"));
     // The middle strings barely move.
     assert_eq!(v[3], "yes");
     assert_eq!(v[4], "yes");
@@ -96,15 +114,27 @@ fn danger_fires_with_the_safety_cautions_and_not_at_pitch() {
         .stdout(predicate::str::contains("stress_danger"))
         .stdout(predicate::str::contains("eye protection"))
         .stdout(predicate::str::contains("maker's load rating"));
-    let calm = audit(&["examples/steel-guitar-12edo.yaml", "--tuning", "12edo@A4=392"]);
+    let calm = audit(&[
+        "examples/steel-guitar-12edo.yaml",
+        "--tuning",
+        "12edo@A4=392",
+    ]);
     assert!(!warning_kinds(&calm).contains(&"stress_danger".to_string()));
 }
 
 #[test]
 fn window_and_change_limits_fire_and_do_not_fire() {
     // Two semitones down: −21 % tension, inside ±30 % and inside the 60–140 N window.
-    let down = audit(&["examples/steel-guitar-12edo.yaml", "--tuning", "12edo@A4=392"]);
-    assert!(verdicts(&down).iter().all(|v| v != "no"), "{:?}", verdicts(&down));
+    let down = audit(&[
+        "examples/steel-guitar-12edo.yaml",
+        "--tuning",
+        "12edo@A4=392",
+    ]);
+    assert!(
+        verdicts(&down).iter().all(|v| v != "no"),
+        "{:?}",
+        verdicts(&down)
+    );
     // With a ±15 % limit the same retune is refused for feel.
     let strict = audit(&[
         "examples/steel-guitar-12edo.yaml",
@@ -115,14 +145,24 @@ fn window_and_change_limits_fire_and_do_not_fire() {
     ]);
     assert!(verdicts(&strict).iter().all(|v| v == "no"));
     // Six semitones down: below the 60 N window minimum somewhere.
-    let slack = audit(&["examples/steel-guitar-12edo.yaml", "--tuning", "12edo@A4=311.13"]);
+    let slack = audit(&[
+        "examples/steel-guitar-12edo.yaml",
+        "--tuning",
+        "12edo@A4=311.13",
+    ]);
     assert!(warning_kinds(&slack).contains(&"tension_below_window".to_string()));
     assert!(!warning_kinds(&down).contains(&"tension_below_window".to_string()));
 }
 
 #[test]
 fn stiffness_and_feel_are_reported_per_string() {
-    let report = audit(&["examples/steel-guitar-12edo.yaml", "--bend", "50", "--push", "2N"]);
+    let report = audit(&[
+        "examples/steel-guitar-12edo.yaml",
+        "--bend",
+        "50",
+        "--push",
+        "2N",
+    ]);
     let feel = &report["courses"][0]["strings"][0]["feel"];
     assert!(feel["inharmonicity_b"].as_f64().unwrap() > 0.0);
     assert!(feel["partial_8_cents"].as_f64().unwrap() > feel["partial_2_cents"].as_f64().unwrap());
@@ -141,7 +181,13 @@ fn a_measured_string_without_material_gets_yes_with_care() {
     )
     .unwrap();
     let output = taut()
-        .args(["audit", "examples/steel-guitar-12edo.yaml", "--format", "json", "--set"])
+        .args([
+            "audit",
+            "examples/steel-guitar-12edo.yaml",
+            "--format",
+            "json",
+            "--set",
+        ])
         .arg(&path)
         .output()
         .unwrap();
@@ -149,7 +195,10 @@ fn a_measured_string_without_material_gets_yes_with_care() {
     let report: Value = serde_json::from_slice(&output.stdout).unwrap();
     let first = &report["courses"][0];
     assert_eq!(first["verdict"], "yes_with_care");
-    assert!(first["reason"].as_str().unwrap().contains("unknown breaking strength"));
+    assert!(first["reason"]
+        .as_str()
+        .unwrap()
+        .contains("unknown breaking strength"));
     // μ = m/l = 0.60 g/m (OpenStax University Physics Vol. 1 eq. 16.7).
     let mu = first["strings"][0]["unit_mass_kg_per_m"].as_f64().unwrap();
     assert!((mu - 0.00060).abs() < 1e-15);
@@ -160,18 +209,34 @@ fn plan_save_then_audit_is_one_flow() {
     let dir = tempfile::tempdir().unwrap();
     let set = dir.path().join("planned.yaml");
     let plan = taut()
-        .args(["plan", "examples/steel-guitar-12edo.yaml", "--format", "json", "--save-set"])
+        .args([
+            "plan",
+            "examples/steel-guitar-12edo.yaml",
+            "--format",
+            "json",
+            "--save-set",
+        ])
         .arg(&set)
         .output()
         .unwrap();
     assert!(plan.status.success());
     let plan: Value = serde_json::from_slice(&plan.stdout).unwrap();
     let output = taut()
-        .args(["audit", "examples/steel-guitar-12edo.yaml", "--format", "json", "--set"])
+        .args([
+            "audit",
+            "examples/steel-guitar-12edo.yaml",
+            "--format",
+            "json",
+            "--set",
+        ])
         .arg(&set)
         .output()
         .unwrap();
-    assert!(output.status.success(), "{}", String::from_utf8_lossy(&output.stderr));
+    assert!(
+        output.status.success(),
+        "{}",
+        String::from_utf8_lossy(&output.stderr)
+    );
     let audit: Value = serde_json::from_slice(&output.stdout).unwrap();
     for (planned, audited) in plan["courses"]
         .as_array()
@@ -184,5 +249,10 @@ fn plan_save_then_audit_is_one_flow() {
         assert!((a / b - 1.0).abs() < 1e-6, "{a} vs {b}");
     }
     // The plan carries the same feel figures.
-    assert!(plan["courses"][0]["strings"][0]["feel"]["inharmonicity_b"].as_f64().unwrap() > 0.0);
+    assert!(
+        plan["courses"][0]["strings"][0]["feel"]["inharmonicity_b"]
+            .as_f64()
+            .unwrap()
+            > 0.0
+    );
 }
