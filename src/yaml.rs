@@ -154,6 +154,13 @@ fn unknown_field_hint(message: &str) -> Option<String> {
     }
 }
 
+/// Writes a value as one YAML document (for reports such as `taut plan --format yaml`), so that
+/// writing, like reading, goes through this module alone.
+pub fn to_text<T: serde::Serialize>(value: &T) -> Result<String> {
+    serde_yaml::to_string(value)
+        .map_err(|err| Error::input(format!("cannot write the report as YAML: {err}")))
+}
+
 /// One step of a field path: a map key or a sequence index.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub enum PathStep<'a> {

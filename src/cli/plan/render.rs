@@ -177,8 +177,7 @@ pub fn json(plan: &Plan) -> Result<String> {
 
 /// The YAML document: the same fields as JSON.
 pub fn yaml(plan: &Plan) -> Result<String> {
-    serde_yaml::to_string(plan)
-        .map_err(|err| Error::input(format!("cannot render the plan as YAML: {err}")))
+    taut::yaml::to_text(plan)
 }
 
 /// One CSV row per string.
