@@ -330,6 +330,12 @@ impl CourseContext<'_> {
                 pitch_hz,
             );
             let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, &request);
+            let feel = crate::feel::feel(
+                &kind.construction(chosen.diameter),
+                chosen.tension,
+                course.length_m,
+                &crate::feel::FeelOptions::default(),
+            );
             strings.push(StringPlan {
                 interval: string.interval.written().to_string(),
                 pitch_hz,
@@ -346,6 +352,7 @@ impl CourseContext<'_> {
                         .map(choice_of)
                         .collect(),
                 },
+                feel: Some(feel),
             });
         }
         Ok(CoursePlan {

@@ -84,6 +84,9 @@ pub struct PlanArgs {
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<PathBuf>,
+    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
+    #[arg(long, value_name = "FILE")]
+    pub save_set: Option<PathBuf>,
 }
 
 /// Runs `taut plan`.
@@ -105,6 +108,10 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             stock_files: args.stock.clone(),
         },
     )?;
+    if let Some(path) = &args.save_set {
+        let set = taut::set::StringSet::from_plan(&plan).to_yaml();
+        output::write_atomically(path, set.as_bytes())?;
+    }
     let units = DisplayUnits {
         force: match args.force_unit {
             ForceChoice::N => ForceUnit::N,
