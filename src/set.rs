@@ -448,7 +448,7 @@ impl SetString {
                     ) => WoundRecipe {
                         core_material,
                         core_shape: *core_shape,
-                        core_ratio: core / diameter,
+                        core_ratio: crate::construction::CoreRatio::Fixed(core / diameter),
                         inner,
                         outer: outer.as_ref().map(|(m, share)| (m, *share)),
                     }
