@@ -141,6 +141,8 @@ pub struct ConvertCourse {
     pub pitch_label: String,
     /// Nearest 12-tone note name of the pitch after.
     pub note_name: String,
+    /// Cents from that note to the pitch after.
+    pub note_offset_cents: f64,
     /// Frequency before, Hz.
     pub pitch_before_hz: Option<f64>,
     /// Frequency after, Hz.
@@ -608,6 +610,7 @@ fn convert_course(
         pitch_after: course.pitch.to_string(),
         pitch_label: placed.pitch.label.clone(),
         note_name: placed.pitch.note_name.clone(),
+        note_offset_cents: placed.pitch.note_offset_cents,
         pitch_before_hz: before.map(|b| b.pitch.hz),
         pitch_after_hz: placed.pitch.hz,
         length_before_m: before.map(|b| b.length_m),

@@ -145,6 +145,8 @@ pub struct LayoutCourse {
     pub pitch_label: String,
     /// Nearest 12-tone note name.
     pub note_name: String,
+    /// Cents from that note to the pitch.
+    pub note_offset_cents: f64,
     /// Frequency, Hz.
     pub pitch_hz: f64,
     /// The string (kind id, or measured).
@@ -494,13 +496,14 @@ pub fn solve_layout(
                 });
             }
         }
-        let (note_name, _) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
+        let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
         let diameter = course.string.diameter();
         courses.push(LayoutCourse {
             course: course.course,
             pitch: course.pitch.clone(),
             pitch_label: resolved.label,
             note_name,
+            note_offset_cents,
             pitch_hz: resolved.hz,
             string: course.string.label(),
             diameter_mm: diameter.map(|d| d * 1000.0),

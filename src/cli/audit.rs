@@ -3,7 +3,7 @@
 use std::path::PathBuf;
 
 use clap::Args;
-use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
+use comfy_table::Cell;
 
 use taut::audit::{self, Audit, AuditOptions, Verdict, DEFAULT_MAX_CHANGE};
 use taut::error::{Error, Result};
@@ -13,9 +13,9 @@ use taut::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
 use taut::set::StringSet;
 use taut::tuning;
 use taut::units::{Force, Length};
-use taut::warning::{Severity, Warning};
 
 use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
 #[derive(Debug, Clone, Args)]
@@ -160,62 +160,6 @@ pub fn run(args: AuditArgs) -> Result<()> {
     output::emit(&report, &args.output)
 }
 
-/// A cell aligned right.
-pub fn right(text: String) -> Cell {
-    Cell::new(text).set_alignment(CellAlignment::Right)
-}
-
-/// A fresh table in the project's style.
-pub fn new_table(header: Vec<&str>) -> Table {
-    let mut table = Table::new();
-    table
-        .load_preset(presets::UTF8_BORDERS_ONLY)
-        .set_content_arrangement(ContentArrangement::Disabled)
-        .set_header(header);
-    table
-}
-
-/// Optional figures as text, `-` when unknown.
-pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
-    value.map_or_else(|| "-".to_string(), render)
-}
-
-/// The warnings list and, when given, the safety cautions, as table footer text.
-pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[String]) -> String {
-    let mut out = String::new();
-    if warnings.is_empty() {
-        out.push_str("No warnings.\n");
-    } else {
-        out.push_str(&format!("\nWarnings ({}):\n", warnings.len()));
-        for warning in warnings {
-            let flag = match warning.severity {
-                Severity::Danger => "DANGER",
-                Severity::Caution => "caution",
-                Severity::Note => "note",
-            };
-            out.push_str(&format!(
-                "  {flag:<7} {}: {}\n",
-                warning.kind.name(),
-                warning.message
-            ));
-        }
-    }
-    if !cautions.is_empty() {
-        out.push_str("\nBefore you string this up:\n");
-        for caution in cautions {
-            out.push_str(&format!("  - {caution}\n"));
-        }
-    }
-    out
-}
-
-/// The footnote explaining the feel columns.
-pub fn feel_legend(bend_cents: f64) -> String {
-    format!(
-        "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental. Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise.\n"
-    )
-}
-
 impl Render for Audit {
     fn table(&self) -> String {
         let mut table = new_table(vec![
@@ -243,7 +187,11 @@ impl Render for Audit {
                         String::new()
                     }),
                     Cell::new(if first {
-                        format!("{} ({})", course.pitch_label, course.note_name)
+                        pitch_with_note(
+                            &course.pitch_label,
+                            &course.note_name,
+                            course.note_offset_cents,
+                        )
                     } else {
                         format!("  {}", string.interval)
                     }),
@@ -261,11 +209,11 @@ impl Render for Audit {
             }
         }
         let mut out = format!(
-            "{} strung with {} in {}",
+            "{} — set: {} — tuning {}",
             self.instrument, self.set, self.tuning
         );
         if let Some(reference) = &self.reference_tuning {
-            out.push_str(&format!(" (changes from {reference})"));
+            out.push_str(&format!(" (strings now in {reference})"));
         }
         out.push_str(&format!("\n{table}\n"));
         out.push_str(&format!(

@@ -14,8 +14,9 @@ use taut::set::StringSet;
 use taut::tuning;
 use taut::units::Length;
 
-use super::audit::{feel_legend, maybe, new_table, right, warnings_and_cautions, FeelArgs};
+use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Arguments of `taut convert`.
 #[derive(Debug, Args)]
@@ -176,9 +177,20 @@ impl Render for Conversion {
                     Cell::new(if first {
                         match &course.pitch_before {
                             Some(old) if *old != course.pitch_after => {
-                                format!("{old} → {} ({})", course.pitch_label, course.note_name)
+                                format!(
+                                    "{old} → {}",
+                                    pitch_with_note(
+                                        &course.pitch_label,
+                                        &course.note_name,
+                                        course.note_offset_cents
+                                    )
+                                )
                             }
-                            _ => format!("{} ({})", course.pitch_label, course.note_name),
+                            _ => pitch_with_note(
+                                &course.pitch_label,
+                                &course.note_name,
+                                course.note_offset_cents,
+                            ),
                         }
                     } else {
                         format!("  {}", string.interval)
@@ -208,7 +220,7 @@ impl Render for Conversion {
             }
         }
         let mut out = format!(
-            "{} in {} → {} in {} (from the set {})\n{table}\n",
+            "{} ({}) → {} ({}) — set now: {}\n{table}\n",
             self.instrument_before,
             self.tuning_before,
             self.instrument_after,

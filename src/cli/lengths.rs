@@ -10,8 +10,9 @@ use taut::feel;
 use taut::instrument::{Percent, TensionSpec};
 use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
 
-use super::audit::{feel_legend, maybe, new_table, right, warnings_and_cautions, FeelArgs};
+use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Arguments of `taut lengths`.
 #[derive(Debug, Args)]
@@ -113,7 +114,11 @@ impl Render for Layout {
             let jumped = self.jumps.iter().any(|j| j.to_course == course.course);
             table.add_row(vec![
                 right(course.course.to_string()),
-                Cell::new(format!("{} ({})", course.pitch_label, course.note_name)),
+                Cell::new(pitch_with_note(
+                    &course.pitch_label,
+                    &course.note_name,
+                    course.note_offset_cents,
+                )),
                 right(format!("{:.2}", course.pitch_hz)),
                 Cell::new(&course.string),
                 right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
@@ -134,7 +139,7 @@ impl Render for Layout {
                 right(bend),
             ]);
         }
-        let mut out = format!("{} in {}\n{table}\n", self.name, self.tuning);
+        let mut out = format!("{} — tuning {}\n{table}\n", self.name, self.tuning);
         out.push_str(&format!(
             "Total tension: {:.1} N over {} course(s). Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a jump).\n",
             self.total_tension_n,

@@ -6,6 +6,7 @@ mod convert;
 mod lengths;
 mod output;
 mod plan;
+mod text;
 mod tuning;
 
 use std::process::ExitCode;
