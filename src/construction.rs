@@ -197,9 +197,10 @@ impl<'m> Construction<'m> {
 }
 
 /// Default core diameter as a fraction of the outer diameter for a hexagonal steel core with one
-/// wrap layer (guitar and electric-bass wound strings): 0.40. PRACTICE, from memory: common
-/// constructions run about 0.39 for a 0.046 in string (0.018 in core) up to 0.5 for thin wound.
-pub const HEX_CORE_RATIO: f64 = 0.40;
+/// wrap layer (guitar and electric-bass wound strings) from 0.046 in outer upwards: 0.39.
+/// PRACTICE, from memory: common constructions run about 0.39 for a 0.046 in string (0.018 in
+/// core) up to 0.5 for thin wound; see [`CoreRatio::HexTapered`].
+pub const HEX_CORE_RATIO: f64 = 0.39;
 /// Default core fraction for a round steel core with one wrap layer (harp and piano style): 0.45.
 /// PRACTICE, from memory.
 pub const ROUND_CORE_RATIO: f64 = 0.45;
@@ -213,17 +214,52 @@ pub const MULTIFILAMENT_CORE_RATIO: f64 = 0.65;
 /// PRACTICE assumption.
 pub const DEFAULT_INNER_SHARE: f64 = 0.5;
 
+/// Core-to-outer diameter ratio of the hexagonal-core default at its thin end (0.020 in and
+/// below). PRACTICE, from memory: thin wound strings have relatively thick cores.
+pub const HEX_CORE_RATIO_THIN: f64 = 0.50;
+/// Outer diameter (m) up to which [`HEX_CORE_RATIO_THIN`] applies: 0.020 in.
+pub const HEX_CORE_THIN_OUTER: f64 = 0.020 * 0.0254;
+/// Outer diameter (m) from which [`HEX_CORE_RATIO`] applies: 0.046 in.
+pub const HEX_CORE_THICK_OUTER: f64 = 0.046 * 0.0254;
+
+/// A wound kind's core diameter as a fraction of its outer diameter.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum CoreRatio {
+    /// The same fraction at every gauge.
+    Fixed(f64),
+    /// The hexagonal-core single-wrap default: [`HEX_CORE_RATIO_THIN`] up to 0.020 in outer,
+    /// falling linearly to [`HEX_CORE_RATIO`] at 0.046 in and constant beyond. One fixed ratio
+    /// either starves thin wound strings of core (a 0.024 in D string would read as overstressed)
+    /// or overstates the core of bass strings. PRACTICE, from memory.
+    HexTapered,
+}
+
+impl CoreRatio {
+    /// The ratio at the given outer diameter (m).
+    pub fn at(self, outer_diameter: f64) -> f64 {
+        match self {
+            CoreRatio::Fixed(ratio) => ratio,
+            CoreRatio::HexTapered => {
+                let t = ((outer_diameter - HEX_CORE_THIN_OUTER)
+                    / (HEX_CORE_THICK_OUTER - HEX_CORE_THIN_OUTER))
+                    .clamp(0.0, 1.0);
+                HEX_CORE_RATIO_THIN + t * (HEX_CORE_RATIO - HEX_CORE_RATIO_THIN)
+            }
+        }
+    }
+}
+
 /// The default core-to-outer ratio for a construction family, used when a kind does not give one.
 /// A core material lighter than 2000 kg/m³ is taken to be a polymer bundle.
-pub fn default_core_ratio(shape: CoreShape, wrap_layers: usize, core_density: f64) -> f64 {
+pub fn default_core_ratio(shape: CoreShape, wrap_layers: usize, core_density: f64) -> CoreRatio {
     if core_density < 2000.0 {
-        MULTIFILAMENT_CORE_RATIO
+        CoreRatio::Fixed(MULTIFILAMENT_CORE_RATIO)
     } else if wrap_layers >= 2 {
-        DOUBLE_WRAP_CORE_RATIO
+        CoreRatio::Fixed(DOUBLE_WRAP_CORE_RATIO)
     } else if shape == CoreShape::Round {
-        ROUND_CORE_RATIO
+        CoreRatio::Fixed(ROUND_CORE_RATIO)
     } else {
-        HEX_CORE_RATIO
+        CoreRatio::HexTapered
     }
 }
 
@@ -235,7 +271,7 @@ pub struct WoundRecipe<'m> {
     /// Core section.
     pub core_shape: CoreShape,
     /// Core nominal diameter divided by the outer diameter.
-    pub core_ratio: f64,
+    pub core_ratio: CoreRatio,
     /// Inner wrap material.
     pub inner: &'m Material,
     /// Outer wrap material and the inner layer's share of the wrap thickness, for two layers.
@@ -246,7 +282,7 @@ impl<'m> WoundRecipe<'m> {
     /// The wound string of this recipe with the given outer diameter: core = ratio × outer, and
     /// the remaining radial thickness (outer − core)/2 split between the layers.
     pub fn build(&self, outer_diameter: f64) -> Construction<'m> {
-        let core_diameter = self.core_ratio * outer_diameter;
+        let core_diameter = self.core_ratio.at(outer_diameter) * outer_diameter;
         let wrap_total = (outer_diameter - core_diameter) / 2.0;
         let core = Core {
             material: self.core_material,

@@ -57,7 +57,13 @@ struct RangeSpec {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct CatalogsFile {
+    #[serde(default)]
     catalogs: Vec<CatalogSpec>,
+    // A stock file (`taut plan --stock`) may hold all three sections in one document.
+    #[serde(default, rename = "materials")]
+    _materials: Option<serde::de::IgnoredAny>,
+    #[serde(default, rename = "kinds")]
+    _kinds: Option<serde::de::IgnoredAny>,
 }
 
 /// Gauge catalogs with unique ids.

@@ -9,7 +9,9 @@ use std::sync::OnceLock;
 
 use serde::Deserialize;
 
-use crate::construction::{default_core_ratio, Construction, WoundRecipe, DEFAULT_INNER_SHARE};
+use crate::construction::{
+    default_core_ratio, Construction, CoreRatio, WoundRecipe, DEFAULT_INNER_SHARE,
+};
 use crate::error::{did_you_mean, Error, Result};
 use crate::gauge::GaugeCatalogs;
 use crate::id::Id;
@@ -44,7 +46,7 @@ pub enum KindBuild {
         /// Core section.
         core_shape: CoreShape,
         /// Core nominal diameter / outer diameter.
-        core_ratio: f64,
+        core_ratio: CoreRatio,
         /// Inner (or only) wrap material.
         inner: Material,
         /// Outer wrap material and the inner layer's share of the wrap thickness.
@@ -139,7 +141,13 @@ struct CoreSpec {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct KindsFile {
+    #[serde(default)]
     kinds: Vec<KindSpec>,
+    // A stock file (`taut plan --stock`) may hold all three sections in one document.
+    #[serde(default, rename = "materials")]
+    _materials: Option<serde::de::IgnoredAny>,
+    #[serde(default, rename = "catalogs")]
+    _catalogs: Option<serde::de::IgnoredAny>,
 }
 
 /// String kinds with unique ids.
@@ -284,14 +292,24 @@ pub fn load_kinds_file(
                         ))
                     }
                 };
-                let ratio = wound.core.ratio.unwrap_or_else(|| {
-                    default_core_ratio(wound.core.shape, wound.wraps.len(), core_material.density())
-                });
-                if !(ratio > 0.0 && ratio < 1.0) {
-                    return Err(place(
-                        Error::input(format!("core ratio {ratio} must lie between 0 and 1")),
-                        &["wound", "core", "ratio"],
-                    ));
+                let ratio = wound.core.ratio.map_or_else(
+                    || {
+                        default_core_ratio(
+                            wound.core.shape,
+                            wound.wraps.len(),
+                            core_material.density(),
+                        )
+                    },
+                    CoreRatio::Fixed,
+                );
+                match ratio {
+                    CoreRatio::Fixed(fixed) if !(fixed > 0.0 && fixed < 1.0) => {
+                        return Err(place(
+                            Error::input(format!("core ratio {fixed} must lie between 0 and 1")),
+                            &["wound", "core", "ratio"],
+                        ));
+                    }
+                    _ => {}
                 }
                 let share = wound.inner_share.unwrap_or(DEFAULT_INNER_SHARE);
                 if !(share > 0.0 && share < 1.0) {

@@ -196,7 +196,13 @@ impl Material {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct MaterialsFile {
+    #[serde(default)]
     materials: Vec<Material>,
+    // A stock file (`taut plan --stock`) may hold all three sections in one document.
+    #[serde(default, rename = "catalogs")]
+    _catalogs: Option<serde::de::IgnoredAny>,
+    #[serde(default, rename = "kinds")]
+    _kinds: Option<serde::de::IgnoredAny>,
 }
 
 /// A set of materials with unique ids, looked up by id.

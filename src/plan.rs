@@ -69,6 +69,10 @@ pub struct StringPlan {
     pub choice: StringChoice,
     /// Nearby choices.
     pub alternatives: Alternatives,
+    /// Stiffness and feel of the chosen string (partial offsets, bend force), with the default
+    /// afterlengths of [`crate::feel::FeelOptions`].
+    #[serde(default)]
+    pub feel: Option<crate::feel::Feel>,
 }
 
 /// A catalog string at this string's pitch and length: what it is and how it behaves there.

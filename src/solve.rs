@@ -16,6 +16,7 @@ use crate::kind::{KindBuild, StringKind, StringKinds};
 use crate::pitch::{nearest_note_name, PitchSpec};
 use crate::plan::{Alternatives, CoursePlan, Plan, StringChoice, StringPlan};
 use crate::select::{self, Checks, Choice, Request, StressLimits, Warnings};
+use crate::stock::Stock;
 use crate::tuning::{self, Tuning};
 use crate::units::METRES_PER_INCH;
 use crate::warning::{over_rated_load, StringRef, Warning, WarningKind};
@@ -35,6 +36,8 @@ pub struct SolveOptions {
     pub tuning: Option<String>,
     /// A tension for every course instead of the file's targets, windows and profile.
     pub tension: Option<TensionSpec>,
+    /// Stock files with extra materials, gauge catalogs and string kinds (see [`crate::stock`]).
+    pub stock_files: Vec<std::path::PathBuf>,
 }
 
 /// Loads the tuning the options or the instrument name (or [`DEFAULT_TUNING`]) and solves.
@@ -46,12 +49,16 @@ pub fn plan(instrument: &Instrument, options: &SolveOptions) -> Result<Plan> {
         }
         (None, None) => tuning::load(DEFAULT_TUNING)?,
     };
-    solve(
-        instrument,
-        &tuning,
-        StringKinds::builtin()?,
-        options.tension.as_ref(),
-    )
+    if options.stock_files.is_empty() {
+        return solve(
+            instrument,
+            &tuning,
+            StringKinds::builtin()?,
+            options.tension.as_ref(),
+        );
+    }
+    let stock = Stock::with_files(&options.stock_files)?;
+    solve(instrument, &tuning, stock.kinds(), options.tension.as_ref())
 }
 
 /// Solves every course of `instrument` in `tuning` with strings of `kinds`; `tension` replaces
@@ -323,6 +330,12 @@ impl CourseContext<'_> {
                 pitch_hz,
             );
             let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, &request);
+            let feel = crate::feel::feel(
+                &kind.construction(chosen.diameter),
+                chosen.tension,
+                course.length_m,
+                &crate::feel::FeelOptions::default(),
+            );
             strings.push(StringPlan {
                 interval: string.interval.written().to_string(),
                 pitch_hz,
@@ -339,6 +352,7 @@ impl CourseContext<'_> {
                         .map(choice_of)
                         .collect(),
                 },
+                feel: Some(feel),
             });
         }
         Ok(CoursePlan {

@@ -1,8 +1,12 @@
 //! Command-line layer: argument parsing (clap), rendering and exit codes. Nothing below this
 //! layer sees clap.
 
+mod audit;
+mod convert;
+mod lengths;
 mod output;
 mod plan;
+mod text;
 mod tuning;
 
 use std::process::ExitCode;
@@ -23,6 +27,12 @@ enum Command {
     Plan(plan::PlanArgs),
     /// Work with tunings: list degrees, fit just intervals, compare, resolve pitches.
     Tuning(tuning::TuningArgs),
+    /// Check an installed string set under a tuning, with a yes or no per course.
+    Audit(audit::AuditArgs),
+    /// Plan the strings for a new tuning or scale length from the set installed now.
+    Convert(convert::ConvertArgs),
+    /// Solve vibrating lengths from pitch, string and tension, for builders.
+    Lengths(lengths::LengthsArgs),
 }
 
 /// Runs the command line and returns the process exit code.
@@ -31,6 +41,9 @@ pub fn main() -> ExitCode {
     let result = match cli.command {
         Command::Plan(args) => plan::run(&args),
         Command::Tuning(args) => tuning::run(args),
+        Command::Audit(args) => audit::run(args),
+        Command::Convert(args) => convert::run(args),
+        Command::Lengths(args) => lengths::run(args),
     };
     output::finish(result)
 }

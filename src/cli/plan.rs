@@ -68,6 +68,10 @@ pub struct PlanArgs {
     /// or a window such as `60N..90N`.
     #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
     pub tension: Option<String>,
+    /// A stock file: extra materials, gauge catalogs and string kinds (e.g. the strings on your
+    /// shelf) that the instrument's `kinds` may name. May be given more than once.
+    #[arg(long, value_name = "FILE")]
+    pub stock: Vec<PathBuf>,
     /// Show tensions in newtons and this unit.
     #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
     pub force_unit: ForceChoice,
@@ -80,6 +84,9 @@ pub struct PlanArgs {
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<PathBuf>,
+    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
+    #[arg(long, value_name = "FILE")]
+    pub save_set: Option<PathBuf>,
 }
 
 /// Runs `taut plan`.
@@ -98,8 +105,13 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         &SolveOptions {
             tuning: args.tuning.clone(),
             tension,
+            stock_files: args.stock.clone(),
         },
     )?;
+    if let Some(path) = &args.save_set {
+        let set = taut::set::StringSet::from_plan(&plan).to_yaml();
+        output::write_atomically(path, set.as_bytes())?;
+    }
     let units = DisplayUnits {
         force: match args.force_unit {
             ForceChoice::N => ForceUnit::N,

@@ -1,13 +1,15 @@
 //! Renderers of a [`Plan`]: a terminal table, JSON, CSV and YAML. Each reads the plain model
 //! and nothing else, so all four say the same thing.
 
-use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
+use comfy_table::Cell;
 use serde::Serialize;
 
 use taut::error::{Error, Result};
-use taut::plan::{CoursePlan, Plan, StringPlan};
+use taut::plan::{CoursePlan, Plan};
 use taut::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
 use taut::warning::{Severity, SAFETY_CAUTIONS};
+
+use crate::cli::text::{new_table, pitch_with_note, right, severity_flag, warnings_and_cautions};
 
 /// How quantities are shown in the table.
 #[derive(Debug, Clone, Copy)]
@@ -46,75 +48,49 @@ fn worst_severity(course: &CoursePlan, string_number: usize) -> Option<Severity>
         .max()
 }
 
-fn flag(severity: Option<Severity>) -> &'static str {
-    match severity {
-        Some(Severity::Danger) => "DANGER",
-        Some(Severity::Caution) => "caution",
-        Some(Severity::Note) => "note",
-        None => "",
-    }
-}
-
 /// The terminal table: one row per string, then totals, warnings and (when needed) the safety
 /// cautions.
 pub fn table(plan: &Plan, units: DisplayUnits) -> String {
-    let mut table = Table::new();
-    table
-        .load_preset(presets::UTF8_BORDERS_ONLY)
-        .set_content_arrangement(ContentArrangement::Disabled)
-        .set_header(vec![
-            "Course",
-            "Pitch",
-            "Hz",
-            "Length",
-            "String",
-            "Diameter in",
-            "mm",
-            "μ g/m",
-            "Tension",
-            "Stress",
-            "",
-        ]);
+    let mut table = new_table(vec![
+        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Tension", "Stress", "",
+    ]);
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
             let number = index + 1;
             let first = index == 0;
             let pitch = if first {
-                format!("{} ({})", course.pitch_label, note_text(course))
+                pitch_with_note(
+                    &course.pitch_label,
+                    &course.note_name,
+                    course.note_offset_cents,
+                )
             } else {
                 format!("  {}", string.interval)
             };
             table.add_row(vec![
-                Cell::new(if first {
+                right(if first {
                     course.course.to_string()
                 } else {
                     String::new()
-                })
-                .set_alignment(CellAlignment::Right),
+                }),
                 Cell::new(pitch),
-                Cell::new(format!("{:.2}", string.pitch_hz)).set_alignment(CellAlignment::Right),
-                Cell::new(if first {
+                right(format!("{:.2}", string.pitch_hz)),
+                right(if first {
                     length_text(course.length_m, units.length)
                 } else {
                     String::new()
-                })
-                .set_alignment(CellAlignment::Right),
-                Cell::new(string_text(string)),
-                Cell::new(format!("{:.4}", string.choice.diameter_in))
-                    .set_alignment(CellAlignment::Right),
-                Cell::new(format!("{:.3}", string.choice.diameter_mm))
-                    .set_alignment(CellAlignment::Right),
-                Cell::new(format!("{:.4}", string.choice.unit_mass_kg_per_m * 1000.0))
-                    .set_alignment(CellAlignment::Right),
-                Cell::new(tension_text(string.choice.tension_n, units.force))
-                    .set_alignment(CellAlignment::Right),
-                Cell::new(format!("{:.0}%", string.choice.stress_ratio * 100.0))
-                    .set_alignment(CellAlignment::Right),
-                Cell::new(flag(worst_severity(course, number))),
+                }),
+                Cell::new(&string.choice.kind),
+                right(format!("{:.4}", string.choice.diameter_in)),
+                right(format!("{:.3}", string.choice.diameter_mm)),
+                right(format!("{:.4}", string.choice.unit_mass_kg_per_m * 1000.0)),
+                right(tension_text(string.choice.tension_n, units.force)),
+                right(format!("{:.0}%", string.choice.stress_ratio * 100.0)),
+                Cell::new(worst_severity(course, number).map_or("", severity_flag)),
             ]);
         }
     }
-    let mut out = format!("{} in {}\n{table}\n", plan.instrument, plan.tuning);
+    let mut out = format!("{} — tuning {}\n{table}\n", plan.instrument, plan.tuning);
     out.push_str(&format!(
         "Total tension: {} over {} strings",
         tension_text(plan.total_tension_n, units.force),
@@ -128,41 +104,13 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
         ));
     }
     out.push('\n');
-    if plan.warnings.is_empty() {
-        out.push_str("No warnings.\n");
+    let cautions: &[&str] = if plan.needs_safety_cautions() {
+        &SAFETY_CAUTIONS
     } else {
-        out.push_str(&format!("\nWarnings ({}):\n", plan.warnings.len()));
-        for warning in &plan.warnings {
-            out.push_str(&format!(
-                "  {:<7} {}: {}\n",
-                flag(Some(warning.severity)),
-                warning.kind.name(),
-                warning.message
-            ));
-        }
-    }
-    if plan.needs_safety_cautions() {
-        out.push_str("\nBefore you string this up:\n");
-        for caution in SAFETY_CAUTIONS {
-            out.push_str(&format!("  - {caution}\n"));
-        }
-    }
+        &[]
+    };
+    out.push_str(&warnings_and_cautions(&plan.warnings, cautions));
     out
-}
-
-fn note_text(course: &CoursePlan) -> String {
-    if course.note_offset_cents.abs() < 0.05 {
-        course.note_name.clone()
-    } else {
-        format!("{} {:+.1}c", course.note_name, course.note_offset_cents)
-    }
-}
-
-fn string_text(string: &StringPlan) -> String {
-    format!(
-        "{} {} ({})",
-        string.choice.construction, string.choice.material, string.choice.gauge
-    )
 }
 
 /// The JSON document (pretty-printed, ending in a newline).

@@ -1,0 +1,257 @@
+//! `taut audit`: an installed string set under a tuning, with a yes or no per course.
+
+use std::path::PathBuf;
+
+use clap::Args;
+use comfy_table::Cell;
+
+use taut::audit::{self, Audit, AuditOptions, Verdict, DEFAULT_MAX_CHANGE};
+use taut::error::{Error, Result};
+use taut::feel::{self, FeelOptions, DEFAULT_BEND_CENTS, DEFAULT_PUSH_N};
+use taut::instrument::{Instrument, Percent};
+use taut::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
+use taut::set::StringSet;
+use taut::tuning;
+use taut::units::{Force, Length};
+
+use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+
+/// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
+#[derive(Debug, Clone, Args)]
+pub struct FeelArgs {
+    /// String beyond the nut (or top anchor) that stretches with a bend, e.g. `80mm`.
+    #[arg(long, value_name = "LENGTH")]
+    pub nut_afterlength: Option<String>,
+    /// String beyond the bridge (or bottom anchor) that stretches with a bend, e.g. `40mm`.
+    #[arg(long, value_name = "LENGTH")]
+    pub bridge_afterlength: Option<String>,
+    /// Bend, in cents, for which the sideways force at mid-length is reported.
+    #[arg(long, value_name = "CENTS", default_value_t = DEFAULT_BEND_CENTS)]
+    pub bend: f64,
+    /// Sideways push at mid-length, e.g. `1N`, for which the pitch rise is reported.
+    #[arg(long, value_name = "FORCE")]
+    pub push: Option<String>,
+}
+
+impl FeelArgs {
+    /// The checked feel options (defaults: 80 mm and 40 mm afterlengths, 100 cents, 1 N).
+    pub fn options(&self) -> Result<FeelOptions> {
+        let length = |text: &Option<String>, flag: &str, default: f64| -> Result<f64> {
+            match text {
+                Some(text) => text
+                    .parse::<Length>()
+                    .map(Length::si)
+                    .map_err(|err| err.in_origin(flag.to_string())),
+                None => Ok(default),
+            }
+        };
+        if !(self.bend.is_finite() && self.bend > 0.0 && self.bend <= 1200.0) {
+            return Err(Error::input(format!(
+                "the bend must be above 0 and at most 1200 cents, not {}",
+                self.bend
+            ))
+            .in_origin("--bend"));
+        }
+        Ok(FeelOptions {
+            nut_afterlength: length(
+                &self.nut_afterlength,
+                "--nut-afterlength",
+                DEFAULT_NUT_AFTERLENGTH,
+            )?,
+            bridge_afterlength: length(
+                &self.bridge_afterlength,
+                "--bridge-afterlength",
+                DEFAULT_BRIDGE_AFTERLENGTH,
+            )?,
+            bend_cents: self.bend,
+            push_n: match &self.push {
+                Some(text) => text
+                    .parse::<Force>()
+                    .map(Force::si)
+                    .map_err(|err| err.in_origin("--push"))?,
+                None => DEFAULT_PUSH_N,
+            },
+        })
+    }
+}
+
+/// Arguments of `taut audit`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Check an installed string set under a tuning: tension, stress, feel and a yes or no per course",
+    after_help = "SET is a string-set file (write one with `taut plan … --save-set FILE`).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+)]
+pub struct AuditArgs {
+    /// Instrument definition (a YAML file) or the name of a built-in template.
+    #[arg(value_name = "INSTRUMENT")]
+    pub instrument: String,
+    /// The installed strings: a string-set file.
+    #[arg(long, value_name = "SET")]
+    pub set: PathBuf,
+    /// Tuning to audit instead of the instrument's own.
+    #[arg(long, value_name = "TUNING")]
+    pub tuning: Option<String>,
+    /// Tuning the strings are in now, for the tension changes (default: the own tuning of the
+    /// instrument they are on now, when that differs from what is audited).
+    #[arg(long, value_name = "TUNING")]
+    pub from: Option<String>,
+    /// The instrument as strung now, when its course pitches differ from INSTRUMENT's (e.g. the
+    /// standard tuning before a retune); courses are matched by number.
+    #[arg(long, value_name = "INSTRUMENT")]
+    pub from_instrument: Option<String>,
+    /// Largest tension change from the current tuning before a course gets "no", e.g. `30%`.
+    #[arg(long, value_name = "PERCENT")]
+    pub max_change: Option<String>,
+    #[command(flatten)]
+    pub feel: FeelArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
+}
+
+/// Runs `taut audit`.
+pub fn run(args: AuditArgs) -> Result<()> {
+    let instrument = Instrument::load(&args.instrument)?;
+    let set = StringSet::load(&args.set)?;
+    let own = instrument.tuning.clone();
+    let tuning = match (&args.tuning, &own) {
+        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
+        (None, Some(spec)) => {
+            tuning::load(spec).map_err(|err| err.in_origin(instrument.origin().to_string()))?
+        }
+        (None, None) => tuning::load(taut::solve::DEFAULT_TUNING)?,
+    };
+    let now_instrument = match &args.from_instrument {
+        Some(spec) => {
+            Some(Instrument::load(spec).map_err(|err| err.in_origin("--from-instrument"))?)
+        }
+        None => None,
+    };
+    let now = now_instrument.as_ref().unwrap_or(&instrument);
+    let reference_tuning = match (&args.from, &now_instrument, &args.tuning, &now.tuning) {
+        (Some(spec), _, _, _) => Some(tuning::load(spec).map_err(|err| err.in_origin("--from"))?),
+        (None, Some(_), _, None) => Some(tuning::load(taut::solve::DEFAULT_TUNING)?),
+        (None, Some(_), _, Some(spec)) | (None, None, Some(_), Some(spec)) => {
+            Some(tuning::load(spec).map_err(|err| err.in_origin(now.origin().to_string()))?)
+        }
+        _ => None,
+    };
+    let reference = reference_tuning.as_ref().map(|tuning| audit::Reference {
+        instrument: now,
+        tuning,
+    });
+    let max_change = match &args.max_change {
+        Some(text) => text
+            .parse::<Percent>()
+            .map(Percent::fraction)
+            .map_err(|err| err.in_origin("--max-change"))?,
+        None => DEFAULT_MAX_CHANGE,
+    };
+    let report = audit::audit(
+        &instrument,
+        &set,
+        &tuning,
+        reference,
+        &AuditOptions {
+            max_change,
+            feel: args.feel.options()?,
+        },
+    )?;
+    output::emit(&report, &args.output)
+}
+
+impl Render for Audit {
+    fn table(&self) -> String {
+        let mut table = new_table(vec![
+            "Course",
+            "Pitch",
+            "Hz",
+            "String",
+            "Diameter",
+            "Tension N",
+            "Change",
+            "Stress",
+            "B",
+            "Partials c",
+            "Bend N",
+            "Can tune?",
+        ]);
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                let first = index == 0;
+                let [b, partials, bend] = feel::cells(&string.feel);
+                table.add_row(vec![
+                    right(if first {
+                        course.course.to_string()
+                    } else {
+                        String::new()
+                    }),
+                    Cell::new(if first {
+                        pitch_with_note(
+                            &course.pitch_label,
+                            &course.note_name,
+                            course.note_offset_cents,
+                        )
+                    } else {
+                        format!("  {}", string.interval)
+                    }),
+                    right(format!("{:.2}", string.pitch_hz)),
+                    Cell::new(&string.string),
+                    right(maybe(string.diameter_mm, |d| format!("{d:.3} mm"))),
+                    right(format!("{:.1}", string.tension_n)),
+                    right(maybe(string.tension_change_pct, |c| format!("{c:+.0}%"))),
+                    right(maybe(string.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
+                    right(b),
+                    right(partials),
+                    right(bend),
+                    Cell::new(if first { course.verdict.text() } else { "" }),
+                ]);
+            }
+        }
+        let mut out = format!(
+            "{} — set: {} — tuning {}",
+            self.instrument, self.set, self.tuning
+        );
+        if let Some(reference) = &self.reference_tuning {
+            out.push_str(&format!(" (strings now in {reference})"));
+        }
+        out.push_str(&format!("\n{table}\n"));
+        out.push_str(&format!(
+            "{} of {} courses can take this tuning.\n",
+            self.courses_ok,
+            self.courses.len()
+        ));
+        for course in &self.courses {
+            if course.verdict != Verdict::Yes {
+                out.push_str(&format!(
+                    "  Course {}: {}: {}.\n",
+                    course.course,
+                    course.verdict.text(),
+                    course.reason
+                ));
+            }
+        }
+        out.push_str(&format!("Total tension: {:.1} N", self.total_tension_n));
+        if let Some(before) = self.reference_total_tension_n {
+            out.push_str(&format!(
+                " (was {before:.1} N, {:+.0}%)",
+                (self.total_tension_n / before - 1.0) * 100.0
+            ));
+        }
+        if let Some(rated) = self.rated_load_n {
+            out.push_str(&format!(
+                "; {:.0}% of the rated {rated:.0} N",
+                self.total_tension_n / rated * 100.0
+            ));
+        }
+        out.push('\n');
+        out.push_str(&feel_legend(
+            self.courses
+                .first()
+                .and_then(|c| c.strings.first())
+                .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents),
+        ));
+        out.push_str(&warnings_and_cautions(&self.warnings, &self.cautions));
+        out
+    }
+}

@@ -1,0 +1,279 @@
+//! `taut convert`: from the installed set in one tuning to the set for another tuning, scale
+//! length or instrument layout.
+
+use std::path::PathBuf;
+
+use clap::Args;
+use comfy_table::Cell;
+
+use taut::convert::{self, Conversion, ConvertOptions};
+use taut::error::{Error, Result};
+use taut::feel;
+use taut::instrument::{Instrument, Percent, TensionSpec};
+use taut::set::StringSet;
+use taut::tuning;
+use taut::units::Length;
+
+use super::audit::FeelArgs;
+use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+
+/// Arguments of `taut convert`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Plan the strings for a new tuning or scale length from the set installed now: keep each string's feel, check the nut slots and the total load",
+    after_help = "Strings break and necks move under a changed load: wear eye protection, change one course at a time and bring tension up gradually, respect the maker's load rating, and leave truss-rod and setup work to a qualified person."
+)]
+pub struct ConvertArgs {
+    /// The instrument as it is now (a YAML file or a built-in template).
+    #[arg(value_name = "INSTRUMENT")]
+    pub instrument: String,
+    /// The installed strings: a string-set file.
+    #[arg(long, value_name = "SET")]
+    pub set: PathBuf,
+    /// The tuning the strings are in now (default: the instrument's own).
+    #[arg(long, value_name = "TUNING")]
+    pub from: Option<String>,
+    /// The tuning to convert to (default: the same tuning, e.g. for a new scale length).
+    #[arg(long, value_name = "TUNING")]
+    pub to: Option<String>,
+    /// The instrument after conversion, when courses change (e.g. an added low course);
+    /// courses are matched by number.
+    #[arg(long, value_name = "INSTRUMENT")]
+    pub to_instrument: Option<String>,
+    /// A new vibrating length for every course, e.g. `27in`.
+    #[arg(long, value_name = "LENGTH")]
+    pub scale_length: Option<String>,
+    /// A new tension for every course instead of keeping each string's own: `70N` or
+    /// `60N..90N`.
+    #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
+    pub tension: Option<String>,
+    /// How far from the target tension a string may land, e.g. `10%`.
+    #[arg(long, value_name = "PERCENT")]
+    pub tolerance: Option<String>,
+    /// Nut-slot width to check the new strings against, e.g. `1.4mm` (default: the instrument's
+    /// `max_diameter`, else each old string's width).
+    #[arg(long, value_name = "LENGTH")]
+    pub slot: Option<String>,
+    /// Choose every string afresh, even those that would still do.
+    #[arg(long)]
+    pub reselect_all: bool,
+    /// Also write the new set as a string-set file.
+    #[arg(long, value_name = "FILE")]
+    pub save_set: Option<PathBuf>,
+    #[command(flatten)]
+    pub feel: FeelArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
+}
+
+fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
+    text.as_deref()
+        .map(|t| {
+            t.parse::<Length>()
+                .map(Length::si)
+                .map_err(|err| err.in_origin(flag.to_string()))
+        })
+        .transpose()
+}
+
+/// Runs `taut convert`.
+pub fn run(args: ConvertArgs) -> Result<()> {
+    let before = Instrument::load(&args.instrument)?;
+    let after = match &args.to_instrument {
+        Some(spec) => Instrument::load(spec).map_err(|err| err.in_origin("--to-instrument"))?,
+        None => before.clone(),
+    };
+    let set = StringSet::load(&args.set)?;
+    let tuning_before = match (&args.from, &before.tuning) {
+        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--from"))?,
+        (None, Some(spec)) => {
+            tuning::load(spec).map_err(|err| err.in_origin(before.origin().to_string()))?
+        }
+        (None, None) => tuning::load(taut::solve::DEFAULT_TUNING)?,
+    };
+    let tuning_after = match (&args.to, &args.to_instrument, &after.tuning) {
+        (Some(spec), _, _) => tuning::load(spec).map_err(|err| err.in_origin("--to"))?,
+        (None, Some(_), Some(spec)) => {
+            tuning::load(spec).map_err(|err| err.in_origin(after.origin().to_string()))?
+        }
+        _ => tuning_before.clone(),
+    };
+    let target = args
+        .tension
+        .as_deref()
+        .map(|text| {
+            text.parse::<TensionSpec>()
+                .map_err(|err| err.in_origin("--tension"))
+        })
+        .transpose()?;
+    let tolerance = match &args.tolerance {
+        Some(text) => text
+            .parse::<Percent>()
+            .map(Percent::fraction)
+            .map_err(|err| err.in_origin("--tolerance"))?,
+        None => taut::select::DEFAULT_TOLERANCE,
+    };
+    if tolerance >= 1.0 {
+        return Err(Error::input("the tolerance must be below 100%").in_origin("--tolerance"));
+    }
+    let options = ConvertOptions {
+        tolerance,
+        target,
+        scale_length: positive_length(&args.scale_length, "--scale-length")?,
+        slot_width: positive_length(&args.slot, "--slot")?,
+        reselect_all: args.reselect_all,
+        feel: args.feel.options()?,
+        ..ConvertOptions::default()
+    };
+    let conversion = convert::convert(
+        &before,
+        &set,
+        &tuning_before,
+        &after,
+        &tuning_after,
+        &options,
+    )?;
+    if let Some(path) = &args.save_set {
+        output::write_atomically(path, conversion.new_set().to_yaml().as_bytes())?;
+    }
+    output::emit(&conversion, &args.output)
+}
+
+impl Render for Conversion {
+    fn table(&self) -> String {
+        let mut table = new_table(vec![
+            "Course",
+            "Pitch",
+            "Before",
+            "Tension N",
+            "Stress",
+            "After",
+            "Tension N",
+            "Change",
+            "Stress",
+            "Slot",
+            "B",
+            "Partials c",
+            "Bend N",
+        ]);
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                let first = index == 0;
+                let before = string.before.as_ref();
+                let [b, partials, bend] = feel::cells(&string.feel_after);
+                let after_text = format!(
+                    "{} {}{}",
+                    string.after.string,
+                    string.after.gauge.clone().unwrap_or_default(),
+                    if string.kept { " (kept)" } else { "" }
+                );
+                table.add_row(vec![
+                    right(if first {
+                        course.course.to_string()
+                    } else {
+                        String::new()
+                    }),
+                    Cell::new(if first {
+                        match &course.pitch_before {
+                            Some(old) if *old != course.pitch_after => {
+                                format!(
+                                    "{old} → {}",
+                                    pitch_with_note(
+                                        &course.pitch_label,
+                                        &course.note_name,
+                                        course.note_offset_cents
+                                    )
+                                )
+                            }
+                            _ => pitch_with_note(
+                                &course.pitch_label,
+                                &course.note_name,
+                                course.note_offset_cents,
+                            ),
+                        }
+                    } else {
+                        format!("  {}", string.interval)
+                    }),
+                    Cell::new(before.map_or("(new course)".to_string(), |b| {
+                        format!("{} {}", b.string, b.gauge.clone().unwrap_or_default())
+                    })),
+                    right(maybe(before.map(|b| b.tension_n), |t| format!("{t:.1}"))),
+                    right(maybe(before.and_then(|b| b.stress_ratio), |s| {
+                        format!("{:.0}%", s * 100.0)
+                    })),
+                    Cell::new(after_text),
+                    right(format!("{:.1}", string.after.tension_n)),
+                    right(maybe(string.tension_change_pct, |c| format!("{c:+.1}%"))),
+                    right(maybe(string.after.stress_ratio, |s| {
+                        format!("{:.0}%", s * 100.0)
+                    })),
+                    Cell::new(match &string.slot {
+                        Some(fit) if !fit.fits => format!("+{:.3} mm", fit.wider_by_mm),
+                        Some(_) => "fits".to_string(),
+                        None => "-".to_string(),
+                    }),
+                    right(b),
+                    right(partials),
+                    right(bend),
+                ]);
+            }
+        }
+        let mut out = format!(
+            "{} ({}) → {} ({}) — set now: {}\n{table}\n",
+            self.instrument_before,
+            self.tuning_before,
+            self.instrument_after,
+            self.tuning_after,
+            self.set
+        );
+        if let Some(first) = self.courses.first() {
+            if let Some(before) = first.length_before_m {
+                if (before - first.length_after_m).abs() > 1e-9 {
+                    out.push_str(&format!(
+                        "Scale length: {:.1} mm → {:.1} mm.\n",
+                        before * 1000.0,
+                        first.length_after_m * 1000.0
+                    ));
+                }
+            }
+        }
+        out.push_str(&format!(
+            "{} string(s) replaced, {} kept.\n",
+            self.strings_replaced,
+            self.courses.iter().map(|c| c.strings.len()).sum::<usize>() - self.strings_replaced
+        ));
+        if !self.removed_courses.is_empty() {
+            out.push_str(&format!(
+                "Courses no longer on the instrument: {}.\n",
+                self.removed_courses
+                    .iter()
+                    .map(u32::to_string)
+                    .collect::<Vec<_>>()
+                    .join(", ")
+            ));
+        }
+        out.push_str(&format!(
+            "Total load: {:.1} N → {:.1} N ({:+.1}%)",
+            self.total_before_n, self.total_after_n, self.total_change_pct
+        ));
+        if let Some(rated) = self.rated_load_n {
+            out.push_str(&format!(
+                "; {:.0}% of the rated {rated:.0} N",
+                self.total_after_n / rated * 100.0
+            ));
+        }
+        out.push('\n');
+        if let Some(caution) = &self.load_caution {
+            out.push_str(&format!("caution: {caution}\n"));
+        }
+        out.push_str(&feel_legend(
+            self.courses
+                .first()
+                .and_then(|c| c.strings.first())
+                .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents),
+        ));
+        out.push_str(&warnings_and_cautions(&self.warnings, &self.cautions));
+        out
+    }
+}

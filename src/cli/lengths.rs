@@ -1,0 +1,165 @@
+//! `taut lengths`: the vibrating lengths that give each course its tension, for builders.
+
+use std::path::PathBuf;
+
+use clap::Args;
+use comfy_table::Cell;
+
+use taut::error::{Error, Result};
+use taut::feel;
+use taut::instrument::{Percent, TensionSpec};
+use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
+
+use super::audit::FeelArgs;
+use super::output::{self, OutputArgs, Render};
+use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+
+/// Arguments of `taut lengths`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Solve vibrating lengths from pitch, string and tension: one course, or a whole layout with a smooth tension profile",
+    after_help = "Either give a LAYOUT file, or one course with --pitch, --string and --tension, e.g.\n  taut lengths --pitch A3 --string '{kind: plain-steel, diameter: 0.016in}' --tension 60N\n\nStrings break: wear eye protection, bring tension up gradually and keep within the maker's load rating."
+)]
+pub struct LengthsArgs {
+    /// A layout file: courses with pitch, string and tension.
+    #[arg(value_name = "LAYOUT", required_unless_present = "pitch", conflicts_with_all = ["pitch", "string"])]
+    pub layout: Option<PathBuf>,
+    /// The pitch of a single course, in the tuning's addressing (e.g. `A3`).
+    #[arg(long, value_name = "PITCH", requires_all = ["string", "tension"])]
+    pub pitch: Option<String>,
+    /// The string of a single course, written as in a string-set file, e.g.
+    /// `{kind: plain-steel, diameter: 0.016in}`.
+    #[arg(long, value_name = "STRING", requires = "pitch")]
+    pub string: Option<String>,
+    /// Tension for every course instead of the file's: `60N`, `14lbf`, or a window `50N..70N`.
+    #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
+    pub tension: Option<String>,
+    /// Tuning instead of the layout's own (default 12edo).
+    #[arg(long, value_name = "TUNING")]
+    pub tuning: Option<String>,
+    /// Largest change of √(T/μ) between neighbouring courses before a jump is reported, e.g.
+    /// `15%`.
+    #[arg(long, value_name = "PERCENT")]
+    pub max_step: Option<String>,
+    #[command(flatten)]
+    pub feel: FeelArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
+}
+
+/// Runs `taut lengths`.
+pub fn run(args: LengthsArgs) -> Result<()> {
+    let tension = args
+        .tension
+        .as_deref()
+        .map(|text| {
+            text.parse::<TensionSpec>()
+                .map_err(|err| err.in_origin("--tension"))
+        })
+        .transpose()?;
+    let input = match (&args.layout, &args.pitch, &args.string) {
+        (Some(path), _, _) => LayoutInput::load(path)?,
+        (None, Some(pitch), Some(string)) => {
+            let tension = tension.clone().ok_or_else(|| {
+                Error::input("one course needs its tension").in_origin("--tension")
+            })?;
+            LayoutInput::single(pitch, string, tension)?
+        }
+        _ => {
+            return Err(Error::input(
+                "give a LAYOUT file, or --pitch, --string and --tension for one course",
+            ))
+        }
+    };
+    let max_step = args
+        .max_step
+        .as_deref()
+        .map(|text| {
+            text.parse::<Percent>()
+                .map(Percent::fraction)
+                .map_err(|err| err.in_origin("--max-step"))
+        })
+        .transpose()?;
+    let report = layout::lay_out(
+        &input,
+        &LayoutOptions {
+            tuning: args.tuning.clone(),
+            tension,
+            max_step,
+            feel: args.feel.options()?,
+        },
+    )?;
+    output::emit(&report, &args.output)
+}
+
+impl Render for Layout {
+    fn table(&self) -> String {
+        let mut table = new_table(vec![
+            "Course",
+            "Pitch",
+            "Hz",
+            "String",
+            "Diameter",
+            "Tension N",
+            "Length mm",
+            "Length in",
+            "Step",
+            "Stress",
+            "B",
+            "Partials c",
+            "Bend N",
+        ]);
+        for course in &self.courses {
+            let [b, partials, bend] = feel::cells(&course.feel);
+            let jumped = self.jumps.iter().any(|j| j.to_course == course.course);
+            table.add_row(vec![
+                right(course.course.to_string()),
+                Cell::new(pitch_with_note(
+                    &course.pitch_label,
+                    &course.note_name,
+                    course.note_offset_cents,
+                )),
+                right(format!("{:.2}", course.pitch_hz)),
+                Cell::new(&course.string),
+                right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
+                right(format!("{:.1}", course.tension_n)),
+                right(format!("{:.1}", course.length_m * 1000.0)),
+                right(format!(
+                    "{:.2}",
+                    course.length_m / taut::units::METRES_PER_INCH
+                )),
+                right(format!(
+                    "{}{}",
+                    maybe(course.step_pct, |s| format!("{s:+.1}%")),
+                    if jumped { " !" } else { "" }
+                )),
+                right(maybe(course.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
+                right(b),
+                right(partials),
+                right(bend),
+            ]);
+        }
+        let mut out = format!("{} — tuning {}\n{table}\n", self.name, self.tuning);
+        out.push_str(&format!(
+            "Total tension: {:.1} N over {} course(s). Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a jump).\n",
+            self.total_tension_n,
+            self.courses.len(),
+            self.max_step * 100.0
+        ));
+        if self.jumps.is_empty() {
+            out.push_str("No impractical jumps between neighbouring courses.\n");
+        } else {
+            out.push_str(&format!("\nImpractical jumps ({}):\n", self.jumps.len()));
+            for jump in &self.jumps {
+                out.push_str(&format!("  {}\n", jump.message));
+            }
+        }
+        out.push_str(&feel_legend(
+            self.courses
+                .first()
+                .map_or(feel::DEFAULT_BEND_CENTS, |c| c.feel.bend_cents),
+        ));
+        out.push_str(&warnings_and_cautions(&self.warnings, &self.cautions));
+        out
+    }
+}

@@ -1,0 +1,94 @@
+//! Pieces of terminal output shared by every command: the table style, aligned cells, pitch
+//! labels, the warnings list and the safety cautions.
+
+use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
+
+use taut::warning::{Severity, Warning};
+
+/// A fresh table in the project's style: borders only, columns as wide as their content.
+pub fn new_table(header: Vec<&str>) -> Table {
+    let mut table = Table::new();
+    table
+        .load_preset(presets::UTF8_BORDERS_ONLY)
+        .set_content_arrangement(ContentArrangement::Disabled)
+        .set_header(header);
+    table
+}
+
+/// A cell aligned right (numbers).
+pub fn right(text: String) -> Cell {
+    Cell::new(text).set_alignment(CellAlignment::Right)
+}
+
+/// An optional figure as text, `-` when unknown.
+pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
+    value.map_or_else(|| "-".to_string(), render)
+}
+
+/// A pitch as written, followed by the nearest 12-EDO note when that adds something:
+/// `~E4 (E4 -5.3c)`, `A2`, `3/4 (E4 +2.0c)`.
+pub fn pitch_with_note(label: &str, note_name: &str, note_offset_cents: f64) -> String {
+    let note = if note_offset_cents.abs() < 0.05 || !note_offset_cents.is_finite() {
+        note_name.to_string()
+    } else {
+        format!("{note_name} {note_offset_cents:+.1}c")
+    };
+    if note == label {
+        note
+    } else {
+        format!("{label} ({note})")
+    }
+}
+
+/// The short flag shown for a severity.
+pub fn severity_flag(severity: Severity) -> &'static str {
+    match severity {
+        Severity::Danger => "DANGER",
+        Severity::Caution => "caution",
+        Severity::Note => "note",
+    }
+}
+
+/// The warnings list and, when given, the safety cautions, as text below a table.
+pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>]) -> String {
+    let mut out = String::new();
+    if warnings.is_empty() {
+        out.push_str("No warnings.\n");
+    } else {
+        out.push_str(&format!("\nWarnings ({}):\n", warnings.len()));
+        for warning in warnings {
+            out.push_str(&format!(
+                "  {:<7} {}: {}\n",
+                severity_flag(warning.severity),
+                warning.kind.name(),
+                warning.message
+            ));
+        }
+    }
+    if !cautions.is_empty() {
+        out.push_str("\nBefore you string this up:\n");
+        for caution in cautions {
+            out.push_str(&format!("  - {}\n", caution.as_ref()));
+        }
+    }
+    out
+}
+
+/// The footnote explaining the stiffness and feel columns.
+pub fn feel_legend(bend_cents: f64) -> String {
+    format!(
+        "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental. Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise.\n"
+    )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn pitch_labels_show_the_note_only_when_it_adds_something() {
+        assert_eq!(pitch_with_note("A2", "A2", 0.0), "A2");
+        assert_eq!(pitch_with_note("~E4", "E4", -5.26), "~E4 (E4 -5.3c)");
+        assert_eq!(pitch_with_note("~A2", "A2", 0.01), "~A2 (A2)");
+    }
+}

@@ -1,0 +1,106 @@
+//! `taut plan --stock FILE`: strings from the user's own shelf, and bad stock files.
+
+mod common;
+
+use common::{bad_input, json, number, write_file};
+
+const SHELF: &str = "\
+# Three nylon monofilaments measured on the bench (demo data).
+catalogs:
+  - id: bench-nylon
+    name: Nylon on the bench
+    diameters: [0.62mm, 0.71mm, 0.81mm]
+    source: measured with a micrometer (demo)
+kinds:
+  - id: bench-nylon
+    name: Nylon from the bench
+    plain: {material: nylon}
+    catalog: bench-nylon
+    source: demo
+";
+
+const ZITHER: &str = "\
+name: Small zither
+scale_length: 300mm
+defaults:
+  kinds: [bench-nylon]
+  tension: 40N
+courses:
+  - pitch: C5
+  - pitch: G4
+";
+
+#[test]
+fn a_plan_chooses_from_the_stock_file_only_when_asked() {
+    let folder = tempfile::tempdir().unwrap();
+    let shelf = write_file(folder.path(), "shelf.yaml", SHELF);
+    let zither = write_file(folder.path(), "zither.yaml", ZITHER);
+    let plan = json(&[
+        "plan",
+        zither.to_str().unwrap(),
+        "--stock",
+        shelf.to_str().unwrap(),
+    ]);
+    let shelf_diameters = [0.62, 0.71, 0.81];
+    for course in plan["courses"].as_array().unwrap() {
+        let string = &course["strings"][0];
+        assert_eq!(string["kind"], "bench-nylon");
+        let diameter = number(&string["diameter_mm"]);
+        assert!(
+            shelf_diameters.iter().any(|d| (d - diameter).abs() < 1e-9),
+            "{diameter} mm is not on the shelf"
+        );
+    }
+    // Without the stock file the kind is unknown, and the message says where it is named.
+    let stderr = bad_input(&["plan", zither.to_str().unwrap()]);
+    assert!(
+        stderr.contains("zither.yaml:4:") && stderr.contains("bench-nylon"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn bad_stock_files_name_file_line_and_field() {
+    let folder = tempfile::tempdir().unwrap();
+    let zither = write_file(folder.path(), "zither.yaml", ZITHER);
+    let zither = zither.to_str().unwrap();
+
+    let misspelt = write_file(
+        folder.path(),
+        "misspelt.yaml",
+        &SHELF.replace("catalogs:", "catalgos:"),
+    );
+    let stderr = bad_input(&["plan", zither, "--stock", misspelt.to_str().unwrap()]);
+    assert!(
+        stderr.contains("misspelt.yaml:2:") && stderr.contains("catalogs"),
+        "{stderr}"
+    );
+
+    let negative = write_file(
+        folder.path(),
+        "negative.yaml",
+        &SHELF.replace("0.71mm", "-0.71mm"),
+    );
+    let stderr = bad_input(&["plan", zither, "--stock", negative.to_str().unwrap()]);
+    assert!(
+        stderr.contains("negative.yaml:5:") && stderr.contains("greater than zero"),
+        "{stderr}"
+    );
+
+    let taken = write_file(
+        folder.path(),
+        "taken.yaml",
+        &SHELF.replace(
+            "  - id: bench-nylon\n    name: Nylon from",
+            "  - id: gut\n    name: Nylon from",
+        ),
+    );
+    let stderr = bad_input(&["plan", zither, "--stock", taken.to_str().unwrap()]);
+    assert!(
+        stderr.contains("taken.yaml") && stderr.contains("`gut` is already defined"),
+        "{stderr}"
+    );
+
+    let stderr = bad_input(&["plan", zither, "--stock", "no-such-shelf.yaml"]);
+    assert!(stderr.contains("no-such-shelf.yaml"), "{stderr}");
+}
