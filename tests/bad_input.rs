@@ -876,3 +876,191 @@ fn failed_run_keeps_the_input_it_would_overwrite() {
     let dir = scratch(&[("probe.yaml", bad.as_bytes())]);
     refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "probe.yaml"], 2);
 }
+
+// ---------------------------------------------------------------------------------------------
+// String sets, stock files and layouts (audit, convert, plan --stock, lengths)
+// ---------------------------------------------------------------------------------------------
+
+const GUITAR: &str = include_str!("../examples/steel-guitar-12edo.yaml");
+const GUITAR_SET: &str = include_str!("../examples/steel-guitar-set.yaml");
+const LAYOUT: &str = include_str!("../examples/psaltery-layout.yaml");
+
+/// `taut ARGS` in a scratch folder holding the guitar as `guitar.yaml` and `files`; expects 2.
+fn with_guitar_refuses(files: &[(&str, &str)], args: &[&str]) -> String {
+    let mut all: Vec<(&str, &[u8])> = vec![("guitar.yaml", GUITAR.as_bytes())];
+    all.extend(files.iter().map(|(name, text)| (*name, text.as_bytes())));
+    let dir = scratch(&all);
+    refused_with_code(dir.path(), args, 2)
+}
+
+fn changed(text: &str, from: &str, to: &str) -> String {
+    assert!(text.contains(from), "`{from}` is not in the example");
+    text.replacen(from, to, 1)
+}
+
+#[test]
+fn set_file_quantity_without_unit() {
+    let set = changed(GUITAR_SET, "diameter: 0.016in", "diameter: 0.016");
+    let stderr = with_guitar_refuses(
+        &[("set.yaml", &set)],
+        &[
+            "audit",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("set.yaml:") && stderr.contains("field `courses[1].strings[0].diameter`"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn set_file_unknown_kind() {
+    let set = changed(
+        GUITAR_SET,
+        "kind: plain-steel, diameter: 0.012in",
+        "kind: plain-steal, diameter: 0.012in",
+    );
+    let stderr = with_guitar_refuses(
+        &[("set.yaml", &set)],
+        &[
+            "audit",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("set.yaml:") && stderr.contains("did you mean `plain-steel`?"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn set_file_missing() {
+    let stderr = with_guitar_refuses(
+        &[],
+        &[
+            "audit",
+            "guitar.yaml",
+            "--set",
+            "no-such-set.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(stderr.contains("no-such-set.yaml"), "{stderr}");
+}
+
+#[test]
+fn stock_file_with_a_bare_density() {
+    let stock = "materials:\n  - id: shelf-wire\n    density: 7850\n";
+    let stderr = with_guitar_refuses(
+        &[("stock.yaml", stock)],
+        &[
+            "plan",
+            "guitar.yaml",
+            "--stock",
+            "stock.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.starts_with("error: stock.yaml:3:") && stderr.contains("materials[0].density"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn convert_with_a_scale_length_in_newtons() {
+    let stderr = with_guitar_refuses(
+        &[("set.yaml", GUITAR_SET)],
+        &[
+            "convert",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--scale-length",
+            "70N",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("--scale-length") && stderr.contains("is a force"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn convert_with_a_nan_bend() {
+    let stderr = with_guitar_refuses(
+        &[("set.yaml", GUITAR_SET)],
+        &[
+            "convert",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--bend",
+            "nan",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(stderr.contains("--bend"), "{stderr}");
+}
+
+#[test]
+fn layout_file_negative_percentage() {
+    let layout = changed(LAYOUT, "max_step: 15%", "max_step: -15%");
+    let stderr = with_guitar_refuses(
+        &[("layout.yaml", &layout)],
+        &["lengths", "layout.yaml", "-o", "report.txt"],
+    );
+    assert!(
+        stderr.contains("layout.yaml:") && stderr.contains("field `max_step`"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn layout_file_pitch_out_of_range() {
+    let layout = changed(LAYOUT, "{pitch: G3,", "{pitch: G99999,");
+    let stderr = with_guitar_refuses(
+        &[("layout.yaml", &layout)],
+        &["lengths", "layout.yaml", "-o", "report.txt"],
+    );
+    assert!(
+        stderr.contains("field `courses[0].pitch`") && stderr.contains("octave 99999"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn inline_string_without_unit() {
+    let stderr = with_guitar_refuses(
+        &[],
+        &[
+            "lengths",
+            "--pitch",
+            "E4",
+            "--string",
+            "{kind: plain-steel, diameter: 0.010}",
+            "--tension",
+            "70N",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("--string") && stderr.contains("no unit"),
+        "{stderr}"
+    );
+}

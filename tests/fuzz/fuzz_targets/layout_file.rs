@@ -1,0 +1,19 @@
+//! Layout files (`taut lengths`), read and then laid out with default options: no panic, no
+//! hang; a refusal is bad input.
+#![no_main]
+
+use libfuzzer_sys::fuzz_target;
+use taut::layout::{lay_out, LayoutInput, LayoutOptions};
+
+fuzz_target!(|text: &str| {
+    let input = match LayoutInput::from_text(text.to_string(), "fuzz.yaml") {
+        Ok(input) => input,
+        Err(err) => {
+            assert_eq!(err.exit_code(), taut::error::EXIT_BAD_INPUT, "{err}");
+            return;
+        }
+    };
+    if let Err(err) = lay_out(&input, &LayoutOptions::default()) {
+        assert_eq!(err.exit_code(), taut::error::EXIT_BAD_INPUT, "{err}");
+    }
+});
