@@ -519,7 +519,7 @@ fn alias_bomb() {
     let mut text = String::from("a0: &a0 [x, x, x, x, x, x, x, x, x, x]\n");
     for level in 1..12 {
         let previous = format!("*a{}", level - 1);
-        let row = vec![previous.as_str(); 10].join(", ");
+        let row = [previous.as_str(); 10].join(", ");
         text.push_str(&format!("a{level}: &a{level} [{row}]\n"));
     }
     let stderr = plan_refuses(format!("{BASE}{text}"));
