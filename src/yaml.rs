@@ -319,6 +319,11 @@ fn convert_error(
             message = rest.to_string();
         }
     }
+    // serde names the Rust type it wanted (`expected struct StringEntryFile`); say what to write.
+    if let Some(at) = message.find("expected struct ") {
+        message.truncate(at);
+        message.push_str("expected a mapping of `key: value` pairs");
+    }
     if let Some(context) = context {
         let context = context
             .replace(" at line ", " that starts at line ")
