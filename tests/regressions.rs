@@ -196,3 +196,29 @@ fn the_largest_tuning_lists_by_default() {
         String::from_utf8_lossy(&output.stderr)
     );
 }
+
+/// `taut lengths --string plain-steel:0.010in` answered "expected struct StringEntryFile": a Rust
+/// type name instead of what to write.
+#[test]
+fn a_scalar_where_a_mapping_belongs_says_mapping() {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    let output = taut_in(
+        dir.path(),
+        &[
+            "lengths",
+            "--pitch",
+            "E4",
+            "--string",
+            "plain-steel:0.010in",
+            "--tension",
+            "70N",
+        ],
+    );
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2), "{stderr}");
+    assert!(
+        stderr.contains("expected a mapping of `key: value` pairs"),
+        "{stderr}"
+    );
+    assert!(!stderr.contains("struct"), "{stderr}");
+}
