@@ -142,7 +142,10 @@ fn a_length_that_overstresses_plain_steel_warns_with_the_cautions() {
         .assert()
         .success()
         .stdout(predicate::str::contains("No warnings."))
-        .stdout(predicate::str::contains("eye protection").not());
+        .stdout(predicate::str::contains("Before you string this up").not())
+        .stdout(predicate::str::contains(
+            "Strings can break: wear eye protection",
+        ));
 }
 
 #[test]
