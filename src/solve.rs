@@ -449,6 +449,12 @@ fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoi
                 None => format!("{} on {}", inner.id.as_str(), core_material.id.as_str()),
             },
         ),
+        KindBuild::Measured { material, .. } => (
+            "measured",
+            material
+                .as_ref()
+                .map_or_else(|| "unknown".to_string(), |m| m.id.as_str().to_string()),
+        ),
     };
     StringChoice {
         kind: kind.id.as_str().to_string(),
