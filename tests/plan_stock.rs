@@ -174,3 +174,67 @@ fn measured_kinds_need_a_density_or_a_weighed_piece() {
         "{stderr}"
     );
 }
+
+#[test]
+fn lengths_audit_and_convert_take_stock_files_too() {
+    let folder = tempfile::tempdir().unwrap();
+    let drawer = write_file(folder.path(), "drawer.yaml", WEIGHED);
+    let drawer = drawer.to_str().unwrap();
+    let layout = json(&[
+        "lengths",
+        "--pitch",
+        "C5",
+        "--string",
+        "{kind: drawer-nylon, diameter: 0.80mm}",
+        "--tension",
+        "40N",
+        "--stock",
+        drawer,
+    ]);
+    let course = &layout["courses"][0];
+    // L = √(T/μ)/(2f), Mersenne's law solved for the length (OpenStax University Physics Vol. 1 §16.3).
+    let mu: f64 = 0.52e-3 / 0.900;
+    let expected = (40.0 / mu).sqrt() / (2.0 * number(&course["pitch_hz"]));
+    assert!(
+        (number(&course["length_m"]) - expected).abs() < 1e-9,
+        "{course}"
+    );
+
+    let zither = write_file(
+        folder.path(),
+        "zither.yaml",
+        &ZITHER.replace("bench-nylon", "drawer-nylon"),
+    );
+    let set = write_file(
+        folder.path(),
+        "set.yaml",
+        "name: Drawer strings\ncourses:\n  - course: 1\n    strings: [{kind: drawer-nylon, diameter: 0.80mm}]\n  - course: 2\n    strings: [{kind: drawer-nylon, diameter: 1.00mm}]\n",
+    );
+    for command in ["audit", "convert"] {
+        let report = json(&[
+            command,
+            zither.to_str().unwrap(),
+            "--set",
+            set.to_str().unwrap(),
+            "--stock",
+            drawer,
+        ]);
+        assert!(
+            report["courses"].as_array().is_some_and(|c| c.len() == 2),
+            "{report}"
+        );
+        // Without the stock file the set names a kind nobody knows.
+        let stderr = bad_input(&[
+            command,
+            zither.to_str().unwrap(),
+            "--set",
+            set.to_str().unwrap(),
+        ]);
+        assert!(
+            stderr.contains("set.yaml:")
+                && stderr.contains("courses[0].strings[0].kind")
+                && stderr.contains("drawer-nylon"),
+            "{stderr}"
+        );
+    }
+}
