@@ -33,6 +33,7 @@ use crate::physics;
 use crate::pitch::{nearest_note_name, PitchSpec};
 use crate::select::{self, Checks, StressLimits, Warnings};
 use crate::set::{ResolvedString, SetString, StringSet};
+use crate::stock::Stock;
 use crate::tuning::Tuning;
 use crate::units::METRES_PER_INCH;
 use crate::warning::{over_rated_load, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
@@ -321,11 +322,11 @@ pub fn audit(
     set: &StringSet,
     tuning: &Tuning,
     reference: Option<Reference<'_>>,
+    stock: &Stock,
     options: &AuditOptions,
 ) -> Result<Audit> {
     check_no_extra_courses(set, instrument)?;
-    let kinds = StringKinds::builtin()?;
-    let materials = Materials::builtin()?;
+    let (kinds, materials) = (stock.kinds(), stock.materials());
     let limits = stress_limits(instrument);
     let mut courses = Vec::with_capacity(instrument.courses.len());
     for index in 0..instrument.courses.len() {

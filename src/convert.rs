@@ -49,6 +49,7 @@ use crate::physics;
 use crate::select::{self, Checks, Request, StressLimits, Warnings};
 use crate::set::{SetCourse, SetString, StringSet};
 use crate::solve::gauge_label;
+use crate::stock::Stock;
 use crate::tuning::Tuning;
 use crate::units::METRES_PER_INCH;
 use crate::warning::{over_rated_load, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
@@ -264,11 +265,11 @@ pub fn convert(
     tuning_before: &Tuning,
     after: &Instrument,
     tuning_after: &Tuning,
+    stock: &Stock,
     options: &ConvertOptions,
 ) -> Result<Conversion> {
     check_no_extra_courses(set, before)?;
-    let kinds = StringKinds::builtin()?;
-    let materials = Materials::builtin()?;
+    let (kinds, materials) = (stock.kinds(), stock.materials());
     let limits = stress_limits(after);
     let limits_before = stress_limits(before);
     let mut courses = Vec::with_capacity(after.courses.len());

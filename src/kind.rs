@@ -10,13 +10,14 @@ use std::sync::OnceLock;
 use serde::Deserialize;
 
 use crate::construction::{
-    default_core_ratio, Construction, CoreRatio, WoundRecipe, DEFAULT_INNER_SHARE,
+    default_core_ratio, Construction, CoreRatio, Measured, WoundRecipe, DEFAULT_INNER_SHARE,
 };
 use crate::error::{did_you_mean, Error, Result};
 use crate::gauge::GaugeCatalogs;
 use crate::id::Id;
 use crate::material::{Material, Materials};
 use crate::physics::CoreShape;
+use crate::units::{Length, Mass, UnitMass};
 
 /// One available gauge of a kind, with the numbers the selector needs (all SI).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -52,6 +53,13 @@ pub enum KindBuild {
         /// Outer wrap material and the inner layer's share of the wrap thickness.
         outer: Option<(Material, f64)>,
     },
+    /// Strings measured one by one (weighed, or with a known μ), each a gauge of its own.
+    Measured {
+        /// The material whose strength applies, if known.
+        material: Option<Material>,
+        /// `(outer diameter m, linear density kg/m)` per string, lightest first.
+        strings: Vec<(f64, f64)>,
+    },
 }
 
 /// A resolved string kind.
@@ -61,8 +69,8 @@ pub struct StringKind {
     pub id: Id,
     /// Name shown to people.
     pub name: String,
-    /// The gauge catalog's id.
-    pub catalog: Id,
+    /// The gauge catalog's id (`None` for measured strings, which are their own catalog).
+    pub catalog: Option<Id>,
     /// Where the construction choices come from.
     pub source: String,
     /// How it is built.
@@ -97,6 +105,22 @@ impl StringKind {
                 outer: outer.as_ref().map(|(m, share)| (m, *share)),
             }
             .build(outer_diameter),
+            KindBuild::Measured { material, strings } => {
+                // The selector only asks for diameters it took from this kind's own gauges.
+                let unit_mass = strings
+                    .iter()
+                    .min_by(|a, b| {
+                        (a.0 - outer_diameter)
+                            .abs()
+                            .total_cmp(&(b.0 - outer_diameter).abs())
+                    })
+                    .map_or(f64::NAN, |&(_, unit_mass)| unit_mass);
+                Construction::Measured(Measured {
+                    unit_mass,
+                    diameter: Some(outer_diameter),
+                    material: material.as_ref(),
+                })
+            }
         }
     }
 }
@@ -110,8 +134,61 @@ struct KindSpec {
     plain: Option<PlainSpec>,
     #[serde(default)]
     wound: Option<WoundSpec>,
-    catalog: Id,
+    #[serde(default)]
+    measured: Option<MeasuredSpec>,
+    #[serde(default)]
+    catalog: Option<Id>,
     source: String,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct MeasuredSpec {
+    #[serde(default)]
+    material: Option<Id>,
+    strings: Vec<MeasuredString>,
+}
+
+/// One measured string: its diameter and either its linear density or a weighed piece.
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields, try_from = "RawMeasuredString")]
+struct MeasuredString {
+    diameter: f64,
+    unit_mass: f64,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawMeasuredString {
+    diameter: Length,
+    #[serde(default)]
+    unit_mass: Option<UnitMass>,
+    #[serde(default)]
+    mass: Option<Mass>,
+    #[serde(default)]
+    length: Option<Length>,
+}
+
+impl TryFrom<RawMeasuredString> for MeasuredString {
+    type Error = String;
+
+    fn try_from(raw: RawMeasuredString) -> std::result::Result<Self, String> {
+        let unit_mass = match (raw.unit_mass, raw.mass, raw.length) {
+            (Some(unit_mass), None, None) => unit_mass.si(),
+            // A weighed piece: μ = m/l (OpenStax University Physics Vol. 1 eq. 16.7).
+            (None, Some(mass), Some(length)) => mass.si() / length.si(),
+            _ => {
+                return Err(
+                    "give either `unit_mass` (e.g. `0.62g/m`) or a weighed piece as `mass` and `length` (e.g. `mass: 0.55g`, `length: 900mm`)"
+                        .to_string(),
+                )
+            }
+        };
+        Ok(MeasuredString {
+            diameter: raw.diameter.si(),
+            unit_mass,
+        })
+    }
 }
 
 #[derive(Deserialize)]
@@ -270,14 +347,14 @@ pub fn load_kinds_file(
                 Ok(m)
             }
         };
-        let build = match (&spec.plain, &spec.wound) {
-            (Some(plain), None) => KindBuild::Plain {
+        let build = match (&spec.plain, &spec.wound, &spec.measured) {
+            (Some(plain), None, None) => KindBuild::Plain {
                 material: load_bearing(
                     material(&plain.material, &["plain", "material"])?,
                     &["plain", "material"],
                 )?,
             },
-            (None, Some(wound)) => {
+            (None, Some(wound), None) => {
                 let core_path = ["wound", "core", "material"];
                 let core_material =
                     load_bearing(material(&wound.core.material, &core_path)?, &core_path)?;
@@ -330,26 +407,61 @@ pub fn load_kinds_file(
                     outer,
                 }
             }
+            (None, None, Some(measured)) => {
+                let material = match &measured.material {
+                    Some(id) => Some(material(id, &["measured", "material"])?),
+                    None => None,
+                };
+                let mut strings: Vec<(f64, f64)> = measured
+                    .strings
+                    .iter()
+                    .map(|s| (s.diameter, s.unit_mass))
+                    .collect();
+                strings.sort_by(|a, b| a.1.total_cmp(&b.1));
+                if strings.is_empty() || strings.windows(2).any(|w| w[1].1 <= w[0].1) {
+                    return Err(place(
+                        Error::input("measured strings need at least one entry, each of a different linear density"),
+                        &["measured", "strings"],
+                    ));
+                }
+                KindBuild::Measured { material, strings }
+            }
             _ => {
                 return Err(place(
-                    Error::input("a kind is either `plain:` or `wound:`, exactly one of them"),
+                    Error::input("a kind is exactly one of `plain:`, `wound:` or `measured:`"),
                     &["id"],
                 ))
             }
         };
-        let catalog = catalogs
-            .get(spec.catalog.as_str())
-            .map_err(|err| place(err, &["catalog"]))?;
+        let diameters: Vec<f64> = match (&build, &spec.catalog) {
+            (KindBuild::Measured { strings, .. }, None) => strings.iter().map(|s| s.0).collect(),
+            (KindBuild::Measured { .. }, Some(_)) => {
+                return Err(place(
+                    Error::input("measured strings are their own catalog; leave out `catalog`"),
+                    &["catalog"],
+                ))
+            }
+            (_, Some(catalog)) => catalogs
+                .get(catalog.as_str())
+                .map_err(|err| place(err, &["catalog"]))?
+                .diameters()
+                .to_vec(),
+            (_, None) => {
+                return Err(place(
+                    Error::input("this kind needs a `catalog` of gauges"),
+                    &["id"],
+                ))
+            }
+        };
         let mut kind = StringKind {
             id: spec.id,
             name: spec.name,
             catalog: spec.catalog.clone(),
             source: spec.source,
             build,
-            gauges: Vec::with_capacity(catalog.diameters().len()),
+            gauges: Vec::with_capacity(diameters.len()),
         };
-        let gauges: Vec<Gauge> = catalog
-            .diameters()
+        let gauges: Vec<Gauge> = diameters
             .iter()
             .map(|&diameter| {
                 let string = kind.construction(diameter);

@@ -39,12 +39,11 @@ use crate::audit::cautions_for;
 use crate::error::{Error, Result};
 use crate::feel::{self, Feel, FeelOptions};
 use crate::instrument::{field_name, Percent, TensionSpec};
-use crate::kind::StringKinds;
-use crate::material::Materials;
 use crate::physics;
 use crate::pitch::{nearest_note_name, PitchSpec};
 use crate::select::{self, Checks, StressLimits, Warnings};
 use crate::set::{check_entry, SetString, StringEntryFile};
+use crate::stock::Stock;
 use crate::tuning::{self, Tuning};
 use crate::units::METRES_PER_INCH;
 use crate::warning::{StringRef, Warning, WarningKind};
@@ -198,13 +197,13 @@ pub struct Jump {
 
 impl LayoutInput {
     /// Reads a layout file.
-    pub fn load(path: &Path) -> Result<Self> {
+    pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
         let text = yaml::read_text(path)?;
-        LayoutInput::from_text(text, &path.display().to_string())
+        LayoutInput::from_text(text, &path.display().to_string(), stock)
     }
 
     /// Parses and checks a layout; `origin` names it in messages.
-    pub fn from_text(text: String, origin: &str) -> Result<Self> {
+    pub fn from_text(text: String, origin: &str, stock: &Stock) -> Result<Self> {
         let file: LayoutFile = yaml::parse(&text, origin)?;
         let mut input = LayoutInput {
             name: file.name,
@@ -234,8 +233,7 @@ impl LayoutInput {
                 &[PathStep::Key("courses")],
             ));
         }
-        let kinds = StringKinds::builtin()?;
-        let materials = Materials::builtin()?;
+        let (kinds, materials) = (stock.kinds(), stock.materials());
         for (index, course) in file.courses.into_iter().enumerate() {
             let at = |key: &'static str| {
                 [
@@ -298,10 +296,9 @@ impl LayoutInput {
 
     /// A one-course layout from command-line values: `string` is a set-file string entry such as
     /// `{kind: plain-steel, diameter: 0.016in}`.
-    pub fn single(pitch: &str, string: &str, tension: TensionSpec) -> Result<Self> {
+    pub fn single(pitch: &str, string: &str, tension: TensionSpec, stock: &Stock) -> Result<Self> {
         let entry: StringEntryFile = yaml::parse(string, "--string")?;
-        let kinds = StringKinds::builtin()?;
-        let materials = Materials::builtin()?;
+        let (kinds, materials) = (stock.kinds(), stock.materials());
         let string = check_entry(entry, kinds, materials)
             .map_err(|(err, key)| err.field(key).in_origin("--string"))?;
         if tension.is_profile() {
@@ -356,7 +353,7 @@ pub struct LayoutOptions {
 }
 
 /// Loads the tuning (options, file, or [`DEFAULT_TUNING`]) and lays the courses out.
-pub fn lay_out(input: &LayoutInput, options: &LayoutOptions) -> Result<Layout> {
+pub fn lay_out(input: &LayoutInput, stock: &Stock, options: &LayoutOptions) -> Result<Layout> {
     let tuning = match (&options.tuning, &input.tuning) {
         (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
         (None, Some(spec)) => {
@@ -364,17 +361,17 @@ pub fn lay_out(input: &LayoutInput, options: &LayoutOptions) -> Result<Layout> {
         }
         (None, None) => tuning::load(DEFAULT_TUNING)?,
     };
-    solve_layout(input, &tuning, options)
+    solve_layout(input, &tuning, stock, options)
 }
 
 /// Lays out the courses of `input` in `tuning`.
 pub fn solve_layout(
     input: &LayoutInput,
     tuning: &Tuning,
+    stock: &Stock,
     options: &LayoutOptions,
 ) -> Result<Layout> {
-    let kinds = StringKinds::builtin()?;
-    let materials = Materials::builtin()?;
+    let (kinds, materials) = (stock.kinds(), stock.materials());
     let max_step = options.max_step.unwrap_or(input.max_step);
     let limits = StressLimits::default();
     let count = input.courses.len();

@@ -39,6 +39,7 @@ use crate::instrument::{Expecting, NoDetail, ScalarOrMap};
 use crate::kind::{KindBuild, StringKind, StringKinds};
 use crate::material::{Material, Materials};
 use crate::plan::Plan;
+use crate::stock::Stock;
 use crate::units::{Length, Mass, UnitMass, METRES_PER_INCH};
 use crate::yaml::{self, PathStep};
 
@@ -170,14 +171,14 @@ pub struct ResolvedString<'k> {
 
 impl StringSet {
     /// Reads a set file.
-    pub fn load(path: &Path) -> Result<Self> {
+    pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
         let text = yaml::read_text(path)?;
-        StringSet::from_text(text, &path.display().to_string())
+        StringSet::from_text(text, &path.display().to_string(), stock)
     }
 
     /// Parses and checks a set; `origin` names it in messages. Kind and material ids are checked
     /// against the shipped kinds and materials.
-    pub fn from_text(text: String, origin: &str) -> Result<Self> {
+    pub fn from_text(text: String, origin: &str, stock: &Stock) -> Result<Self> {
         let file: SetFile = yaml::parse(&text, origin)?;
         let mut set = StringSet {
             name: file.name,
@@ -203,8 +204,7 @@ impl StringSet {
                 &[PathStep::Key("courses")],
             ));
         }
-        let kinds = StringKinds::builtin()?;
-        let materials = Materials::builtin()?;
+        let (kinds, materials) = (stock.kinds(), stock.materials());
         for (index, course) in file.courses.into_iter().enumerate() {
             let number = match course.course {
                 Some(0) => {
@@ -669,7 +669,7 @@ mod tests {
     use super::*;
 
     fn parse(text: &str) -> Result<StringSet> {
-        StringSet::from_text(text.to_string(), "s.yaml")
+        StringSet::from_text(text.to_string(), "s.yaml", Stock::builtin().unwrap())
     }
 
     #[test]

@@ -36,12 +36,11 @@ pub struct SolveOptions {
     pub tuning: Option<String>,
     /// A tension for every course instead of the file's targets, windows and profile.
     pub tension: Option<TensionSpec>,
-    /// Stock files with extra materials, gauge catalogs and string kinds (see [`crate::stock`]).
-    pub stock_files: Vec<std::path::PathBuf>,
 }
 
 /// Loads the tuning the options or the instrument name (or [`DEFAULT_TUNING`]) and solves.
-pub fn plan(instrument: &Instrument, options: &SolveOptions) -> Result<Plan> {
+/// `stock` holds the string kinds to choose from ([`Stock::builtin`] for the shipped ones).
+pub fn plan(instrument: &Instrument, stock: &Stock, options: &SolveOptions) -> Result<Plan> {
     let tuning = match (&options.tuning, &instrument.tuning) {
         (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
         (None, Some(spec)) => {
@@ -49,15 +48,6 @@ pub fn plan(instrument: &Instrument, options: &SolveOptions) -> Result<Plan> {
         }
         (None, None) => tuning::load(DEFAULT_TUNING)?,
     };
-    if options.stock_files.is_empty() {
-        return solve(
-            instrument,
-            &tuning,
-            StringKinds::builtin()?,
-            options.tension.as_ref(),
-        );
-    }
-    let stock = Stock::with_files(&options.stock_files)?;
     solve(instrument, &tuning, stock.kinds(), options.tension.as_ref())
 }
 
@@ -448,6 +438,12 @@ fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoi
                 ),
                 None => format!("{} on {}", inner.id.as_str(), core_material.id.as_str()),
             },
+        ),
+        KindBuild::Measured { material, .. } => (
+            "measured",
+            material
+                .as_ref()
+                .map_or_else(|| "unknown".to_string(), |m| m.id.as_str().to_string()),
         ),
     };
     StringChoice {

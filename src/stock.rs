@@ -6,7 +6,9 @@
 //! shipped materials and catalogs as well as its own. Ids must be new: a stock file adds, it
 //! never silently replaces a shipped value.
 
+use std::borrow::Cow;
 use std::path::Path;
+use std::sync::OnceLock;
 
 use crate::error::{Error, Result};
 use crate::gauge::{load_catalogs_file, GaugeCatalogs};
@@ -22,24 +24,35 @@ pub struct Stock {
 }
 
 impl Stock {
-    /// The shipped data only.
-    pub fn builtin() -> Result<Stock> {
-        Ok(Stock {
-            materials: Materials::builtin()?.clone(),
-            catalogs: GaugeCatalogs::builtin()?.clone(),
-            kinds: StringKinds::builtin()?.clone(),
-        })
+    /// The shipped data only, built once.
+    pub fn builtin() -> Result<&'static Stock> {
+        static BUILTIN: OnceLock<std::result::Result<Stock, String>> = OnceLock::new();
+        BUILTIN
+            .get_or_init(|| {
+                Ok(Stock {
+                    materials: Materials::builtin().map_err(|e| e.to_string())?.clone(),
+                    catalogs: GaugeCatalogs::builtin().map_err(|e| e.to_string())?.clone(),
+                    kinds: StringKinds::builtin().map_err(|e| e.to_string())?.clone(),
+                })
+            })
+            .as_ref()
+            .map_err(|message| Error::input(format!("taut's own string data is broken: {message}")))
     }
 
-    /// The shipped data plus every stock file, in order.
-    pub fn with_files(paths: &[impl AsRef<Path>]) -> Result<Stock> {
-        let mut stock = Stock::builtin()?;
+    /// The shipped data plus every stock file, in order; the shipped data itself when there is
+    /// no file.
+    pub fn with_files(paths: &[impl AsRef<Path>]) -> Result<Cow<'static, Stock>> {
+        let builtin = Stock::builtin()?;
+        if paths.is_empty() {
+            return Ok(Cow::Borrowed(builtin));
+        }
+        let mut stock = builtin.clone();
         for path in paths {
             let path = path.as_ref();
             let text = crate::yaml::read_text(path)?;
             stock.add_text(&text, &path.display().to_string())?;
         }
-        Ok(stock)
+        Ok(Cow::Owned(stock))
     }
 
     /// Adds the sections of one stock document; `origin` names it in errors.
@@ -102,7 +115,7 @@ kinds:
 
     #[test]
     fn a_stock_file_adds_a_catalog_and_a_kind_over_shipped_materials() {
-        let mut stock = Stock::builtin().unwrap();
+        let mut stock = Stock::builtin().unwrap().clone();
         let before = stock.kinds().all().len();
         stock.add_text(SHELF, "shelf.yaml").unwrap();
         assert_eq!(stock.kinds().all().len(), before + 1);
@@ -118,6 +131,7 @@ kinds:
         );
         let err = Stock::builtin()
             .unwrap()
+            .clone()
             .add_text(&text, "shelf.yaml")
             .unwrap_err()
             .to_string();
@@ -131,6 +145,7 @@ kinds:
     fn an_empty_or_misspelt_stock_file_is_refused() {
         let err = Stock::builtin()
             .unwrap()
+            .clone()
             .add_text("kind:\n  - id: x\n", "s.yaml")
             .unwrap_err()
             .to_string();
@@ -140,6 +155,7 @@ kinds:
         );
         let err = Stock::builtin()
             .unwrap()
+            .clone()
             .add_text("kinds: []\n", "s.yaml")
             .unwrap_err()
             .to_string();

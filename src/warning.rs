@@ -279,6 +279,10 @@ pub const SAFETY_CAUTIONS: [&str; 4] = [
     "These figures are estimates from published material data: defer to the instrument maker's specifications and to local practice.",
 ];
 
+/// The one-line reminder shown under every string report that raised no caution: even a
+/// plan inside every limit is strung by hand on a real instrument.
+pub const SAFETY_REMINDER: &str = "Strings can break: wear eye protection, bring tension up gradually, and keep within the maker's load rating; the maker's specifications come first.";
+
 #[cfg(test)]
 mod tests {
     use super::*;

@@ -8,6 +8,7 @@ use serde_json::Value;
 use taut::convert::{convert, ConvertOptions};
 use taut::instrument::Instrument;
 use taut::set::{SetString, StringSet};
+use taut::stock::Stock;
 use taut::tuning;
 
 fn taut() -> Command {
@@ -80,10 +81,10 @@ proptest! {
             ));
         }
         let instrument = Instrument::from_text(instrument, "probe.yaml").unwrap();
-        let set = StringSet::from_text(set, "probe-set.yaml").unwrap();
+        let set = StringSet::from_text(set, "probe-set.yaml", Stock::builtin().unwrap()).unwrap();
         let tuning = tuning::load("12edo").unwrap();
         let options = ConvertOptions::default();
-        let conversion = convert(&instrument, &set, &tuning, &instrument, &tuning, &options).unwrap();
+        let conversion = convert(&instrument, &set, &tuning, &instrument, &tuning, Stock::builtin().unwrap(), &options).unwrap();
         let safe = conversion.courses.iter().flat_map(|c| &c.strings).all(|s| {
             s.before.as_ref().and_then(|b| b.stress_ratio).is_some_and(|r| r <= 0.85)
         });
@@ -92,7 +93,7 @@ proptest! {
         prop_assert_eq!(conversion.strings_replaced, 0);
         prop_assert!(conversion.total_change_pct.abs() < 1e-9);
 
-        let fresh = convert(&instrument, &set, &tuning, &instrument, &tuning, &ConvertOptions {
+        let fresh = convert(&instrument, &set, &tuning, &instrument, &tuning, Stock::builtin().unwrap(), &ConvertOptions {
             reselect_all: true,
             ..options
         }).unwrap();

@@ -8,6 +8,7 @@ use serde_json::Value;
 use taut::instrument::TensionSpec;
 use taut::layout::{lay_out, LayoutInput, LayoutOptions};
 use taut::physics;
+use taut::stock::Stock;
 
 fn taut() -> Command {
     Command::cargo_bin("taut").unwrap()
@@ -60,8 +61,9 @@ proptest! {
             &pitch,
             &string,
             TensionSpec::Fixed(taut::instrument::TensionGoal { target_n: tension, min_n: None, max_n: None }),
+            Stock::builtin().unwrap(),
         ).unwrap();
-        let layout = lay_out(&input, &LayoutOptions::default()).unwrap();
+        let layout = lay_out(&input, Stock::builtin().unwrap(), &LayoutOptions::default()).unwrap();
         let course = &layout.courses[0];
         let back = physics::tension(course.unit_mass_kg_per_m, course.length_m, course.pitch_hz);
         prop_assert!((back / tension - 1.0).abs() < 1e-12, "{back} vs {tension}");
@@ -142,7 +144,10 @@ fn a_length_that_overstresses_plain_steel_warns_with_the_cautions() {
         .assert()
         .success()
         .stdout(predicate::str::contains("No warnings."))
-        .stdout(predicate::str::contains("eye protection").not());
+        .stdout(predicate::str::contains("Before you string this up").not())
+        .stdout(predicate::str::contains(
+            "Strings can break: wear eye protection",
+        ));
 }
 
 #[test]

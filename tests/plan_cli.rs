@@ -389,7 +389,10 @@ fn safety_cautions_appear_only_with_cautions_or_dangers() {
         .args(["plan", &safe])
         .assert()
         .success()
-        .stdout(predicate::str::contains("eye protection").not());
+        .stdout(predicate::str::contains("Before you string this up").not())
+        .stdout(predicate::str::contains(
+            "Strings can break: wear eye protection",
+        ));
     let risky = write(
         &dir,
         "risky.yaml",

@@ -5,10 +5,16 @@ use proptest::prelude::*;
 use taut::instrument::Instrument;
 use taut::plan::Plan;
 use taut::solve::{self, SolveOptions};
+use taut::stock::Stock;
 
 fn solve_text(text: String) -> Plan {
     let instrument = Instrument::from_text(text, "prop.yaml").unwrap();
-    solve::plan(&instrument, &SolveOptions::default()).unwrap()
+    solve::plan(
+        &instrument,
+        Stock::builtin().unwrap(),
+        &SolveOptions::default(),
+    )
+    .unwrap()
 }
 
 fn one_course(hz: f64, length_mm: f64, tension_n: f64, kinds: &str, extra: &str) -> String {

@@ -6,6 +6,7 @@
 use taut::instrument::Instrument;
 use taut::plan::Plan;
 use taut::solve::{self, SolveOptions};
+use taut::stock::Stock;
 use taut::warning::{Severity, WarningKind};
 
 fn plan(courses: &str, extra: &str) -> Plan {
@@ -13,7 +14,12 @@ fn plan(courses: &str, extra: &str) -> Plan {
         "name: probe\ntuning: 12edo\nscale_length: 648mm\n{extra}defaults:\n  kinds: [plain-steel]\n  tension: 72N\ncourses:\n{courses}"
     );
     let instrument = Instrument::from_text(text, "probe.yaml").unwrap();
-    solve::plan(&instrument, &SolveOptions::default()).unwrap()
+    solve::plan(
+        &instrument,
+        Stock::builtin().unwrap(),
+        &SolveOptions::default(),
+    )
+    .unwrap()
 }
 
 fn kinds(plan: &Plan) -> Vec<WarningKind> {

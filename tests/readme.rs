@@ -1,12 +1,17 @@
 //! README.md stays true: every `$ taut …` line in its console blocks runs, succeeding unless the
-//! README shows an error right after it, and the two start-here commands are the ones CI runs.
+//! README shows an error right after it; the outputs it shows in full are current; and the two
+//! start-here commands are the ones CI runs.
 
 mod common;
 
 use std::path::Path;
 
+fn root() -> &'static Path {
+    Path::new(env!("CARGO_MANIFEST_DIR"))
+}
+
 fn readme() -> String {
-    std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join("README.md")).unwrap()
+    std::fs::read_to_string(root().join("README.md")).unwrap()
 }
 
 /// `(command line, the README shows an error after it)` for each `$ taut` line.
@@ -25,19 +30,48 @@ fn console_commands(text: &str) -> Vec<(String, bool)> {
         .collect()
 }
 
+/// Splits a command line into words, keeping single-quoted words whole (as a shell would).
+fn words(command: &str) -> Vec<String> {
+    let mut words = Vec::new();
+    let mut current = String::new();
+    let mut quoted = false;
+    for c in command.chars() {
+        match c {
+            '\'' => quoted = !quoted,
+            ' ' if !quoted => {
+                if !current.is_empty() {
+                    words.push(std::mem::take(&mut current));
+                }
+            }
+            _ => current.push(c),
+        }
+    }
+    if !current.is_empty() {
+        words.push(current);
+    }
+    words
+}
+
 #[test]
 fn every_readme_command_behaves_as_shown() {
     let text = readme();
     let commands = console_commands(&text);
     assert!(
-        commands.len() >= 8,
+        commands.len() >= 10,
         "README lost its examples: {commands:?}"
     );
+    // Commands run in a scratch folder holding a copy of examples/, so files they write
+    // (`--output`, `--save-set`) land there and not in the repository.
     let scratch = tempfile::tempdir().unwrap();
+    std::fs::create_dir(scratch.path().join("examples")).unwrap();
+    for entry in std::fs::read_dir(root().join("examples")).unwrap() {
+        let entry = entry.unwrap();
+        let copy = scratch.path().join("examples").join(entry.file_name());
+        std::fs::copy(entry.path(), copy).unwrap();
+    }
     for (command, shows_error) in commands {
-        let args: Vec<&str> = command.split_whitespace().collect();
         let output = common::taut()
-            .args(&args)
+            .args(words(&command))
             .current_dir(scratch.path())
             .output()
             .unwrap();
@@ -55,32 +89,44 @@ fn every_readme_command_behaves_as_shown() {
     }
 }
 
+/// The outputs README shows in full match what the binary prints today.
 #[test]
-fn readme_main_example_output_is_current() {
+fn readme_outputs_are_current() {
     let text = readme();
-    let start =
-        text.find("$ taut plan guitar-19edo\n").unwrap() + "$ taut plan guitar-19edo\n".len();
-    let end = start + text[start..].find("```").unwrap();
-    let shown = &text[start..end];
-    let actual = common::table(&["plan", "guitar-19edo"]);
-    assert_eq!(
-        shown, actual,
-        "README's first example differs from `taut plan guitar-19edo`"
-    );
+    for command in [
+        "plan guitar-19edo",
+        "audit examples/guitar-22edo-mode.yaml --set examples/steel-guitar-set.yaml --from-instrument examples/steel-guitar-12edo.yaml",
+        "lengths examples/psaltery-layout.yaml",
+    ] {
+        let marker = format!("$ taut {command}\n");
+        let start = text
+            .find(&marker)
+            .unwrap_or_else(|| panic!("README lost `{marker}`"))
+            + marker.len();
+        let end = start + text[start..].find("```").unwrap();
+        let output = common::taut()
+            .args(words(command))
+            .current_dir(root())
+            .output()
+            .unwrap();
+        assert!(output.status.success(), "taut {command}");
+        assert_eq!(
+            &text[start..end],
+            String::from_utf8_lossy(&output.stdout),
+            "README's output of `taut {command}` is out of date"
+        );
+    }
 }
 
 #[test]
 fn start_here_commands_match_ci() {
     let text = readme();
-    assert!(text.contains("cargo run --release -- plan examples/guitar-19edo.yaml"));
+    assert!(text.contains("\ncargo run --release -- plan examples/guitar-19edo.yaml "));
     assert!(text.contains("\ncargo test --locked "));
-    let ci =
-        std::fs::read_to_string(Path::new(env!("CARGO_MANIFEST_DIR")).join(".ci/run")).unwrap();
+    let ci = std::fs::read_to_string(root().join(".ci/run")).unwrap();
     assert!(
         ci.lines().any(|line| line.trim() == "cargo test --locked"),
         "{ci}"
     );
-    assert!(Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("examples/guitar-19edo.yaml")
-        .is_file());
+    assert!(root().join("examples/guitar-19edo.yaml").is_file());
 }

@@ -15,6 +15,7 @@ use taut::tuning;
 use taut::units::{Force, Length};
 
 use super::output::{self, OutputArgs, Render};
+use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
@@ -104,6 +105,8 @@ pub struct AuditArgs {
     #[arg(long, value_name = "PERCENT")]
     pub max_change: Option<String>,
     #[command(flatten)]
+    pub stock: StockArgs,
+    #[command(flatten)]
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
@@ -112,7 +115,8 @@ pub struct AuditArgs {
 /// Runs `taut audit`.
 pub fn run(args: AuditArgs) -> Result<()> {
     let instrument = Instrument::load(&args.instrument)?;
-    let set = StringSet::load(&args.set)?;
+    let stock = args.stock.load()?;
+    let set = StringSet::load(&args.set, &stock)?;
     let own = instrument.tuning.clone();
     let tuning = match (&args.tuning, &own) {
         (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
@@ -152,6 +156,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
         &set,
         &tuning,
         reference,
+        &stock,
         &AuditOptions {
             max_change,
             feel: args.feel.options()?,

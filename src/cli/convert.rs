@@ -16,6 +16,7 @@ use taut::units::Length;
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Arguments of `taut convert`.
@@ -62,6 +63,8 @@ pub struct ConvertArgs {
     #[arg(long, value_name = "FILE")]
     pub save_set: Option<PathBuf>,
     #[command(flatten)]
+    pub stock: StockArgs,
+    #[command(flatten)]
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
@@ -84,7 +87,8 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         Some(spec) => Instrument::load(spec).map_err(|err| err.in_origin("--to-instrument"))?,
         None => before.clone(),
     };
-    let set = StringSet::load(&args.set)?;
+    let stock = args.stock.load()?;
+    let set = StringSet::load(&args.set, &stock)?;
     let tuning_before = match (&args.from, &before.tuning) {
         (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--from"))?,
         (None, Some(spec)) => {
@@ -132,6 +136,7 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         &tuning_before,
         &after,
         &tuning_after,
+        &stock,
         &options,
     )?;
     if let Some(path) = &args.save_set {

@@ -12,6 +12,7 @@ use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 
 /// Arguments of `taut lengths`.
@@ -42,6 +43,8 @@ pub struct LengthsArgs {
     #[arg(long, value_name = "PERCENT")]
     pub max_step: Option<String>,
     #[command(flatten)]
+    pub stock: StockArgs,
+    #[command(flatten)]
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
@@ -57,13 +60,14 @@ pub fn run(args: LengthsArgs) -> Result<()> {
                 .map_err(|err| err.in_origin("--tension"))
         })
         .transpose()?;
+    let stock = args.stock.load()?;
     let input = match (&args.layout, &args.pitch, &args.string) {
-        (Some(path), _, _) => LayoutInput::load(path)?,
+        (Some(path), _, _) => LayoutInput::load(path, &stock)?,
         (None, Some(pitch), Some(string)) => {
             let tension = tension.clone().ok_or_else(|| {
                 Error::input("one course needs its tension").in_origin("--tension")
             })?;
-            LayoutInput::single(pitch, string, tension)?
+            LayoutInput::single(pitch, string, tension, &stock)?
         }
         _ => {
             return Err(Error::input(
@@ -82,6 +86,7 @@ pub fn run(args: LengthsArgs) -> Result<()> {
         .transpose()?;
     let report = layout::lay_out(
         &input,
+        &stock,
         &LayoutOptions {
             tuning: args.tuning.clone(),
             tension,

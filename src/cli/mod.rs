@@ -6,6 +6,7 @@ mod convert;
 mod lengths;
 mod output;
 mod plan;
+mod stock;
 mod text;
 mod tuning;
 

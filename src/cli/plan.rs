@@ -14,6 +14,7 @@ use taut::units::{ForceUnit, LengthUnit};
 pub use render::DisplayUnits;
 
 use super::output;
+use super::stock::StockArgs;
 
 /// Output formats of a plan.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -68,10 +69,8 @@ pub struct PlanArgs {
     /// or a window such as `60N..90N`.
     #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
     pub tension: Option<String>,
-    /// A stock file: extra materials, gauge catalogs and string kinds (e.g. the strings on your
-    /// shelf) that the instrument's `kinds` may name. May be given more than once.
-    #[arg(long, value_name = "FILE")]
-    pub stock: Vec<PathBuf>,
+    #[command(flatten)]
+    pub stock: StockArgs,
     /// Show tensions in newtons and this unit.
     #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
     pub force_unit: ForceChoice,
@@ -100,12 +99,13 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         })
         .transpose()?;
     let instrument = Instrument::load(&args.instrument)?;
+    let stock = args.stock.load()?;
     let plan = solve::plan(
         &instrument,
+        &stock,
         &SolveOptions {
             tuning: args.tuning.clone(),
             tension,
-            stock_files: args.stock.clone(),
         },
     )?;
     if let Some(path) = &args.save_set {

@@ -3,7 +3,7 @@
 
 use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
 
-use taut::warning::{Severity, Warning};
+use taut::warning::{Severity, Warning, SAFETY_REMINDER};
 
 /// A fresh table in the project's style: borders only, columns as wide as their content.
 pub fn new_table(header: Vec<&str>) -> Table {
@@ -49,7 +49,8 @@ pub fn severity_flag(severity: Severity) -> &'static str {
     }
 }
 
-/// The warnings list and, when given, the safety cautions, as text below a table.
+/// The warnings list and the safety cautions (the full list when given, else the one-line
+/// reminder), as text below a table.
 pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>]) -> String {
     let mut out = String::new();
     if warnings.is_empty() {
@@ -65,7 +66,10 @@ pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>])
             ));
         }
     }
-    if !cautions.is_empty() {
+    if cautions.is_empty() {
+        out.push_str(SAFETY_REMINDER);
+        out.push('\n');
+    } else {
         out.push_str("\nBefore you string this up:\n");
         for caution in cautions {
             out.push_str(&format!("  - {}\n", caution.as_ref()));
