@@ -4,9 +4,13 @@
 
 use libfuzzer_sys::fuzz_target;
 use taut::set::StringSet;
+use taut::stock::Stock;
 
 fuzz_target!(|text: &str| {
-    if let Err(err) = StringSet::from_text(text.to_string(), "fuzz.yaml") {
+    let Ok(stock) = Stock::builtin() else {
+        panic!("the shipped string data must load");
+    };
+    if let Err(err) = StringSet::from_text(text.to_string(), "fuzz.yaml", &stock) {
         assert_eq!(err.exit_code(), taut::error::EXIT_BAD_INPUT, "{err}");
     }
 });
