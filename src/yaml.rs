@@ -486,7 +486,9 @@ fn locate_in_item(
     // Replace the item's dash by a space, so the item reads as a plain mapping.
     let mut owned: Vec<String> = lines[start..end].iter().map(|l| l.to_string()).collect();
     if let Some(first) = owned.first_mut() {
-        if first.len() > dash_indent {
+        // Only when the dash really sits there: `trim_start` also skips non-ASCII blanks
+        // (U+0085), which `leading` does not count, and cutting inside one would panic.
+        if first.as_bytes().get(dash_indent) == Some(&b'-') {
             first.replace_range(dash_indent..dash_indent + 1, " ");
         }
     }
