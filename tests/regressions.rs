@@ -222,3 +222,32 @@ fn a_scalar_where_a_mapping_belongs_says_mapping() {
     );
     assert!(!stderr.contains("struct"), "{stderr}");
 }
+
+// ---------------------------------------------------------------------------------------------
+// Found by fuzzing (tests/fuzz)
+// ---------------------------------------------------------------------------------------------
+
+/// Fuzz target `layout_file`, crash-7530d63f…: a list item indented by U+0085 (NEL) and two
+/// spaces. `yaml::locate` took the NEL for indentation when finding the dash but not when
+/// counting columns, then cut the line inside the two-byte NEL: "end of range should be a
+/// character boundary" (a panic, exit 101).
+const NEL_INDENTED_ITEM: &[u8] =
+    b"# Lengthse psaltery, tep: 14%\ncourses:\n\xc2\x85  - {pitc\xc2\x85";
+
+#[test]
+fn list_item_indented_by_a_unicode_blank_does_not_panic() {
+    let text = std::str::from_utf8(NEL_INDENTED_ITEM).expect("UTF-8");
+    let steps = [
+        taut::yaml::PathStep::Key("courses"),
+        taut::yaml::PathStep::Index(0),
+        taut::yaml::PathStep::Key("pitch"),
+    ];
+    let _ = taut::yaml::locate(text, &steps);
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    std::fs::write(dir.path().join("nel.yaml"), NEL_INDENTED_ITEM).expect("write");
+    let output = taut_in(dir.path(), &["lengths", "nel.yaml"]);
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2), "{stderr}");
+    assert!(!stderr.contains("panicked"), "{stderr}");
+    assert!(stderr.starts_with("error: nel.yaml:"), "{stderr}");
+}
