@@ -7,8 +7,9 @@ use std::sync::OnceLock;
 
 use serde::Deserialize;
 
-use crate::error::{did_you_mean, Error, Result};
+use crate::error::{Error, Result};
 use crate::id::Id;
+use crate::registry::{Entry, Registry};
 use crate::units::Length;
 
 /// Largest number of gauges one catalog may hold; a range with a tiny step is a mistake.
@@ -66,16 +67,21 @@ struct CatalogsFile {
     _kinds: Option<serde::de::IgnoredAny>,
 }
 
-/// Gauge catalogs with unique ids.
-#[derive(Debug, Clone, Default)]
-pub struct GaugeCatalogs {
-    list: Vec<GaugeCatalog>,
+/// Gauge catalogs, looked up by id.
+pub type GaugeCatalogs = Registry<GaugeCatalog>;
+
+impl Entry for GaugeCatalog {
+    const NOUN: &'static str = "gauge catalog";
+    const PLURAL: &'static str = "catalogs";
+    fn id(&self) -> &Id {
+        &self.id
+    }
 }
 
 /// The shipped gauge catalogs.
 pub const BUILTIN_GAUGES_YAML: &str = include_str!("data/gauges.yaml");
 
-impl GaugeCatalogs {
+impl Registry<GaugeCatalog> {
     /// The catalogs shipped with `taut`, parsed once.
     pub fn builtin() -> Result<&'static GaugeCatalogs> {
         static BUILTIN: OnceLock<std::result::Result<GaugeCatalogs, String>> = OnceLock::new();
@@ -86,47 +92,6 @@ impl GaugeCatalogs {
             })
             .as_ref()
             .map_err(|message| Error::input(format!("taut's own gauge data is broken: {message}")))
-    }
-
-    /// All catalogs in file order.
-    pub fn all(&self) -> &[GaugeCatalog] {
-        &self.list
-    }
-
-    /// The catalog with this id, or an error that suggests the closest id.
-    pub fn get(&self, id: &str) -> Result<&GaugeCatalog> {
-        if let Some(found) = self.list.iter().find(|c| c.id.as_str() == id) {
-            return Ok(found);
-        }
-        let err = Error::input(format!("unknown gauge catalog `{id}`"));
-        Err(
-            match did_you_mean(id, self.list.iter().map(|c| c.id.as_str())) {
-                Some(best) => err.help(format!("did you mean `{best}`?")),
-                None => err.help(format!(
-                    "known catalogs: {}",
-                    self.list
-                        .iter()
-                        .map(|c| c.id.as_str())
-                        .collect::<Vec<_>>()
-                        .join(", ")
-                )),
-            },
-        )
-    }
-
-    /// Adds catalogs (e.g. a user's shelf), refusing an id that is already taken.
-    pub fn extend(&mut self, more: GaugeCatalogs) -> Result<()> {
-        for catalog in more.list {
-            if self.list.iter().any(|c| c.id == catalog.id) {
-                return Err(Error::input(format!(
-                    "gauge catalog `{}` is already defined",
-                    catalog.id
-                ))
-                .help("choose a new id for your own catalog"));
-            }
-            self.list.push(catalog);
-        }
-        Ok(())
     }
 }
 
@@ -157,7 +122,7 @@ pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
             };
             err.in_origin(origin)
         };
-        if catalogs.list.iter().any(|c| c.id == spec.id) {
+        if catalogs.contains(spec.id.as_str()) {
             return Err(place(
                 Error::input(format!("gauge catalog `{}` appears twice", spec.id)),
                 "id",
@@ -213,7 +178,7 @@ pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
         diameters.sort_by(f64::total_cmp);
         // Ranges meet at their ends (1.00 mm ends one and starts the next): merge near-equal values.
         diameters.dedup_by(|later, earlier| (*later - *earlier).abs() <= 1e-9 * *later);
-        catalogs.list.push(GaugeCatalog {
+        catalogs.push(GaugeCatalog {
             id: spec.id,
             name: spec.name,
             source: spec.source,

@@ -12,11 +12,12 @@ use serde::Deserialize;
 use crate::construction::{
     default_core_ratio, Construction, CoreRatio, Measured, WoundRecipe, DEFAULT_INNER_SHARE,
 };
-use crate::error::{did_you_mean, Error, Result};
+use crate::error::{Error, Result};
 use crate::gauge::GaugeCatalogs;
 use crate::id::Id;
 use crate::material::{Material, Materials};
 use crate::physics::CoreShape;
+use crate::registry::{Entry, Registry};
 use crate::units::{Length, Mass, UnitMass};
 
 /// One available gauge of a kind, with the numbers the selector needs (all SI).
@@ -227,16 +228,21 @@ struct KindsFile {
     _catalogs: Option<serde::de::IgnoredAny>,
 }
 
-/// String kinds with unique ids.
-#[derive(Debug, Clone, Default)]
-pub struct StringKinds {
-    list: Vec<StringKind>,
+/// String kinds, looked up by id.
+pub type StringKinds = Registry<StringKind>;
+
+impl Entry for StringKind {
+    const NOUN: &'static str = "string kind";
+    const PLURAL: &'static str = "kinds";
+    fn id(&self) -> &Id {
+        &self.id
+    }
 }
 
 /// The shipped string kinds.
 pub const BUILTIN_KINDS_YAML: &str = include_str!("data/kinds.yaml");
 
-impl StringKinds {
+impl Registry<StringKind> {
     /// The kinds shipped with `taut`, resolved against the shipped materials and catalogs, once.
     pub fn builtin() -> Result<&'static StringKinds> {
         static BUILTIN: OnceLock<std::result::Result<StringKinds, String>> = OnceLock::new();
@@ -256,46 +262,6 @@ impl StringKinds {
             .map_err(|message| {
                 Error::input(format!("taut's own string kinds are broken: {message}"))
             })
-    }
-
-    /// All kinds in file order.
-    pub fn all(&self) -> &[StringKind] {
-        &self.list
-    }
-
-    /// The kind with this id, or an error that suggests the closest id.
-    pub fn get(&self, id: &str) -> Result<&StringKind> {
-        if let Some(found) = self.list.iter().find(|k| k.id.as_str() == id) {
-            return Ok(found);
-        }
-        let err = Error::input(format!("unknown string kind `{id}`"));
-        Err(
-            match did_you_mean(id, self.list.iter().map(|k| k.id.as_str())) {
-                Some(best) => err.help(format!("did you mean `{best}`?")),
-                None => err.help(format!(
-                    "known kinds: {}",
-                    self.list
-                        .iter()
-                        .map(|k| k.id.as_str())
-                        .collect::<Vec<_>>()
-                        .join(", ")
-                )),
-            },
-        )
-    }
-
-    /// Adds kinds (e.g. from a user's file), refusing an id that is already taken.
-    pub fn extend(&mut self, more: StringKinds) -> Result<()> {
-        for kind in more.list {
-            if self.list.iter().any(|k| k.id == kind.id) {
-                return Err(
-                    Error::input(format!("string kind `{}` is already defined", kind.id))
-                        .help("choose a new id for your own kind"),
-                );
-            }
-            self.list.push(kind);
-        }
-        Ok(())
     }
 }
 
@@ -321,7 +287,7 @@ pub fn load_kinds_file(
             };
             err.in_origin(origin)
         };
-        if kinds.list.iter().any(|k| k.id == spec.id) {
+        if kinds.contains(spec.id.as_str()) {
             return Err(place(
                 Error::input(format!("string kind `{}` appears twice", spec.id)),
                 &["id"],
@@ -481,7 +447,7 @@ pub fn load_kinds_file(
             ));
         }
         kind.gauges = gauges;
-        kinds.list.push(kind);
+        kinds.push(kind);
     }
     Ok(kinds)
 }

@@ -30,6 +30,7 @@ pub mod material;
 pub mod physics;
 pub mod pitch;
 pub mod plan;
+pub mod registry;
 pub mod select;
 pub mod set;
 pub mod solve;

@@ -10,8 +10,9 @@ use std::sync::OnceLock;
 use serde::de::{self, MapAccess, SeqAccess, Visitor};
 use serde::{Deserialize, Deserializer};
 
-use crate::error::{did_you_mean, Error, Result};
+use crate::error::{Error, Result};
 use crate::id::Id;
+use crate::registry::{Entry, Registry};
 use crate::units::{Density, Length, Pressure};
 
 /// A property that may depend on the wire's diameter (strength and modulus of drawn wire do).
@@ -205,13 +206,18 @@ struct MaterialsFile {
     _kinds: Option<serde::de::IgnoredAny>,
 }
 
-/// A set of materials with unique ids, looked up by id.
-#[derive(Debug, Clone, Default)]
-pub struct Materials {
-    list: Vec<Material>,
+/// The materials a solve may use, looked up by id.
+pub type Materials = Registry<Material>;
+
+impl Entry for Material {
+    const NOUN: &'static str = "material";
+    const PLURAL: &'static str = "materials";
+    fn id(&self) -> &Id {
+        &self.id
+    }
 }
 
-impl Materials {
+impl Registry<Material> {
     /// The materials shipped with `taut` (`src/data/materials.yaml`), parsed once.
     pub fn builtin() -> Result<&'static Materials> {
         static BUILTIN: OnceLock<std::result::Result<Materials, String>> = OnceLock::new();
@@ -224,45 +230,6 @@ impl Materials {
             .map_err(|message| {
                 Error::input(format!("taut's own material data is broken: {message}"))
             })
-    }
-
-    /// All materials in file order.
-    pub fn all(&self) -> &[Material] {
-        &self.list
-    }
-
-    /// The material with this id, or an error that suggests the closest id.
-    pub fn get(&self, id: &str) -> Result<&Material> {
-        if let Some(found) = self.list.iter().find(|m| m.id.as_str() == id) {
-            return Ok(found);
-        }
-        let known = self.list.iter().map(|m| m.id.as_str());
-        let err = Error::input(format!("unknown material `{id}`"));
-        Err(match did_you_mean(id, known) {
-            Some(best) => err.help(format!("did you mean `{best}`?")),
-            None => err.help(format!(
-                "known materials: {}",
-                self.list
-                    .iter()
-                    .map(|m| m.id.as_str())
-                    .collect::<Vec<_>>()
-                    .join(", ")
-            )),
-        })
-    }
-
-    /// Adds materials (e.g. from a user's file), refusing an id that is already taken.
-    pub fn extend(&mut self, more: Materials) -> Result<()> {
-        for material in more.list {
-            if self.list.iter().any(|m| m.id == material.id) {
-                return Err(
-                    Error::input(format!("material `{}` is already defined", material.id))
-                        .help("choose a new id for your own material"),
-                );
-            }
-            self.list.push(material);
-        }
-        Ok(())
     }
 }
 
@@ -284,7 +251,7 @@ pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
             )
             .in_origin(origin));
         }
-        if materials.list.iter().any(|m| m.id == material.id) {
+        if materials.contains(material.id.as_str()) {
             return Err(locate(
                 Error::input(format!("material `{}` appears twice", material.id)),
                 text,
@@ -293,7 +260,7 @@ pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
             )
             .in_origin(origin));
         }
-        materials.list.push(material);
+        materials.push(material);
     }
     Ok(materials)
 }
