@@ -406,8 +406,10 @@ pub enum PathStep<'a> {
 }
 
 /// Finds the 1-based line and column of a field in block-style YAML, for errors found after
-/// deserialization (e.g. a pitch the tuning cannot address). Returns `None` where the document
-/// uses flow style or the path is not found; the error then still names the field.
+/// deserialization (e.g. a pitch the tuning cannot address). Where the rest of the path is
+/// written in flow style (`{kind: x}`) or cannot be followed, it returns the deepest ancestor it
+/// found, so the message still points at the right line; `None` only when not even the first
+/// step is there. The error names the full field path in any case.
 pub fn locate(text: &str, path: &[PathStep<'_>]) -> Option<(usize, usize)> {
     let lines: Vec<&str> = text.lines().collect();
     let is_content = |line: &str| {
@@ -419,12 +421,14 @@ pub fn locate(text: &str, path: &[PathStep<'_>]) -> Option<(usize, usize)> {
     let (mut start, mut end) = (0usize, lines.len());
     let mut found = None;
     for (i, step) in path.iter().enumerate() {
-        let first = (start..end).find(|&n| is_content(lines[n]))?;
+        let Some(first) = (start..end).find(|&n| is_content(lines[n])) else {
+            return found;
+        };
         match step {
             PathStep::Key(key) => {
                 // Keys of this mapping sit at the effective indentation of its first line.
                 let key_indent = split_item_prefix(lines[first]).0;
-                let n = (first..end).find(|&n| {
+                let hit = (first..end).find(|&n| {
                     let (indent, body) = split_item_prefix(lines[n]);
                     indent == key_indent
                         && body
@@ -435,7 +439,10 @@ pub fn locate(text: &str, path: &[PathStep<'_>]) -> Option<(usize, usize)> {
                                     .starts_with(':')
                             })
                             .unwrap_or(false)
-                })?;
+                });
+                let Some(n) = hit else {
+                    return found;
+                };
                 found = Some((n + 1, key_indent + 1));
                 let own = leading(lines[n]);
                 let block_end = (n + 1..end)
@@ -455,14 +462,16 @@ pub fn locate(text: &str, path: &[PathStep<'_>]) -> Option<(usize, usize)> {
             PathStep::Index(wanted) => {
                 let dash_indent = leading(lines[first]);
                 if !lines[first].trim_start().starts_with('-') {
-                    return None;
+                    return found;
                 }
                 let items: Vec<usize> = (first..end)
                     .filter(|&n| {
                         leading(lines[n]) == dash_indent && lines[n].trim_start().starts_with('-')
                     })
                     .collect();
-                let n = *items.get(*wanted)?;
+                let Some(&n) = items.get(*wanted) else {
+                    return found;
+                };
                 let item_end = items.get(wanted + 1).copied().unwrap_or(end);
                 let found = Some((n + 1, dash_indent + 3));
                 return locate_in_item(&lines, n, item_end, dash_indent, &path[i + 1..]).or(found);
@@ -618,5 +627,20 @@ mod tests {
             Some((3, 5))
         );
         assert_eq!(locate(text, &[PathStep::Key("missing")]), None);
+        // Flow style below a block key: the deepest block-style ancestor is reported.
+        let flow = "name: x\ncourses:\n  - course: 1\n    strings: [{kind: a}]\n";
+        assert_eq!(
+            locate(
+                flow,
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(0),
+                    PathStep::Key("strings"),
+                    PathStep::Index(0),
+                    PathStep::Key("kind")
+                ]
+            ),
+            Some((4, 5))
+        );
     }
 }

@@ -231,7 +231,7 @@ fn lengths_audit_and_convert_take_stock_files_too() {
             set.to_str().unwrap(),
         ]);
         assert!(
-            stderr.contains("set.yaml:")
+            stderr.contains("set.yaml:4:")
                 && stderr.contains("courses[0].strings[0].kind")
                 && stderr.contains("drawer-nylon"),
             "{stderr}"

@@ -301,9 +301,10 @@ fn bad_user_kinds_are_named_by_file_line_and_field() {
     let err = load_kinds_file(&weak_core, "k.yaml", materials, catalogs)
         .unwrap_err()
         .to_string();
-    // Inside flow-style braces the entry's line is reported and the field names the key.
+    // Inside flow-style braces the line of the nearest block-style key (`core:`) is reported and
+    // the field names the key.
     assert!(
-        err.starts_with("k.yaml:2:")
+        err.starts_with("k.yaml:5:")
             && err.contains("kinds[0].wound.core.material")
             && err.contains("no breaking strength"),
         "{err}"
