@@ -20,8 +20,6 @@
 //! **yes** otherwise. These figures are a planning aid; the instrument maker's specifications
 //! come first.
 
-use std::str::FromStr;
-
 use serde::Serialize;
 
 use crate::error::{Error, Result};
@@ -30,7 +28,7 @@ use crate::instrument::{CourseInput, CourseString, Instrument};
 use crate::kind::StringKinds;
 use crate::material::Materials;
 use crate::physics;
-use crate::pitch::{nearest_note_name, PitchSpec};
+use crate::plan::CoursePitch;
 use crate::select::{self, Checks, StressLimits, Warnings};
 use crate::set::{ResolvedString, SetString, StringSet};
 use crate::stock::Stock;
@@ -116,16 +114,10 @@ pub struct Audit {
 pub struct AuditCourse {
     /// The course number.
     pub course: u32,
-    /// The pitch as written in the instrument file.
-    pub pitch: String,
-    /// The tuning's label for it.
-    pub pitch_label: String,
-    /// Nearest 12-tone note name.
-    pub note_name: String,
-    /// Offset from that note, cents.
-    pub note_offset_cents: f64,
-    /// The course's frequency, Hz.
-    pub pitch_hz: f64,
+    /// The course's pitch, written and resolved (flattened: `pitch`, `pitch_label`,
+    /// `note_name`, `note_offset_cents`, `pitch_hz`).
+    #[serde(flatten)]
+    pub pitch: CoursePitch,
     /// Vibrating length, m.
     pub length_m: f64,
     /// The installed strings.
@@ -165,42 +157,6 @@ pub struct AuditString {
     pub break_pitch_hz: Option<f64>,
     /// Stiffness and feel.
     pub feel: Feel,
-}
-
-/// A course's pitch resolved through a tuning, for audit and conversion.
-#[derive(Debug, Clone)]
-pub(crate) struct CoursePitch {
-    pub(crate) hz: f64,
-    pub(crate) label: String,
-    pub(crate) note_name: String,
-    pub(crate) note_offset_cents: f64,
-}
-
-/// Resolves the pitch of an instrument course, pointing errors at its line.
-pub(crate) fn course_pitch(
-    instrument: &Instrument,
-    course: &CourseInput<'_>,
-    tuning: &Tuning,
-) -> Result<CoursePitch> {
-    let resolved = PitchSpec::from_str(course.pitch)
-        .and_then(|spec| tuning.resolve(&spec))
-        .map_err(|err| {
-            instrument.point(
-                err,
-                &[
-                    PathStep::Key("courses"),
-                    PathStep::Index(course.index),
-                    PathStep::Key("pitch"),
-                ],
-            )
-        })?;
-    let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
-    Ok(CoursePitch {
-        hz: resolved.hz,
-        label: resolved.label,
-        note_name,
-        note_offset_cents,
-    })
 }
 
 /// The instrument's stress limits (its own, or the selector's defaults).
@@ -335,7 +291,7 @@ pub fn audit(
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
         let strings = set_strings(set, instrument, &course, kinds, materials)?
             .ok_or_else(|| missing_course(set, instrument, course.number))?;
-        let pitch = course_pitch(instrument, &course, tuning)?;
+        let pitch = instrument.course_pitch(&course, tuning)?;
         let mut now = None;
         if let Some(reference) = reference {
             let found = (0..reference.instrument.courses.len())
@@ -343,7 +299,7 @@ pub fn audit(
                 .and_then(|i| reference.instrument.course_input(i, None));
             if let Some(old) = found {
                 if old.strings.len() == course.strings.len() {
-                    let old_pitch = course_pitch(reference.instrument, &old, reference.tuning)?;
+                    let old_pitch = reference.instrument.course_pitch(&old, reference.tuning)?;
                     now = Some((old_pitch, old.length_m, old.strings));
                 }
             }
@@ -540,11 +496,7 @@ fn audit_course(
     };
     AuditCourse {
         course: course.number,
-        pitch: course.pitch.to_string(),
-        pitch_label: pitch.label.clone(),
-        note_name: pitch.note_name.clone(),
-        note_offset_cents: pitch.note_offset_cents,
-        pitch_hz: pitch.hz,
+        pitch: pitch.clone(),
         length_m: course.length_m,
         strings: out,
         verdict,

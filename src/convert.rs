@@ -36,8 +36,7 @@
 use serde::Serialize;
 
 use crate::audit::{
-    cautions_for, check_no_extra_courses, course_pitch, missing_course, set_strings, stress_limits,
-    CoursePitch,
+    cautions_for, check_no_extra_courses, missing_course, set_strings, stress_limits,
 };
 use crate::construction::Construction;
 use crate::error::{Error, Result};
@@ -46,6 +45,7 @@ use crate::instrument::{CourseInput, Instrument, TensionSpec};
 use crate::kind::{StringKind, StringKinds};
 use crate::material::Materials;
 use crate::physics;
+use crate::plan::CoursePitch;
 use crate::select::{self, Checks, Request, StressLimits, Warnings};
 use crate::set::{SetCourse, SetString, StringSet};
 use crate::solve::gauge_label;
@@ -281,7 +281,7 @@ pub fn convert(
             .course_input(index, None)
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
         let strings = installed(set, before, &course, kinds, materials)?;
-        let pitch = course_pitch(before, &course, tuning_before)?;
+        let pitch = before.course_pitch(&course, tuning_before)?;
         for ((_, construction, _), layout) in strings.iter().zip(course.strings) {
             total_before_n += physics::tension(
                 construction.unit_mass(),
@@ -295,7 +295,7 @@ pub fn convert(
         let course = after
             .course_input(index, options.target.as_ref())
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
-        let pitch = course_pitch(after, &course, tuning_after)?;
+        let pitch = after.course_pitch(&course, tuning_after)?;
         let placed_after = Placed {
             length_m: options.scale_length.unwrap_or(course.length_m),
             course,
@@ -309,7 +309,7 @@ pub fn convert(
                     .course_input(i, None)
                     .ok_or_else(|| Error::input("a course has no vibrating length"))?;
                 Some(Placed {
-                    pitch: course_pitch(before, &old, tuning_before)?,
+                    pitch: before.course_pitch(&old, tuning_before)?,
                     length_m: old.length_m,
                     course: old,
                 })

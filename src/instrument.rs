@@ -23,6 +23,8 @@ pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 
 use crate::error::{did_you_mean, Error, Result};
+use crate::plan::CoursePitch;
+use crate::tuning::Tuning;
 use crate::units::{Force, Length};
 use crate::yaml::{self, PathStep};
 
@@ -341,6 +343,20 @@ impl Instrument {
     /// Where this definition came from (a path or a template label).
     pub fn origin(&self) -> &str {
         &self.origin
+    }
+
+    /// Resolves a course's pitch in `tuning`, pointing errors at the course's `pitch` line.
+    pub fn course_pitch(&self, course: &CourseInput<'_>, tuning: &Tuning) -> Result<CoursePitch> {
+        CoursePitch::resolve(course.pitch, tuning).map_err(|err| {
+            self.point(
+                err,
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(course.index),
+                    PathStep::Key("pitch"),
+                ],
+            )
+        })
     }
 
     /// Attaches this file's name and, where found, the line of `path` to an error.

@@ -31,7 +31,6 @@
 //! fold-back, which a straight or gently curved bridge cannot follow.
 
 use std::path::Path;
-use std::str::FromStr;
 
 use serde::{Deserialize, Serialize};
 
@@ -40,7 +39,7 @@ use crate::error::{Error, Result};
 use crate::feel::{self, Feel, FeelOptions};
 use crate::instrument::{field_name, Percent, TensionSpec};
 use crate::physics;
-use crate::pitch::{nearest_note_name, PitchSpec};
+use crate::plan::CoursePitch;
 use crate::select::{self, Checks, StressLimits, Warnings};
 use crate::set::{check_entry, SetString, StringEntryFile};
 use crate::stock::Stock;
@@ -138,16 +137,10 @@ pub struct Layout {
 pub struct LayoutCourse {
     /// Course number.
     pub course: u32,
-    /// Pitch as written.
-    pub pitch: String,
-    /// The tuning's label for it.
-    pub pitch_label: String,
-    /// Nearest 12-tone note name.
-    pub note_name: String,
-    /// Cents from that note to the pitch.
-    pub note_offset_cents: f64,
-    /// Frequency, Hz.
-    pub pitch_hz: f64,
+    /// The course's pitch, written and resolved (flattened: `pitch`, `pitch_label`,
+    /// `note_name`, `note_offset_cents`, `pitch_hz`).
+    #[serde(flatten)]
+    pub pitch: CoursePitch,
     /// The string (kind id, or measured).
     pub string: String,
     /// Outer diameter, mm, if known.
@@ -386,8 +379,7 @@ pub fn solve_layout(
                 PathStep::Key(key),
             ]
         };
-        let resolved = PitchSpec::from_str(&course.pitch)
-            .and_then(|spec| tuning.resolve(&spec))
+        let resolved = CoursePitch::resolve(&course.pitch, tuning)
             .map_err(|err| input.point(err, &at_key("pitch")))?;
         let position = if count > 1 {
             index as f64 / (count - 1) as f64
@@ -471,7 +463,7 @@ pub fn solve_layout(
                     ),
                 });
             }
-            let pitch_direction = resolved.hz - previous.pitch_hz;
+            let pitch_direction = resolved.hz - previous.pitch.hz;
             let length_direction = length_m - previous.length_m;
             if pitch_direction * length_direction > 0.0
                 && (length_m / previous.length_m - 1.0).abs() > FOLD_BACK_TOLERANCE
@@ -493,15 +485,10 @@ pub fn solve_layout(
                 });
             }
         }
-        let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
         let diameter = course.string.diameter();
         courses.push(LayoutCourse {
             course: course.course,
-            pitch: course.pitch.clone(),
-            pitch_label: resolved.label,
-            note_name,
-            note_offset_cents,
-            pitch_hz: resolved.hz,
+            pitch: resolved,
             string: course.string.label(),
             diameter_mm: diameter.map(|d| d * 1000.0),
             diameter_in: diameter.map(|d| d / METRES_PER_INCH),

@@ -6,6 +6,11 @@
 
 use serde::{Deserialize, Serialize};
 
+use std::str::FromStr;
+
+use crate::error::Result;
+use crate::pitch::{nearest_note_name, PitchSpec};
+use crate::tuning::Tuning;
 use crate::warning::{Severity, Warning};
 
 /// A solved instrument.
@@ -30,21 +35,50 @@ pub struct Plan {
     pub warnings: Vec<Warning>,
 }
 
+/// A course's pitch as written and as resolved in the tuning. Every report carries one, under
+/// the same JSON names.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct CoursePitch {
+    /// The pitch as written in the instrument file.
+    #[serde(rename = "pitch")]
+    pub written: String,
+    /// The tuning's own label for the pitch (e.g. a degree).
+    #[serde(rename = "pitch_label")]
+    pub label: String,
+    /// The nearest 12-tone note name at the tuning's concert pitch, e.g. `E4`.
+    pub note_name: String,
+    /// Offset from that note in cents.
+    pub note_offset_cents: f64,
+    /// The frequency in hertz.
+    #[serde(rename = "pitch_hz")]
+    pub hz: f64,
+}
+
+impl CoursePitch {
+    /// Resolves `written` in `tuning` and names the nearest 12-tone note. Errors carry no
+    /// location; the caller points them at the file's line.
+    pub fn resolve(written: &str, tuning: &Tuning) -> Result<CoursePitch> {
+        let resolved = tuning.resolve(&PitchSpec::from_str(written)?)?;
+        let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
+        Ok(CoursePitch {
+            written: written.to_string(),
+            label: resolved.label,
+            note_name,
+            note_offset_cents,
+            hz: resolved.hz,
+        })
+    }
+}
+
 /// One course of the plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct CoursePlan {
     /// The course number.
     pub course: u32,
-    /// The pitch as written in the instrument file.
-    pub pitch: String,
-    /// The tuning's own label for the pitch (e.g. a degree).
-    pub pitch_label: String,
-    /// The nearest 12-tone note name at the tuning's concert pitch, e.g. `E4`.
-    pub note_name: String,
-    /// Offset from that note in cents.
-    pub note_offset_cents: f64,
-    /// The course's frequency in hertz.
-    pub pitch_hz: f64,
+    /// The course's pitch, written and resolved (flattened: `pitch`, `pitch_label`,
+    /// `note_name`, `note_offset_cents`, `pitch_hz`).
+    #[serde(flatten)]
+    pub pitch: CoursePitch,
     /// Vibrating length in metres.
     pub length_m: f64,
     /// The strings of the course, in the order the file lists them.

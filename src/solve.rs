@@ -8,12 +8,10 @@
 //! is one buffer reused for every string, so solving a course allocates only its output.
 
 use std::ops::Range;
-use std::str::FromStr;
 
 use crate::error::{Error, Result};
 use crate::instrument::{field_name, CourseInput, Instrument, TensionSpec};
 use crate::kind::{KindBuild, StringKind, StringKinds};
-use crate::pitch::{nearest_note_name, PitchSpec};
 use crate::plan::{Alternatives, CoursePlan, Plan, StringChoice, StringPlan};
 use crate::select::{self, Checks, Choice, Request, StressLimits, Warnings};
 use crate::stock::Stock;
@@ -263,9 +261,7 @@ impl CourseContext<'_> {
         best_per_kind: &mut [Option<Choice>],
     ) -> Result<CoursePlan> {
         let course = self.course;
-        let resolved = PitchSpec::from_str(course.pitch)
-            .and_then(|spec| self.tuning.resolve(&spec))
-            .map_err(|err| self.instrument.point(err, &self.path("pitch")))?;
+        let resolved = self.instrument.course_pitch(&course, self.tuning)?;
         let goal = course.tension.ok_or_else(|| {
             self.instrument.point(
                 Error::input(format!("course {} has no tension target", course.number))
@@ -274,8 +270,6 @@ impl CourseContext<'_> {
                 &[PathStep::Key("courses"), PathStep::Index(course.index)],
             )
         })?;
-        let (note_name, note_offset_cents) =
-            nearest_note_name(resolved.hz, self.tuning.concert_a4_hz());
         let mut strings = Vec::with_capacity(course.strings.len());
         let mut warnings = Vec::new();
         for (string_index, (string, range)) in course.strings.iter().zip(ranges).enumerate() {
@@ -347,11 +341,7 @@ impl CourseContext<'_> {
         }
         Ok(CoursePlan {
             course: course.number,
-            pitch: course.pitch.to_string(),
-            pitch_label: resolved.label,
-            note_name,
-            note_offset_cents,
-            pitch_hz: resolved.hz,
+            pitch: resolved,
             length_m: course.length_m,
             strings,
             warnings,

@@ -65,10 +65,10 @@ proptest! {
         ).unwrap();
         let layout = lay_out(&input, Stock::builtin().unwrap(), &LayoutOptions::default()).unwrap();
         let course = &layout.courses[0];
-        let back = physics::tension(course.unit_mass_kg_per_m, course.length_m, course.pitch_hz);
+        let back = physics::tension(course.unit_mass_kg_per_m, course.length_m, course.pitch.hz);
         prop_assert!((back / tension - 1.0).abs() < 1e-12, "{back} vs {tension}");
         let f = physics::frequency(tension, course.unit_mass_kg_per_m, course.length_m);
-        prop_assert!((f / course.pitch_hz - 1.0).abs() < 1e-12);
+        prop_assert!((f / course.pitch.hz - 1.0).abs() < 1e-12);
     }
 }
 

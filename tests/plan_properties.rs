@@ -43,7 +43,7 @@ proptest! {
     ) {
         let plan = solve_text(one_course(hz, length_mm, tension_n, kinds, ""));
         let course = &plan.courses[0];
-        prop_assert!((course.pitch_hz / hz - 1.0).abs() < 1e-12);
+        prop_assert!((course.pitch.hz / hz - 1.0).abs() < 1e-12);
         let ratios = [1.0, 0.5, 1.5];
         for (string, ratio) in course.strings.iter().zip(ratios) {
             let choice = &string.choice;

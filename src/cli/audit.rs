@@ -16,7 +16,7 @@ use taut::units::{Force, Length};
 
 use super::output::{self, OutputArgs, Render};
 use super::stock::StockArgs;
-use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
 #[derive(Debug, Clone, Args)]
@@ -192,11 +192,7 @@ impl Render for Audit {
                         String::new()
                     }),
                     Cell::new(if first {
-                        pitch_with_note(
-                            &course.pitch_label,
-                            &course.note_name,
-                            course.note_offset_cents,
-                        )
+                        course_pitch_text(&course.pitch)
                     } else {
                         format!("  {}", string.interval)
                     }),

@@ -13,7 +13,7 @@ use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
 use super::stock::StockArgs;
-use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
 
 /// Arguments of `taut lengths`.
 #[derive(Debug, Args)]
@@ -119,12 +119,8 @@ impl Render for Layout {
             let jumped = self.jumps.iter().any(|j| j.to_course == course.course);
             table.add_row(vec![
                 right(course.course.to_string()),
-                Cell::new(pitch_with_note(
-                    &course.pitch_label,
-                    &course.note_name,
-                    course.note_offset_cents,
-                )),
-                right(format!("{:.2}", course.pitch_hz)),
+                Cell::new(course_pitch_text(&course.pitch)),
+                right(format!("{:.2}", course.pitch.hz)),
                 Cell::new(&course.string),
                 right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
                 right(format!("{:.1}", course.tension_n)),

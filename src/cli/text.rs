@@ -3,6 +3,7 @@
 
 use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
 
+use taut::plan::CoursePitch;
 use taut::warning::{Severity, Warning, SAFETY_REMINDER};
 
 /// A fresh table in the project's style: borders only, columns as wide as their content.
@@ -38,6 +39,11 @@ pub fn pitch_with_note(label: &str, note_name: &str, note_offset_cents: f64) -> 
     } else {
         format!("{label} ({note})")
     }
+}
+
+/// A course's pitch as written, with the nearest 12-EDO note when that adds something.
+pub fn course_pitch_text(pitch: &CoursePitch) -> String {
+    pitch_with_note(&pitch.label, &pitch.note_name, pitch.note_offset_cents)
 }
 
 /// The short flag shown for a severity.

@@ -9,7 +9,7 @@ use taut::plan::{CoursePlan, Plan};
 use taut::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
 use taut::warning::{Severity, SAFETY_CAUTIONS};
 
-use crate::cli::text::{new_table, pitch_with_note, right, severity_flag, warnings_and_cautions};
+use crate::cli::text::{course_pitch_text, new_table, right, severity_flag, warnings_and_cautions};
 
 /// How quantities are shown in the table.
 #[derive(Debug, Clone, Copy)]
@@ -59,11 +59,7 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
             let number = index + 1;
             let first = index == 0;
             let pitch = if first {
-                pitch_with_note(
-                    &course.pitch_label,
-                    &course.note_name,
-                    course.note_offset_cents,
-                )
+                course_pitch_text(&course.pitch)
             } else {
                 format!("  {}", string.interval)
             };
@@ -171,8 +167,8 @@ pub fn csv(plan: &Plan) -> Result<String> {
                     course: course.course,
                     string: index + 1,
                     interval: &string.interval,
-                    pitch: &course.pitch,
-                    note_name: &course.note_name,
+                    pitch: &course.pitch.written,
+                    note_name: &course.pitch.note_name,
                     pitch_hz: string.pitch_hz,
                     length_m: course.length_m,
                     kind: &string.choice.kind,

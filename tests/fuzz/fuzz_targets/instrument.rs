@@ -25,7 +25,7 @@ fuzz_target!(|text: &str| {
         Ok(plan) => {
             assert!(plan.total_tension_n.is_finite(), "total {}", plan.total_tension_n);
             for course in &plan.courses {
-                assert!(course.pitch_hz.is_finite() && course.pitch_hz > 0.0);
+                assert!(course.pitch.hz.is_finite() && course.pitch.hz > 0.0);
                 assert!(course.length_m.is_finite() && course.length_m > 0.0);
                 for string in &course.strings {
                     assert!(string.choice.tension_n.is_finite());
