@@ -1,12 +1,10 @@
 //! `taut audit`: verdicts, warnings that fire and do not fire, totals, safety cautions.
 
-use assert_cmd::Command;
+mod common;
+
+use common::taut;
 use predicates::prelude::*;
 use serde_json::Value;
-
-fn taut() -> Command {
-    Command::cargo_bin("taut").unwrap()
-}
 
 fn audit(extra: &[&str]) -> Value {
     let output = taut()

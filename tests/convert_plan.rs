@@ -1,6 +1,8 @@
 //! `taut convert`: keeping the feel, the same-tuning identity, nut-slot flags, total load.
 
-use assert_cmd::Command;
+mod common;
+
+use common::{json, taut};
 use predicates::prelude::*;
 use proptest::prelude::*;
 use serde_json::Value;
@@ -10,24 +12,6 @@ use taut::instrument::Instrument;
 use taut::set::{SetString, StringSet};
 use taut::stock::Stock;
 use taut::tuning;
-
-fn taut() -> Command {
-    Command::cargo_bin("taut").unwrap()
-}
-
-fn json(args: &[&str]) -> Value {
-    let output = taut()
-        .args(args)
-        .args(["--format", "json"])
-        .output()
-        .unwrap();
-    assert!(
-        output.status.success(),
-        "{}",
-        String::from_utf8_lossy(&output.stderr)
-    );
-    serde_json::from_slice(&output.stdout).unwrap()
-}
 
 fn kinds(report: &Value) -> Vec<(String, String)> {
     report["warnings"]

@@ -1,32 +1,15 @@
 //! `taut lengths`: the length solve, its inverse, jumps, and bad input.
 
-use assert_cmd::Command;
+mod common;
+
+use common::{json, taut};
 use predicates::prelude::*;
 use proptest::prelude::*;
-use serde_json::Value;
 
 use taut::instrument::TensionSpec;
 use taut::layout::{lay_out, LayoutInput, LayoutOptions};
 use taut::physics;
 use taut::stock::Stock;
-
-fn taut() -> Command {
-    Command::cargo_bin("taut").unwrap()
-}
-
-fn json(args: &[&str]) -> Value {
-    let output = taut()
-        .args(args)
-        .args(["--format", "json"])
-        .output()
-        .unwrap();
-    assert!(
-        output.status.success(),
-        "{}",
-        String::from_utf8_lossy(&output.stderr)
-    );
-    serde_json::from_slice(&output.stdout).unwrap()
-}
 
 /// A 0.010 in plain steel string at E4 on a 648 mm scale carries ≈ 72.6 N (REFERENCES §1.2,
 /// DERIVED from the handbook density 7850 kg/m³; common practice agrees). Asking for that

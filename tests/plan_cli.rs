@@ -1,7 +1,9 @@
 //! `taut plan` run as a real binary: every shipped example, the outside check on a plain steel
 //! string, the JSON field names, output files and bad input.
 
-use assert_cmd::Command;
+mod common;
+
+use common::taut;
 use predicates::prelude::*;
 use serde_json::Value;
 
@@ -11,10 +13,6 @@ const TEMPLATES: [&str; 4] = [
     "psaltery-26",
     "fanned-8-just",
 ];
-
-fn taut() -> Command {
-    Command::cargo_bin("taut").unwrap()
-}
 
 fn write(dir: &tempfile::TempDir, name: &str, text: &str) -> String {
     let path = dir.path().join(name);
