@@ -39,14 +39,21 @@ pub struct SolveOptions {
 /// Loads the tuning the options or the instrument name (or [`DEFAULT_TUNING`]) and solves.
 /// `stock` holds the string kinds to choose from ([`Stock::builtin`] for the shipped ones).
 pub fn plan(instrument: &Instrument, stock: &Stock, options: &SolveOptions) -> Result<Plan> {
-    let tuning = match (&options.tuning, &instrument.tuning) {
-        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
-        (None, Some(spec)) => {
-            tuning::load(spec).map_err(|err| instrument.point(err, &[PathStep::Key("tuning")]))?
-        }
-        (None, None) => tuning::load(DEFAULT_TUNING)?,
-    };
+    let tuning = tuning_for(instrument, options.tuning.as_deref(), "--tuning")?;
     solve(instrument, &tuning, stock.kinds(), options.tension.as_ref())
+}
+
+/// The tuning to use for `instrument`: the one given on the command line as `flag` (errors
+/// name the flag), else the file's own `tuning:` (errors point at its line), else
+/// [`DEFAULT_TUNING`].
+pub fn tuning_for(instrument: &Instrument, given: Option<&str>, flag: &str) -> Result<Tuning> {
+    match (given, &instrument.tuning) {
+        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin(flag)),
+        (None, Some(spec)) => {
+            tuning::load(spec).map_err(|err| instrument.point(err, &[PathStep::Key("tuning")]))
+        }
+        (None, None) => tuning::load(DEFAULT_TUNING),
+    }
 }
 
 /// Solves every course of `instrument` in `tuning` with strings of `kinds`; `tension` replaces

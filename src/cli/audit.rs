@@ -15,8 +15,10 @@ use taut::tuning;
 use taut::units::{Force, Length};
 
 use super::output::{self, OutputArgs, Render};
+use super::parse_flag;
 use super::stock::StockArgs;
 use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
+use taut::solve::tuning_for;
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
 #[derive(Debug, Clone, Args)]
@@ -117,14 +119,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let set = StringSet::load(&args.set, &stock)?;
-    let own = instrument.tuning.clone();
-    let tuning = match (&args.tuning, &own) {
-        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--tuning"))?,
-        (None, Some(spec)) => {
-            tuning::load(spec).map_err(|err| err.in_origin(instrument.origin().to_string()))?
-        }
-        (None, None) => tuning::load(taut::solve::DEFAULT_TUNING)?,
-    };
+    let tuning = tuning_for(&instrument, args.tuning.as_deref(), "--tuning")?;
     let now_instrument = match &args.from_instrument {
         Some(spec) => {
             Some(Instrument::load(spec).map_err(|err| err.in_origin("--from-instrument"))?)
@@ -144,13 +139,8 @@ pub fn run(args: AuditArgs) -> Result<()> {
         instrument: now,
         tuning,
     });
-    let max_change = match &args.max_change {
-        Some(text) => text
-            .parse::<Percent>()
-            .map(Percent::fraction)
-            .map_err(|err| err.in_origin("--max-change"))?,
-        None => DEFAULT_MAX_CHANGE,
-    };
+    let max_change = parse_flag::<Percent>(args.max_change.as_deref(), "--max-change")?
+        .map_or(DEFAULT_MAX_CHANGE, Percent::fraction);
     let report = audit::audit(
         &instrument,
         &set,

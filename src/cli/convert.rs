@@ -11,13 +11,14 @@ use taut::error::{Error, Result};
 use taut::feel;
 use taut::instrument::{Instrument, Percent, TensionSpec};
 use taut::set::StringSet;
-use taut::tuning;
 use taut::units::Length;
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::parse_flag;
 use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+use taut::solve::tuning_for;
 
 /// Arguments of `taut convert`.
 #[derive(Debug, Args)]
@@ -71,13 +72,7 @@ pub struct ConvertArgs {
 }
 
 fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
-    text.as_deref()
-        .map(|t| {
-            t.parse::<Length>()
-                .map(Length::si)
-                .map_err(|err| err.in_origin(flag.to_string()))
-        })
-        .transpose()
+    Ok(parse_flag::<Length>(text.as_deref(), flag)?.map(Length::si))
 }
 
 /// Runs `taut convert`.
@@ -89,35 +84,19 @@ pub fn run(args: ConvertArgs) -> Result<()> {
     };
     let stock = args.stock.load()?;
     let set = StringSet::load(&args.set, &stock)?;
-    let tuning_before = match (&args.from, &before.tuning) {
-        (Some(spec), _) => tuning::load(spec).map_err(|err| err.in_origin("--from"))?,
-        (None, Some(spec)) => {
-            tuning::load(spec).map_err(|err| err.in_origin(before.origin().to_string()))?
-        }
-        (None, None) => tuning::load(taut::solve::DEFAULT_TUNING)?,
+    let tuning_before = tuning_for(&before, args.from.as_deref(), "--from")?;
+    // Without --to, the strings stay in the tuning they are in now unless a new instrument file
+    // names its own.
+    let keeps_tuning =
+        args.to.is_none() && (args.to_instrument.is_none() || after.tuning.is_none());
+    let tuning_after = if keeps_tuning {
+        tuning_before.clone()
+    } else {
+        tuning_for(&after, args.to.as_deref(), "--to")?
     };
-    let tuning_after = match (&args.to, &args.to_instrument, &after.tuning) {
-        (Some(spec), _, _) => tuning::load(spec).map_err(|err| err.in_origin("--to"))?,
-        (None, Some(_), Some(spec)) => {
-            tuning::load(spec).map_err(|err| err.in_origin(after.origin().to_string()))?
-        }
-        _ => tuning_before.clone(),
-    };
-    let target = args
-        .tension
-        .as_deref()
-        .map(|text| {
-            text.parse::<TensionSpec>()
-                .map_err(|err| err.in_origin("--tension"))
-        })
-        .transpose()?;
-    let tolerance = match &args.tolerance {
-        Some(text) => text
-            .parse::<Percent>()
-            .map(Percent::fraction)
-            .map_err(|err| err.in_origin("--tolerance"))?,
-        None => taut::select::DEFAULT_TOLERANCE,
-    };
+    let target: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
+    let tolerance = parse_flag::<Percent>(args.tolerance.as_deref(), "--tolerance")?
+        .map_or(taut::select::DEFAULT_TOLERANCE, Percent::fraction);
     if tolerance >= 1.0 {
         return Err(Error::input("the tolerance must be below 100%").in_origin("--tolerance"));
     }

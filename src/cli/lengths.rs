@@ -12,6 +12,7 @@ use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
+use super::parse_flag;
 use super::stock::StockArgs;
 use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
 
@@ -52,14 +53,7 @@ pub struct LengthsArgs {
 
 /// Runs `taut lengths`.
 pub fn run(args: LengthsArgs) -> Result<()> {
-    let tension = args
-        .tension
-        .as_deref()
-        .map(|text| {
-            text.parse::<TensionSpec>()
-                .map_err(|err| err.in_origin("--tension"))
-        })
-        .transpose()?;
+    let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let stock = args.stock.load()?;
     let input = match (&args.layout, &args.pitch, &args.string) {
         (Some(path), _, _) => LayoutInput::load(path, &stock)?,
@@ -75,15 +69,8 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             ))
         }
     };
-    let max_step = args
-        .max_step
-        .as_deref()
-        .map(|text| {
-            text.parse::<Percent>()
-                .map(Percent::fraction)
-                .map_err(|err| err.in_origin("--max-step"))
-        })
-        .transpose()?;
+    let max_step =
+        parse_flag::<Percent>(args.max_step.as_deref(), "--max-step")?.map(Percent::fraction);
     let report = layout::lay_out(
         &input,
         &stock,

@@ -36,6 +36,16 @@ enum Command {
     Lengths(lengths::LengthsArgs),
 }
 
+/// Parses an optional option value, naming the option in errors.
+pub(crate) fn parse_flag<T>(value: Option<&str>, flag: &str) -> taut::Result<Option<T>>
+where
+    T: std::str::FromStr<Err = taut::Error>,
+{
+    value
+        .map(|text| text.parse::<T>().map_err(|err| err.in_origin(flag)))
+        .transpose()
+}
+
 /// Runs the command line and returns the process exit code.
 pub fn main() -> ExitCode {
     let cli = Cli::parse();

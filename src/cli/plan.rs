@@ -14,6 +14,7 @@ use taut::units::{ForceUnit, LengthUnit};
 pub use render::DisplayUnits;
 
 use super::output;
+use super::parse_flag;
 use super::stock::StockArgs;
 
 /// Output formats of a plan.
@@ -90,14 +91,7 @@ pub struct PlanArgs {
 
 /// Runs `taut plan`.
 pub fn run(args: &PlanArgs) -> Result<()> {
-    let tension = args
-        .tension
-        .as_deref()
-        .map(|text| {
-            text.parse::<TensionSpec>()
-                .map_err(|err| err.in_origin("--tension"))
-        })
-        .transpose()?;
+    let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let plan = solve::plan(
