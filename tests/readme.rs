@@ -130,3 +130,28 @@ fn start_here_commands_match_ci() {
     );
     assert!(root().join("examples/guitar-19edo.yaml").is_file());
 }
+
+/// The YAML examples README shows are files `taut` reads: an instrument, a stock file and a
+/// string set, in that order.
+#[test]
+fn readme_yaml_examples_are_valid_files() {
+    let text = readme();
+    let blocks: Vec<&str> = text
+        .split("```yaml\n")
+        .skip(1)
+        .filter_map(|rest| rest.split("```").next())
+        .collect();
+    assert_eq!(
+        blocks.len(),
+        3,
+        "README's YAML examples changed: update this test"
+    );
+    let instrument =
+        taut::instrument::Instrument::from_text(blocks[0].to_string(), "README instrument")
+            .unwrap();
+    let stock = taut::stock::Stock::builtin().unwrap();
+    taut::solve::plan(&instrument, stock, &taut::solve::SolveOptions::default()).unwrap();
+    let mut own = stock.clone();
+    own.add_text(blocks[1], "README stock").unwrap();
+    taut::set::StringSet::from_text(blocks[2].to_string(), "README set", &own).unwrap();
+}
