@@ -56,7 +56,7 @@ pub enum LengthChoice {
 #[derive(Debug, Args)]
 #[command(
     about = "Choose a string for every course of an instrument in a tuning, with tension, stress and warnings",
-    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nCourse pitches are written in the tuning's own addressing: a note (`E2`, `F#3`), the nearest degree to a note (`~E2`), a degree (`deg7`, `deg3p1`), cents (`386.3c`), a ratio (`3/2`) or a frequency (`82.41hz`); `taut tuning --help` has the details and the tuning forms.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
 )]
 pub struct PlanArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
