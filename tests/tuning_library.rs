@@ -72,3 +72,31 @@ fn shipped_names_are_case_insensitive() {
     let report = json(&["tuning", "show", "Pythagorean-12", "--to", "0"]);
     assert_eq!(report["tuning"]["name"], "pythagorean-12");
 }
+
+/// Every shipped tuning can be listed, analysed and compared through the binary (issue: "taut
+/// tuning lists, analyses and compares every shipped tuning"), and each analysis is sane: one
+/// the analysis lists the six intervals of the 5-odd-limit diamond with finite errors.
+#[test]
+fn every_shipped_tuning_shows_fits_and_compares() {
+    for name in library::names() {
+        let shown = json(&["tuning", "show", name]);
+        assert!(
+            !shown["rows"].as_array().unwrap().is_empty(),
+            "{name}: {shown}"
+        );
+        let fit = json(&["tuning", "fit", name, "--limit", "5"]);
+        // 6/5, 5/4, 4/3, 3/2, 8/5, 5/3 (the 5-odd-limit tonality diamond within the octave).
+        assert_eq!(
+            fit["intervals"].as_array().unwrap().len(),
+            6,
+            "{name}: {fit}"
+        );
+        let max_error = fit["max_abs_error_cents"].as_f64().unwrap();
+        assert!(max_error.is_finite() && max_error >= 0.0, "{name}: {fit}");
+        let compared = json(&["tuning", "compare", name, "12edo"]);
+        assert!(
+            !compared["rows"].as_array().unwrap().is_empty(),
+            "{name}: {compared}"
+        );
+    }
+}
