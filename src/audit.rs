@@ -34,7 +34,7 @@ use crate::set::{ResolvedString, SetString, StringSet};
 use crate::stock::Stock;
 use crate::tuning::Tuning;
 use crate::units::METRES_PER_INCH;
-use crate::warning::{over_rated_load, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
+use crate::warning::{with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
 use crate::yaml::PathStep;
 
 /// Default largest tension change from the reference tuning before a course gets "no": ±30 %
@@ -325,14 +325,12 @@ pub fn audit(
             .filter_map(|s| s.reference_tension_n)
             .sum()
     });
-    let mut warnings: Vec<Warning> = courses
-        .iter()
-        .flat_map(|c| c.warnings.iter().cloned())
-        .collect();
     let rated_load_n = instrument.rated_load.map(|load| load.si());
-    if let Some(rated) = rated_load_n.filter(|&rated| total_tension_n > rated) {
-        warnings.push(over_rated_load(total_tension_n, rated));
-    }
+    let warnings = with_load_check(
+        courses.iter().flat_map(|c| &c.warnings),
+        total_tension_n,
+        rated_load_n,
+    );
     Ok(Audit {
         instrument: instrument.name.clone(),
         set: set.name.clone(),

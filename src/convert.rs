@@ -52,7 +52,7 @@ use crate::solve::gauge_label;
 use crate::stock::Stock;
 use crate::tuning::Tuning;
 use crate::units::METRES_PER_INCH;
-use crate::warning::{over_rated_load, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
+use crate::warning::{with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
 use crate::yaml::PathStep;
 
 /// A total-load change larger than this fraction (either way) comes with the setup caution.
@@ -235,18 +235,16 @@ impl Conversion {
                     .collect(),
             })
             .collect();
-        let mut set = StringSet::new(
-            format!("{} in {}", self.instrument_after, self.tuning_after),
+        StringSet::chosen_for(
+            &self.instrument_after,
+            &self.tuning_after,
+            format!(
+                "Converted by taut from `{}` in {}.",
+                self.set, self.tuning_before
+            ),
             courses,
             "the conversion",
-        );
-        set.instrument = Some(self.instrument_after.clone());
-        set.tuning = Some(self.tuning_after.clone());
-        set.about = Some(format!(
-            "Converted by taut from `{}` in {}.",
-            self.set, self.tuning_before
-        ));
-        set
+        )
     }
 }
 
@@ -369,14 +367,12 @@ pub fn convert(
             change * 100.0
         )
     });
-    let mut warnings: Vec<Warning> = courses
-        .iter()
-        .flat_map(|c| c.warnings.iter().cloned())
-        .collect();
     let rated_load_n = after.rated_load.map(|load| load.si());
-    if let Some(rated) = rated_load_n.filter(|&rated| total_after_n > rated) {
-        warnings.push(over_rated_load(total_after_n, rated));
-    }
+    let warnings = with_load_check(
+        courses.iter().flat_map(|c| &c.warnings),
+        total_after_n,
+        rated_load_n,
+    );
     let mut cautions = cautions_for(&warnings);
     if cautions.is_empty() && load_caution.is_some() {
         cautions = SAFETY_CAUTIONS.iter().map(|s| s.to_string()).collect();

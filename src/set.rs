@@ -300,13 +300,20 @@ impl StringSet {
             .find(|(_, course)| course.course == number)
     }
 
-    /// Builds a set in memory (no file behind it); `label` names it in messages.
-    pub fn new(name: String, courses: Vec<SetCourse>, label: &str) -> Self {
+    /// A set chosen by `taut` for `instrument` in `tuning`, named after both; `label` names it
+    /// in messages. It has no file behind it.
+    pub fn chosen_for(
+        instrument: &str,
+        tuning: &str,
+        about: String,
+        courses: Vec<SetCourse>,
+        label: &str,
+    ) -> Self {
         StringSet {
-            name,
-            about: None,
-            instrument: None,
-            tuning: None,
+            name: format!("{instrument} in {tuning}"),
+            about: Some(about),
+            instrument: Some(instrument.to_string()),
+            tuning: Some(tuning.to_string()),
             courses,
             origin: label.to_string(),
             text: String::new(),
@@ -332,15 +339,13 @@ impl StringSet {
                     .collect(),
             })
             .collect();
-        let mut set = StringSet::new(
-            format!("{} in {}", plan.instrument, plan.tuning),
+        StringSet::chosen_for(
+            &plan.instrument,
+            &plan.tuning,
+            "Strings chosen by `taut plan`.".to_string(),
             courses,
             "the plan",
-        );
-        set.instrument = Some(plan.instrument.clone());
-        set.tuning = Some(plan.tuning.clone());
-        set.about = Some("Strings chosen by `taut plan`.".to_string());
-        set
+        )
     }
 
     /// The set as a YAML file in the schema [`StringSet::from_text`] reads.

@@ -17,7 +17,7 @@ use crate::select::{self, Checks, Choice, Request, StressLimits, Warnings};
 use crate::stock::Stock;
 use crate::tuning::{self, Tuning};
 use crate::units::METRES_PER_INCH;
-use crate::warning::{over_rated_load, StringRef, Warning, WarningKind};
+use crate::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::yaml::PathStep;
 
 /// The tuning used when neither the command line nor the instrument names one: 12 equal
@@ -92,14 +92,12 @@ pub fn solve(
         .flat_map(|course| &course.strings)
         .map(|string| string.choice.tension_n)
         .sum();
-    let mut warnings: Vec<Warning> = courses
-        .iter()
-        .flat_map(|course| course.warnings.iter().cloned())
-        .collect();
     let rated_load_n = instrument.rated_load.map(|load| load.si());
-    if let Some(rated) = rated_load_n.filter(|&rated| total_tension_n > rated) {
-        warnings.push(over_rated_load(total_tension_n, rated));
-    }
+    let warnings = with_load_check(
+        courses.iter().flat_map(|course| &course.warnings),
+        total_tension_n,
+        rated_load_n,
+    );
     Ok(Plan {
         instrument: instrument.name.clone(),
         tuning: tuning.name().to_string(),

@@ -253,6 +253,20 @@ impl StringRef {
     }
 }
 
+/// A report's warnings: every course's, in course order, then the instrument's own when the
+/// total tension exceeds its rated load. Plans, audits and conversions all list them this way.
+pub fn with_load_check<'a>(
+    course_warnings: impl IntoIterator<Item = &'a Warning>,
+    total_n: f64,
+    rated_n: Option<f64>,
+) -> Vec<Warning> {
+    let mut warnings: Vec<Warning> = course_warnings.into_iter().cloned().collect();
+    if let Some(rated) = rated_n.filter(|&rated| total_n > rated) {
+        warnings.push(over_rated_load(total_n, rated));
+    }
+    warnings
+}
+
 /// The instrument's total tension against its rated load.
 pub fn over_rated_load(total_n: f64, rated_n: f64) -> Warning {
     Warning {
