@@ -209,6 +209,20 @@ impl Error {
         self
     }
 
+    /// The message and hint without a location, for errors raised inside deserialization,
+    /// where the YAML parser adds the line and field itself.
+    pub fn plain_message(&self) -> String {
+        match self {
+            Error::Input {
+                message,
+                help: Some(help),
+                ..
+            } => format!("{message} ({help})"),
+            Error::Input { message, .. } => message.clone(),
+            other => other.to_string(),
+        }
+    }
+
     /// The location, for bad-input errors.
     pub fn location(&self) -> Option<&Location> {
         match self {

@@ -85,7 +85,7 @@ impl<'de> Visitor<'de> for CurveVisitor {
     fn visit_str<E: de::Error>(self, text: &str) -> std::result::Result<Curve, E> {
         text.parse::<Pressure>()
             .map(|p| Curve::Constant(p.si()))
-            .map_err(|err| E::custom(short_message(&err)))
+            .map_err(|err| E::custom(err.plain_message()))
     }
 
     fn visit_f64<E: de::Error>(self, number: f64) -> std::result::Result<Curve, E> {
@@ -144,18 +144,6 @@ impl<'de> Visitor<'de> for CurveVisitor {
 /// One `[diameter, value]` table row.
 #[derive(Deserialize)]
 struct Row(Length, Pressure);
-
-fn short_message(err: &Error) -> String {
-    match err {
-        Error::Input {
-            message,
-            help: Some(help),
-            ..
-        } => format!("{message} ({help})"),
-        Error::Input { message, .. } => message.clone(),
-        other => other.to_string(),
-    }
-}
 
 /// A string material.
 #[derive(Debug, Clone, PartialEq, Deserialize)]

@@ -249,7 +249,7 @@ macro_rules! positive_quantity {
             fn deserialize<D: serde::Deserializer<'de>>(deserializer: D) -> std::result::Result<Self, D::Error> {
                 let raw = QuantityText::deserialize(deserializer)?;
                 match raw {
-                    QuantityText::Text(text) => text.parse().map_err(|err: Error| serde::de::Error::custom(message_of(&err))),
+                    QuantityText::Text(text) => text.parse().map_err(|err: Error| serde::de::Error::custom(err.plain_message())),
                     QuantityText::Number(number) => Err(serde::de::Error::custom(format!(
                         "`{number}` has no unit; write {} with its unit, e.g. `{}`",
                         $dimension.noun(),
@@ -273,18 +273,6 @@ macro_rules! positive_quantity {
 enum QuantityText {
     Number(f64),
     Text(String),
-}
-
-fn message_of(err: &Error) -> String {
-    match err {
-        Error::Input {
-            message,
-            help: Some(help),
-            ..
-        } => format!("{message} ({help})"),
-        Error::Input { message, .. } => message.clone(),
-        other => other.to_string(),
-    }
 }
 
 positive_quantity!(

@@ -117,9 +117,8 @@ fn parse_ratio_or_cents(written: &str) -> Result<f64> {
 impl<'de> Deserialize<'de> for Interval {
     fn deserialize<D: Deserializer<'de>>(deserializer: D) -> std::result::Result<Self, D::Error> {
         let text = String::deserialize(deserializer)?;
-        text.parse().map_err(|err: Error| {
-            serde::de::Error::custom(super::scalar_or_map::plain_message(&err))
-        })
+        text.parse()
+            .map_err(|err: Error| serde::de::Error::custom(err.plain_message()))
     }
 }
 

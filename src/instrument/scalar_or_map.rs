@@ -55,7 +55,7 @@ where
     fn visit_str<E: de::Error>(self, text: &str) -> Result<Self::Value, E> {
         text.parse()
             .map(ScalarOrMap::Scalar)
-            .map_err(|err: Error| E::custom(plain_message(&err)))
+            .map_err(|err: Error| E::custom(err.plain_message()))
     }
 
     fn visit_i64<E: de::Error>(self, number: i64) -> Result<Self::Value, E> {
@@ -81,19 +81,6 @@ where
 
     fn visit_map<A: MapAccess<'de>>(self, map: A) -> Result<Self::Value, A::Error> {
         M::deserialize(de::value::MapAccessDeserializer::new(map)).map(ScalarOrMap::Map)
-    }
-}
-
-/// The message and hint of an error, without a location (serde adds its own).
-pub(crate) fn plain_message(err: &Error) -> String {
-    match err {
-        Error::Input {
-            message,
-            help: Some(help),
-            ..
-        } => format!("{message} ({help})"),
-        Error::Input { message, .. } => message.clone(),
-        other => other.to_string(),
     }
 }
 

@@ -211,7 +211,7 @@ impl<'de> Deserialize<'de> for TensionSpec {
         match ScalarOrMap::<TensionSpec, TensionDetail>::deserialize(deserializer)? {
             ScalarOrMap::Scalar(spec) => Ok(spec),
             ScalarOrMap::Map(detail) => TensionSpec::from_detail(detail)
-                .map_err(|err| serde::de::Error::custom(super::scalar_or_map::plain_message(&err))),
+                .map_err(|err| serde::de::Error::custom(err.plain_message())),
         }
     }
 }
