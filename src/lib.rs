@@ -1,43 +1,31 @@
 //! `taut`: plan the strings for any tuning on any multi-course instrument.
 //!
-//! The library is laid out in the order data flows through it:
+//! The library is laid out in the order data flows through it, one folder per stage:
 //!
-//! | stage | module |
-//! |---|---|
-//! | read input | [`yaml`] (the one YAML reader), [`units`] (quantities with units) |
-//! | pitch | [`pitch`] (pitch addressing), [`tuning`] (tuning definitions, library, analysis) |
-//! | strings | [`physics`], [`material`], [`construction`], [`gauge`], [`kind`], [`select`] |
-//! | plan | [`instrument`] (instrument definitions), [`solve`] (the per-course solve), [`plan`] (the result), [`warning`] |
-//! | beyond one plan | [`set`] (string-set files), [`audit`] (an installed set under a tuning), [`convert`] (a set to a new tuning or scale), [`feel`] (stiffness and bend), [`layout`] (lengths for builders) |
+//! | stage | module | holds |
+//! |---|---|---|
+//! | 1. read input | [`input`] | the one YAML reader ([`input::yaml`]), quantities with units ([`input::units`]), checked ids, the shared registry |
+//! | 2. pitch | [`tuning`] | tuning definitions, the shipped library, analysis, and pitch addressing ([`tuning::pitch`]) |
+//! | 3. strings | [`strings`] | physics, materials, constructions, gauge catalogs, kinds, the selector, the user's stock, feel |
+//! | 4. instrument | [`instrument`] | instrument definitions: courses, lengths, tension targets, templates |
+//! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]) and warnings ([`plan::warning`]) |
+//! | 6. sets | [`sets`] | string-set files, auditing a set, converting a set to a new tuning or scale |
+//! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
 //!
-//! Errors are [`error::Error`]; every bad input names its file, line and field.
+//! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
+//! bad input names its file, line and field.
 #![cfg_attr(
     not(test),
     deny(clippy::unwrap_used, clippy::expect_used, clippy::panic)
 )]
 
-pub mod audit;
-pub mod construction;
-pub mod convert;
 pub mod error;
-pub mod feel;
-pub mod gauge;
-pub mod id;
+pub mod input;
 pub mod instrument;
-pub mod kind;
-pub mod layout;
-pub mod material;
-pub mod physics;
-pub mod pitch;
+pub mod lengths;
 pub mod plan;
-pub mod registry;
-pub mod select;
-pub mod set;
-pub mod solve;
-pub mod stock;
+pub mod sets;
+pub mod strings;
 pub mod tuning;
-pub mod units;
-pub mod warning;
-pub mod yaml;
 
 pub use error::{Error, Result};

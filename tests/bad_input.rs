@@ -493,7 +493,7 @@ fn non_utf8_text() {
 
 #[test]
 fn file_over_the_size_limit() {
-    let padding = "# padding\n".repeat((taut::yaml::MAX_INPUT_BYTES as usize) / 10 + 1);
+    let padding = "# padding\n".repeat((taut::input::yaml::MAX_INPUT_BYTES as usize) / 10 + 1);
     let stderr = plan_refuses(format!("{BASE}{padding}"));
     assert!(stderr.contains("at most 4194304 bytes"), "{stderr}");
 }

@@ -7,10 +7,10 @@ use predicates::prelude::*;
 use proptest::prelude::*;
 use serde_json::Value;
 
-use taut::convert::{convert, ConvertOptions};
 use taut::instrument::Instrument;
-use taut::set::{SetString, StringSet};
-use taut::stock::Stock;
+use taut::sets::convert::{convert, ConvertOptions};
+use taut::sets::set::{SetString, StringSet};
+use taut::strings::stock::Stock;
 use taut::tuning;
 
 fn kinds(report: &Value) -> Vec<(String, String)> {

@@ -1,10 +1,10 @@
 //! Stiffness and feel against outside values.
 
 use approx::assert_relative_eq;
-use taut::construction::Construction;
-use taut::feel::{feel, FeelOptions};
-use taut::material::Materials;
-use taut::physics;
+use taut::strings::construction::Construction;
+use taut::strings::feel::{feel, FeelOptions};
+use taut::strings::material::Materials;
+use taut::strings::physics;
 
 /// R. W. Young, "Inharmonicity of plain wire piano strings", J. Acoust. Soc. Am. 24(3), 1952
 /// (abstract READ in a reproduction; REFERENCES §5.1): for steel wire with Q/ρ = 25.5×10¹⁰ cm²/s²
@@ -84,7 +84,7 @@ fn partial_offsets_are_measured_from_the_sounding_fundamental() {
 /// stiff than a plain wire of its outer diameter at the same tension.
 #[test]
 fn wound_strings_use_the_core() {
-    let kinds = taut::kind::StringKinds::builtin().unwrap();
+    let kinds = taut::strings::kind::StringKinds::builtin().unwrap();
     let kind = kinds.get("phosphor-bronze-wound").unwrap();
     let outer = 0.0254 * 0.042;
     let wound = kind.construction(outer);

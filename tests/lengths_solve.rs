@@ -7,9 +7,9 @@ use predicates::prelude::*;
 use proptest::prelude::*;
 
 use taut::instrument::TensionSpec;
-use taut::layout::{lay_out, LayoutInput, LayoutOptions};
-use taut::physics;
-use taut::stock::Stock;
+use taut::lengths::{lay_out, LayoutInput, LayoutOptions};
+use taut::strings::physics;
+use taut::strings::stock::Stock;
 
 /// A 0.010 in plain steel string at E4 on a 648 mm scale carries ≈ 72.6 N (REFERENCES §1.2,
 /// DERIVED from the handbook density 7850 kg/m³; common practice agrees). Asking for that

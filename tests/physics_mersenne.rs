@@ -3,9 +3,9 @@
 
 use approx::assert_relative_eq;
 use proptest::prelude::*;
-use taut::material::Materials;
-use taut::physics;
-use taut::units::{METRES_PER_INCH, NEWTONS_PER_LBF};
+use taut::input::units::{METRES_PER_INCH, NEWTONS_PER_LBF};
+use taut::strings::material::Materials;
+use taut::strings::physics;
 
 const E4: f64 = 329.627_6; // REFERENCES §7.2 (DERIVED from ISO 16, A4 = 440 Hz)
 const SCALE_648: f64 = 0.648;
@@ -146,14 +146,14 @@ fn equal_unit_mass_gives_equal_tension_regardless_of_construction() {
     // Mersenne/Taylor (§1.1) sees only μ: a wound string and a plain one of the same μ need the
     // same tension for the same pitch and length.
     let materials = Materials::builtin().unwrap();
-    let kinds = taut::kind::StringKinds::builtin().unwrap();
+    let kinds = taut::strings::kind::StringKinds::builtin().unwrap();
     let wound = kinds
         .get("phosphor-bronze-wound")
         .unwrap()
         .construction(0.030 * METRES_PER_INCH);
     let mu = wound.unit_mass();
     let d_plain = physics::diameter_for_unit_mass_round(7850.0, mu);
-    let plain = taut::construction::Construction::Plain {
+    let plain = taut::strings::construction::Construction::Plain {
         material: materials.get("music-wire").unwrap(),
         diameter: d_plain,
     };

@@ -3,7 +3,7 @@
 use approx::assert_relative_eq;
 use proptest::prelude::*;
 use std::f64::consts::PI;
-use taut::physics::{self, BendGeometry};
+use taut::strings::physics::{self, BendGeometry};
 
 #[test]
 fn fletcher_b_matches_young_1952_plain_wire_form() {

@@ -8,11 +8,11 @@
 use approx::assert_relative_eq;
 use proptest::prelude::*;
 use std::f64::consts::PI;
-use taut::construction::{Construction, Core, Wrap, Wraps};
-use taut::kind::StringKinds;
-use taut::material::Materials;
-use taut::physics::{self, CoreShape, WrapLayer};
-use taut::units::{METRES_PER_INCH, NEWTONS_PER_LBF};
+use taut::input::units::{METRES_PER_INCH, NEWTONS_PER_LBF};
+use taut::strings::construction::{Construction, Core, Wrap, Wraps};
+use taut::strings::kind::StringKinds;
+use taut::strings::material::Materials;
+use taut::strings::physics::{self, CoreShape, WrapLayer};
 
 #[test]
 fn hexagon_area_ratios_match_the_derived_constants() {
@@ -152,14 +152,14 @@ fn default_nickel_wound_low_e_is_near_the_usual_tension() {
 fn measured_string_from_weighing() {
     // μ = m/l (OpenStax University Physics Vol. 1 eq. 16.7, READ; its example: 0.06 kg over
     // 2.00 m gives 0.03 kg/m).
-    let m = taut::construction::Measured::from_weighing(0.06, 2.00, None, None);
+    let m = taut::strings::construction::Measured::from_weighing(0.06, 2.00, None, None);
     assert_relative_eq!(m.unit_mass, 0.03, max_relative = 1e-14);
     let string = Construction::Measured(m);
     assert!(string.breaking_tension().is_none());
     assert!(string.load_area().is_none());
     // With a diameter and a material it is treated as a solid wire of that material.
     let nylon = Materials::builtin().unwrap().get("nylon").unwrap();
-    let known = Construction::Measured(taut::construction::Measured::from_weighing(
+    let known = Construction::Measured(taut::strings::construction::Measured::from_weighing(
         0.06,
         2.00,
         Some(1e-3),

@@ -3,9 +3,9 @@
 
 use proptest::prelude::*;
 use taut::instrument::Instrument;
+use taut::plan::solve::{self, SolveOptions};
 use taut::plan::Plan;
-use taut::solve::{self, SolveOptions};
-use taut::stock::Stock;
+use taut::strings::stock::Stock;
 
 fn solve_text(text: String) -> Plan {
     let instrument = Instrument::from_text(text, "prop.yaml").unwrap();

@@ -4,10 +4,10 @@
 //! plain steel catalog (0.007–0.026 in) and the density 7850 kg/m³ (§2).
 
 use taut::instrument::Instrument;
+use taut::plan::solve::{self, SolveOptions};
+use taut::plan::warning::{Severity, WarningKind};
 use taut::plan::Plan;
-use taut::solve::{self, SolveOptions};
-use taut::stock::Stock;
-use taut::warning::{Severity, WarningKind};
+use taut::strings::stock::Stock;
 
 fn plan(courses: &str, extra: &str) -> Plan {
     let text = format!(

@@ -149,9 +149,14 @@ fn readme_yaml_examples_are_valid_files() {
     let instrument =
         taut::instrument::Instrument::from_text(blocks[0].to_string(), "README instrument")
             .unwrap();
-    let stock = taut::stock::Stock::builtin().unwrap();
-    taut::solve::plan(&instrument, stock, &taut::solve::SolveOptions::default()).unwrap();
+    let stock = taut::strings::stock::Stock::builtin().unwrap();
+    taut::plan::solve::plan(
+        &instrument,
+        stock,
+        &taut::plan::solve::SolveOptions::default(),
+    )
+    .unwrap();
     let mut own = stock.clone();
     own.add_text(blocks[1], "README stock").unwrap();
-    taut::set::StringSet::from_text(blocks[2].to_string(), "README set", &own).unwrap();
+    taut::sets::set::StringSet::from_text(blocks[2].to_string(), "README set", &own).unwrap();
 }

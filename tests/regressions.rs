@@ -2,7 +2,7 @@
 //! names the input and what happened before the fix.
 
 use taut::error::EXIT_BAD_INPUT;
-use taut::units::{Force, Length, Pressure};
+use taut::input::units::{Force, Length, Pressure};
 
 /// Found by reading `units.rs`: `1e308kN` is a finite number, but times 1000 it overflowed to
 /// infinity and was accepted as `Force(inf)`; a plan built on it would be all NaN.
@@ -11,7 +11,7 @@ fn quantity_overflowing_on_conversion_is_refused() {
     for text in ["1e308kN", "1.7e308 kN", "1e305 GPa", "1e307 lb/in3"] {
         let refused = match text.split_whitespace().last() {
             Some("GPa") => text.parse::<Pressure>().err(),
-            Some("lb/in3") => text.parse::<taut::units::Density>().err(),
+            Some("lb/in3") => text.parse::<taut::input::units::Density>().err(),
             _ => text.parse::<Force>().err(),
         };
         let err = refused.unwrap_or_else(|| panic!("{text} was accepted"));
@@ -30,7 +30,8 @@ fn quantity_overflowing_on_conversion_is_refused() {
 #[test]
 fn unclosed_flow_brackets_are_refused_at_the_limit() {
     let text = format!("name: {}\n", "[".repeat(2_000_000));
-    let err = taut::yaml::parse::<serde_yaml::Value>(&text, "deep.yaml").expect_err("accepted");
+    let err =
+        taut::input::yaml::parse::<serde_yaml::Value>(&text, "deep.yaml").expect_err("accepted");
     let shown = err.to_string();
     // Column 7 is the first `[`; the 129th sits 128 columns further.
     assert!(shown.starts_with("deep.yaml:1:135:"), "{shown}");
@@ -42,7 +43,7 @@ fn unclosed_flow_brackets_are_refused_at_the_limit() {
 #[test]
 fn quoted_brackets_after_anchors_do_not_hide_nesting() {
     let text = format!("a: {}\n", "[&x \"]\", ".repeat(200));
-    let shown = taut::yaml::parse::<serde_yaml::Value>(&text, "q.yaml")
+    let shown = taut::input::yaml::parse::<serde_yaml::Value>(&text, "q.yaml")
         .expect_err("accepted")
         .to_string();
     assert!(shown.contains("more than 128 levels"), "{shown}");
@@ -60,14 +61,14 @@ fn brackets_in_text_and_long_flat_lists_are_accepted() {
         nest = "[".repeat(100),
         close = "]".repeat(100),
     );
-    taut::yaml::parse::<serde_yaml::Value>(&text, "ok.yaml").expect("a real document");
+    taut::input::yaml::parse::<serde_yaml::Value>(&text, "ok.yaml").expect("a real document");
 }
 
 /// An unclosed quote was reported as "found unexpected end of stream" at the end of the file,
 /// with no word of the quote or where it opened.
 #[test]
 fn unclosed_quote_says_where_it_opened() {
-    let shown = taut::yaml::parse::<serde_yaml::Value>("name: 'x\nload: 70N\n", "q.yaml")
+    let shown = taut::input::yaml::parse::<serde_yaml::Value>("name: 'x\nload: 70N\n", "q.yaml")
         .expect_err("accepted")
         .to_string();
     assert!(
@@ -80,7 +81,7 @@ fn unclosed_quote_says_where_it_opened() {
 /// `a: b: c` was reported with "field `?`", which tells the user nothing.
 #[test]
 fn unnamed_place_is_not_shown_as_a_question_mark() {
-    let shown = taut::yaml::parse::<serde_yaml::Value>("a: b: c\n", "m.yaml")
+    let shown = taut::input::yaml::parse::<serde_yaml::Value>("a: b: c\n", "m.yaml")
         .expect_err("accepted")
         .to_string();
     assert!(shown.starts_with("m.yaml:1:5: mapping values"), "{shown}");
@@ -96,7 +97,7 @@ fn deep_field_path_is_shortened() {
         text.push_str(&" ".repeat(depth));
         text.push_str("k:\n");
     }
-    let shown = taut::yaml::parse::<serde_yaml::Value>(&text, "d.yaml")
+    let shown = taut::input::yaml::parse::<serde_yaml::Value>(&text, "d.yaml")
         .expect_err("accepted")
         .to_string();
     assert!(shown.contains("…`"), "{shown}");
@@ -238,11 +239,11 @@ const NEL_INDENTED_ITEM: &[u8] =
 fn list_item_indented_by_a_unicode_blank_does_not_panic() {
     let text = std::str::from_utf8(NEL_INDENTED_ITEM).expect("UTF-8");
     let steps = [
-        taut::yaml::PathStep::Key("courses"),
-        taut::yaml::PathStep::Index(0),
-        taut::yaml::PathStep::Key("pitch"),
+        taut::input::yaml::PathStep::Key("courses"),
+        taut::input::yaml::PathStep::Index(0),
+        taut::input::yaml::PathStep::Key("pitch"),
     ];
-    let _ = taut::yaml::locate(text, &steps);
+    let _ = taut::input::yaml::locate(text, &steps);
     let dir = tempfile::tempdir().expect("a scratch folder");
     std::fs::write(dir.path().join("nel.yaml"), NEL_INDENTED_ITEM).expect("write");
     let output = taut_in(dir.path(), &["lengths", "nel.yaml"]);

@@ -1,8 +1,8 @@
 //! The per-string selector allocates nothing: a survey over thousands of tunings calls it
 //! millions of times. dhat's heap profiler, in testing mode, counts every allocation.
 
-use taut::kind::{StringKind, StringKinds};
-use taut::select::{select, Choice, Request};
+use taut::strings::kind::{StringKind, StringKinds};
+use taut::strings::select::{select, Choice, Request};
 
 #[global_allocator]
 static ALLOCATOR: dhat::Alloc = dhat::Alloc;

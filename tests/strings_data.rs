@@ -1,8 +1,8 @@
 //! The shipped data files load, and lookups by id behave.
 
-use taut::gauge::GaugeCatalogs;
-use taut::kind::StringKinds;
-use taut::material::Materials;
+use taut::strings::gauge::GaugeCatalogs;
+use taut::strings::kind::StringKinds;
+use taut::strings::material::Materials;
 
 #[test]
 fn shipped_materials_catalogs_and_kinds_load() {

@@ -2,10 +2,10 @@
 //! files with mistakes that must be named by file, line and field.
 
 use approx::assert_relative_eq;
-use taut::gauge::{load_catalogs_file, GaugeCatalogs};
-use taut::kind::{load_kinds_file, StringKinds};
-use taut::material::{load_materials_file, Materials};
-use taut::units::{METRES_PER_INCH, PASCALS_PER_PSI};
+use taut::input::units::{METRES_PER_INCH, PASCALS_PER_PSI};
+use taut::strings::gauge::{load_catalogs_file, GaugeCatalogs};
+use taut::strings::kind::{load_kinds_file, StringKinds};
+use taut::strings::material::{load_materials_file, Materials};
 
 const KSI: f64 = PASCALS_PER_PSI * 1e3;
 
@@ -276,7 +276,7 @@ fn user_kinds_resolve_against_materials_and_catalogs() {
     // Core is half the outer diameter, as the recipe says.
     assert_relative_eq!(
         string.load_area().unwrap(),
-        taut::physics::circle_area(inch(0.020)),
+        taut::strings::physics::circle_area(inch(0.020)),
         max_relative = 1e-12
     );
     let mut all = StringKinds::builtin().unwrap().clone();

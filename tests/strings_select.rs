@@ -3,12 +3,14 @@
 
 use approx::assert_relative_eq;
 use proptest::prelude::*;
-use taut::construction::{Construction, Measured};
-use taut::kind::{StringKind, StringKinds};
-use taut::material::Materials;
-use taut::physics;
-use taut::select::{evaluate, select, Checks, Choice, Request, Selection, StressLimits, Warnings};
-use taut::units::METRES_PER_INCH;
+use taut::input::units::METRES_PER_INCH;
+use taut::strings::construction::{Construction, Measured};
+use taut::strings::kind::{StringKind, StringKinds};
+use taut::strings::material::Materials;
+use taut::strings::physics;
+use taut::strings::select::{
+    evaluate, select, Checks, Choice, Request, Selection, StressLimits, Warnings,
+};
 
 // Pitches: 12-TET at A4 = 440 Hz (ISO 16; REFERENCES §7.2, DERIVED values).
 const D4: f64 = 293.664_8;

@@ -3,8 +3,8 @@
 
 use num_rational::Ratio;
 use proptest::prelude::*;
-use taut::pitch::{cents, cents_of_ratio, ratio_from_cents, ratio_to_f64};
 use taut::tuning::load;
+use taut::tuning::pitch::{cents, cents_of_ratio, ratio_from_cents, ratio_to_f64};
 
 proptest! {
     #[test]
@@ -68,7 +68,7 @@ proptest! {
 
     #[test]
     fn pitch_parsing_never_panics(text in "\\PC{0,12}") {
-        let _ = text.parse::<taut::pitch::PitchSpec>();
+        let _ = text.parse::<taut::tuning::pitch::PitchSpec>();
         let _ = load(&text);
     }
 }

@@ -3,8 +3,8 @@
 
 use approx::assert_abs_diff_eq;
 use num_rational::Ratio;
-use taut::pitch::{cents, cents_of_ratio, PitchSpec};
 use taut::tuning::load;
+use taut::tuning::pitch::{cents, cents_of_ratio, PitchSpec};
 
 fn resolve(tuning: &str, pitch: &str) -> taut::tuning::ResolvedPitch {
     load(tuning)

@@ -5,20 +5,20 @@ use std::path::PathBuf;
 use clap::Args;
 use comfy_table::Cell;
 
-use taut::audit::{self, Audit, AuditOptions, Verdict, DEFAULT_MAX_CHANGE};
 use taut::error::{Error, Result};
-use taut::feel::{self, FeelOptions, DEFAULT_BEND_CENTS, DEFAULT_PUSH_N};
+use taut::input::units::{Force, Length};
 use taut::instrument::{Instrument, Percent};
-use taut::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
-use taut::set::StringSet;
+use taut::sets::audit::{self, Audit, AuditOptions, Verdict, DEFAULT_MAX_CHANGE};
+use taut::sets::set::StringSet;
+use taut::strings::feel::{self, FeelOptions, DEFAULT_BEND_CENTS, DEFAULT_PUSH_N};
+use taut::strings::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
 use taut::tuning;
-use taut::units::{Force, Length};
 
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::stock::StockArgs;
 use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
-use taut::solve::tuning_for;
+use taut::plan::solve::tuning_for;
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
 #[derive(Debug, Clone, Args)]
@@ -129,7 +129,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let now = now_instrument.as_ref().unwrap_or(&instrument);
     let reference_tuning = match (&args.from, &now_instrument, &args.tuning, &now.tuning) {
         (Some(spec), _, _, _) => Some(tuning::load(spec).map_err(|err| err.in_origin("--from"))?),
-        (None, Some(_), _, None) => Some(tuning::load(taut::solve::DEFAULT_TUNING)?),
+        (None, Some(_), _, None) => Some(tuning::load(taut::plan::solve::DEFAULT_TUNING)?),
         (None, Some(_), _, Some(spec)) | (None, None, Some(_), Some(spec)) => {
             Some(tuning::load(spec).map_err(|err| err.in_origin(now.origin().to_string()))?)
         }

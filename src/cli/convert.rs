@@ -6,19 +6,19 @@ use std::path::PathBuf;
 use clap::Args;
 use comfy_table::Cell;
 
-use taut::convert::{self, Conversion, ConvertOptions};
 use taut::error::{Error, Result};
-use taut::feel;
+use taut::input::units::Length;
 use taut::instrument::{Instrument, Percent, TensionSpec};
-use taut::set::StringSet;
-use taut::units::Length;
+use taut::sets::convert::{self, Conversion, ConvertOptions};
+use taut::sets::set::StringSet;
+use taut::strings::feel;
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
-use taut::solve::tuning_for;
+use taut::plan::solve::tuning_for;
 
 /// Arguments of `taut convert`.
 #[derive(Debug, Args)]
@@ -96,7 +96,7 @@ pub fn run(args: ConvertArgs) -> Result<()> {
     };
     let target: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let tolerance = parse_flag::<Percent>(args.tolerance.as_deref(), "--tolerance")?
-        .map_or(taut::select::DEFAULT_TOLERANCE, Percent::fraction);
+        .map_or(taut::strings::select::DEFAULT_TOLERANCE, Percent::fraction);
     if tolerance >= 1.0 {
         return Err(Error::input("the tolerance must be below 100%").in_origin("--tolerance"));
     }

@@ -6,9 +6,9 @@ use clap::Args;
 use comfy_table::Cell;
 
 use taut::error::{Error, Result};
-use taut::feel;
 use taut::instrument::{Percent, TensionSpec};
-use taut::layout::{self, Layout, LayoutInput, LayoutOptions};
+use taut::lengths::{self, Layout, LayoutInput, LayoutOptions};
+use taut::strings::feel;
 
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
@@ -71,7 +71,7 @@ pub fn run(args: LengthsArgs) -> Result<()> {
     };
     let max_step =
         parse_flag::<Percent>(args.max_step.as_deref(), "--max-step")?.map(Percent::fraction);
-    let report = layout::lay_out(
+    let report = lengths::lay_out(
         &input,
         &stock,
         &LayoutOptions {
@@ -114,7 +114,7 @@ impl Render for Layout {
                 right(format!("{:.1}", course.length_m * 1000.0)),
                 right(format!(
                     "{:.2}",
-                    course.length_m / taut::units::METRES_PER_INCH
+                    course.length_m / taut::input::units::METRES_PER_INCH
                 )),
                 right(format!(
                     "{}{}",

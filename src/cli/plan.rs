@@ -7,9 +7,9 @@ use std::path::PathBuf;
 use clap::{Args, ValueEnum};
 
 use taut::error::Result;
+use taut::input::units::{ForceUnit, LengthUnit};
 use taut::instrument::{Instrument, TensionSpec};
-use taut::solve::{self, SolveOptions};
-use taut::units::{ForceUnit, LengthUnit};
+use taut::plan::solve::{self, SolveOptions};
 
 pub use render::DisplayUnits;
 
@@ -103,7 +103,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         },
     )?;
     if let Some(path) = &args.save_set {
-        let set = taut::set::StringSet::from_plan(&plan).to_yaml();
+        let set = taut::sets::set::StringSet::from_plan(&plan).to_yaml();
         output::write_atomically(path, set.as_bytes())?;
     }
     let units = DisplayUnits {

@@ -6,7 +6,7 @@ use std::path::PathBuf;
 use clap::Args;
 
 use taut::error::Result;
-use taut::stock::Stock;
+use taut::strings::stock::Stock;
 
 /// Extra materials, gauge catalogs and string kinds from the user's own files.
 #[derive(Debug, Args)]

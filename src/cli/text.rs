@@ -3,8 +3,8 @@
 
 use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
 
+use taut::plan::warning::{Severity, Warning, SAFETY_REMINDER};
 use taut::plan::CoursePitch;
-use taut::warning::{Severity, Warning, SAFETY_REMINDER};
 
 /// A fresh table in the project's style: borders only, columns as wide as their content.
 pub fn new_table(header: Vec<&str>) -> Table {

@@ -7,10 +7,10 @@ use serde::Serialize;
 
 use super::output::{emit, OutputArgs, Render};
 use taut::error::Result;
-use taut::pitch::{format_ratio, nearest_note_name, PitchSpec};
 use taut::tuning::analysis::{fit, FitReport};
 use taut::tuning::compare::{compare, Comparison};
 use taut::tuning::listing::{default_range, list, DegreeListing};
+use taut::tuning::pitch::{format_ratio, nearest_note_name, PitchSpec};
 use taut::tuning::{library, load, ResolvedPitch, TuningSummary};
 
 const TUNING_HELP: &str = "\

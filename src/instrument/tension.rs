@@ -8,7 +8,7 @@ use serde::Deserialize;
 
 use super::scalar_or_map::{Expecting, ScalarOrMap};
 use crate::error::{Error, Result};
-use crate::units::{Force, Length};
+use crate::input::units::{Force, Length};
 
 impl Expecting for Force {
     const EXPECTING: &'static str = "a force such as `70N`, `16lbf` or `7kgf`";
@@ -222,9 +222,9 @@ mod tests {
 
     #[test]
     fn forms_parse() {
-        let fixed: TensionSpec = crate::yaml::parse("70N", "t").unwrap();
+        let fixed: TensionSpec = crate::input::yaml::parse("70N", "t").unwrap();
         assert_eq!(fixed.goal_at(0.3).target_n, 70.0);
-        let window: TensionSpec = crate::yaml::parse("{min: 60N, max: 90N}", "t").unwrap();
+        let window: TensionSpec = crate::input::yaml::parse("{min: 60N, max: 90N}", "t").unwrap();
         assert_eq!(
             window.goal_at(0.0),
             TensionGoal {
@@ -234,7 +234,7 @@ mod tests {
             }
         );
         let profile: TensionSpec =
-            crate::yaml::parse("{first: 20N, last: 80N, shape: geometric}", "t").unwrap();
+            crate::input::yaml::parse("{first: 20N, last: 80N, shape: geometric}", "t").unwrap();
         assert!((profile.goal_at(0.5).target_n - 40.0).abs() < 1e-12);
         assert!(profile.is_profile());
         let range: TensionSpec = "60N..90N".parse().unwrap();
@@ -255,7 +255,7 @@ mod tests {
             "-70N",
         ] {
             assert!(
-                crate::yaml::parse::<TensionSpec>(bad, "t").is_err(),
+                crate::input::yaml::parse::<TensionSpec>(bad, "t").is_err(),
                 "{bad} was accepted"
             );
         }

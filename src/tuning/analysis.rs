@@ -11,7 +11,7 @@ use serde::Serialize;
 
 use super::{Layout, Tuning, TuningSummary};
 use crate::error::{Error, Result};
-use crate::pitch::{cents_of_ratio, serialize_ratio, ExactRatio};
+use crate::tuning::pitch::{cents_of_ratio, serialize_ratio, ExactRatio};
 
 /// Odd limits the analysis accepts.
 pub const ODD_LIMITS: [u32; 6] = [3, 5, 7, 9, 11, 13];
@@ -154,7 +154,7 @@ mod tests {
             tonality_diamond(5),
             ["6/5", "5/4", "4/3", "3/2", "8/5", "5/3"]
                 .iter()
-                .map(|t| crate::pitch::parse_ratio(t).unwrap())
+                .map(|t| crate::tuning::pitch::parse_ratio(t).unwrap())
                 .collect::<Vec<_>>()
         );
     }

@@ -6,7 +6,7 @@ use serde::Serialize;
 use super::listing::check_range;
 use super::{Tuning, TuningSummary};
 use crate::error::Result;
-use crate::pitch::cents;
+use crate::tuning::pitch::cents;
 
 /// One degree of the first tuning against the nearest of the second.
 #[derive(Debug, Clone, PartialEq, Serialize)]

@@ -17,7 +17,7 @@
 //! Intervals are written `3/2` (ratio), `701.955c` (cents) or `5^(1/4)` (power of a ratio).
 //! Checks that concern one value run while the YAML is read, so errors carry its line; checks
 //! across values (ascending order, the period) run afterwards and are pointed back at their line
-//! with [`crate::yaml::locate`].
+//! with [`crate::input::yaml::locate`].
 
 use std::path::Path;
 
@@ -28,7 +28,7 @@ use super::reference::{Reference, ReferenceSpec};
 use super::shape::Shape;
 use super::Tuning;
 use crate::error::{Error, Result};
-use crate::yaml::{self, PathStep};
+use crate::input::yaml::{self, PathStep};
 
 /// The keys that choose a layout; a definition has exactly one.
 pub const LAYOUT_KEYS: [&str; 5] = ["divisions", "ratios", "cents", "hertz", "chain"];
@@ -164,7 +164,7 @@ fn build(raw: RawDefinition) -> Result<Tuning> {
                 super::Layout::Absolute { hz } => hz.first().copied().unwrap_or(1.0),
                 super::Layout::Periodic { .. } => 1.0,
             },
-            concert_a4_hz: crate::pitch::ISO_16_A4_HZ,
+            concert_a4_hz: crate::tuning::pitch::ISO_16_A4_HZ,
         },
         None => Reference::default(),
     };

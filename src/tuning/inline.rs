@@ -16,7 +16,7 @@ use super::interval::Interval;
 use super::shape::Shape;
 use super::{Reference, Tuning, MAX_DEGREES_PER_PERIOD};
 use crate::error::{Error, Result};
-use crate::pitch::{parse_finite, parse_ratio};
+use crate::tuning::pitch::{parse_finite, parse_ratio};
 
 /// One-line summary of the inline grammar, for error help.
 pub const INLINE_SYNTAX_HELP: &str = "inline tunings: `19edo`, `13ed3/1`, `ratios:1/1,9/8,5/4,...[:2/1]`, `cents:0,100,...[:1200c]`, `hertz:98,110,...`, `chain:3/2,6,5[:2/1]`, each optionally followed by `@A4=415`";
@@ -45,7 +45,7 @@ pub fn parse(spec: &str) -> Result<Tuning> {
         super::Layout::Absolute { hz } if is_list_of_frequencies => Reference {
             degree: 0,
             hz: hz.first().copied().unwrap_or(1.0),
-            concert_a4_hz: crate::pitch::ISO_16_A4_HZ,
+            concert_a4_hz: crate::tuning::pitch::ISO_16_A4_HZ,
         },
         _ => Reference::default(),
     };

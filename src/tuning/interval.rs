@@ -7,7 +7,7 @@ use num_rational::Ratio;
 use serde::{Deserialize, Serialize};
 
 use crate::error::{Error, Result};
-use crate::pitch::{
+use crate::tuning::pitch::{
     cents_of_ratio, format_ratio, parse_finite, parse_ratio, serialize_optional_ratio, ExactRatio,
 };
 
@@ -82,7 +82,7 @@ impl Interval {
             let ratio = if exponent.is_integer() {
                 i64::try_from(*exponent.numer())
                     .ok()
-                    .and_then(|e| crate::pitch::checked_ratio_pow(&base, e))
+                    .and_then(|e| crate::tuning::pitch::checked_ratio_pow(&base, e))
             } else {
                 None
             };

@@ -4,7 +4,7 @@ use serde::Serialize;
 
 use super::{Tuning, TuningSummary};
 use crate::error::{Error, Result};
-use crate::pitch::{nearest_note_name, serialize_optional_ratio, ExactRatio};
+use crate::tuning::pitch::{nearest_note_name, serialize_optional_ratio, ExactRatio};
 
 /// Most rows one listing may hold: the default range (one period and its closing degree) of the
 /// largest tuning taut accepts, so that every accepted tuning lists without options.

@@ -16,11 +16,13 @@
 
 pub mod analysis;
 pub mod compare;
+pub mod course_pitch;
 pub mod definition;
 pub mod inline;
 pub mod interval;
 pub mod library;
 pub mod listing;
+pub mod pitch;
 pub mod reference;
 pub mod shape;
 
@@ -29,7 +31,7 @@ use num_traits::CheckedMul;
 use serde::Serialize;
 
 use crate::error::{did_you_mean, Error, Result};
-use crate::pitch::{
+use crate::tuning::pitch::{
     cents, cents_of_ratio, checked_ratio_pow, ratio_from_cents, ratio_to_f64,
     serialize_optional_ratio, ExactRatio, PitchSpec,
 };

@@ -9,7 +9,7 @@ use serde::{Deserialize, Serialize};
 
 use super::interval::FiniteNumber;
 use crate::error::{Error, Result};
-use crate::pitch::{parse_finite, NoteName, ISO_16_A4_HZ};
+use crate::tuning::pitch::{parse_finite, NoteName, ISO_16_A4_HZ};
 
 /// A resolved reference.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]

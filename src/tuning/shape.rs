@@ -10,7 +10,7 @@ use num_traits::CheckedMul;
 use super::interval::Interval;
 use super::{Layout, MAX_DEGREES_PER_PERIOD};
 use crate::error::{Error, Result};
-use crate::pitch::{cents_of_ratio, checked_ratio_pow, ExactRatio};
+use crate::tuning::pitch::{cents_of_ratio, checked_ratio_pow, ExactRatio};
 
 /// Two degrees closer than this (in cents) count as the same degree in float-only layouts.
 const SAME_DEGREE_CENTS: f64 = 1.0e-6;
@@ -93,8 +93,8 @@ impl Shape {
                     if pair[1] <= pair[0] {
                         return Err(Error::input(format!(
                             "ratios must be strictly ascending, but {} is not above {}",
-                            crate::pitch::format_ratio(&pair[1]),
-                            crate::pitch::format_ratio(&pair[0])
+                            crate::tuning::pitch::format_ratio(&pair[1]),
+                            crate::tuning::pitch::format_ratio(&pair[0])
                         ))
                         .field(format!("ratios[{}]", i + 1)));
                     }

@@ -3,8 +3,8 @@
 
 use criterion::{criterion_group, criterion_main, Criterion};
 use taut::instrument::Instrument;
-use taut::kind::StringKinds;
-use taut::solve;
+use taut::plan::solve;
+use taut::strings::kind::StringKinds;
 
 fn two_hundred_courses() -> String {
     let mut text = String::from(

@@ -4,8 +4,8 @@
 use std::hint::black_box;
 
 use criterion::{criterion_group, criterion_main, Criterion, Throughput};
-use taut::kind::{StringKind, StringKinds};
-use taut::select::{select, Choice, Request};
+use taut::strings::kind::{StringKind, StringKinds};
+use taut::strings::select::{select, Choice, Request};
 
 const COURSES: usize = 200;
 const KIND_IDS: [&str; 7] = [

@@ -5,9 +5,9 @@ use comfy_table::Cell;
 use serde::Serialize;
 
 use taut::error::{Error, Result};
+use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
+use taut::plan::warning::{Severity, SAFETY_CAUTIONS};
 use taut::plan::{CoursePlan, Plan};
-use taut::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
-use taut::warning::{Severity, SAFETY_CAUTIONS};
 
 use crate::cli::text::{course_pitch_text, new_table, right, severity_flag, warnings_and_cautions};
 
@@ -121,7 +121,7 @@ pub fn json(plan: &Plan) -> Result<String> {
 
 /// The YAML document: the same fields as JSON.
 pub fn yaml(plan: &Plan) -> Result<String> {
-    taut::yaml::to_text(plan)
+    taut::input::yaml::to_text(plan)
 }
 
 /// One CSV row per string.

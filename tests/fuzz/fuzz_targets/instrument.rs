@@ -4,7 +4,7 @@
 
 use libfuzzer_sys::fuzz_target;
 use taut::instrument::Instrument;
-use taut::kind::StringKinds;
+use taut::strings::kind::StringKinds;
 use taut::tuning::library;
 
 fuzz_target!(|text: &str| {
@@ -21,7 +21,7 @@ fuzz_target!(|text: &str| {
     let Ok(kinds) = StringKinds::builtin() else {
         panic!("the shipped kinds must load");
     };
-    match taut::solve::solve(&instrument, &tuning, kinds, None) {
+    match taut::plan::solve::solve(&instrument, &tuning, kinds, None) {
         Ok(plan) => {
             assert!(plan.total_tension_n.is_finite(), "total {}", plan.total_tension_n);
             for course in &plan.courses {

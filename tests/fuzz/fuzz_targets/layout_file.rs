@@ -3,8 +3,8 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use taut::layout::{lay_out, LayoutInput, LayoutOptions};
-use taut::stock::Stock;
+use taut::lengths::{lay_out, LayoutInput, LayoutOptions};
+use taut::strings::stock::Stock;
 
 fuzz_target!(|text: &str| {
     let Ok(stock) = Stock::builtin() else {

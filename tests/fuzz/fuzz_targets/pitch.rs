@@ -5,7 +5,7 @@
 use std::sync::OnceLock;
 
 use libfuzzer_sys::fuzz_target;
-use taut::pitch::{NoteName, PitchSpec};
+use taut::tuning::pitch::{NoteName, PitchSpec};
 use taut::tuning::{inline, library, Tuning};
 
 fn tunings() -> &'static [Tuning] {

@@ -3,8 +3,8 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use taut::set::StringSet;
-use taut::stock::Stock;
+use taut::sets::set::StringSet;
+use taut::strings::stock::Stock;
 
 fuzz_target!(|text: &str| {
     let Ok(stock) = Stock::builtin() else {

@@ -3,9 +3,9 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use taut::gauge::{load_catalogs_file, GaugeCatalogs};
-use taut::kind::load_kinds_file;
-use taut::material::{load_materials_file, Materials};
+use taut::strings::gauge::{load_catalogs_file, GaugeCatalogs};
+use taut::strings::kind::load_kinds_file;
+use taut::strings::material::{load_materials_file, Materials};
 
 fuzz_target!(|bytes: &[u8]| {
     let Some((&which, rest)) = bytes.split_first() else {

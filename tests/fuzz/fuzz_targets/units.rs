@@ -2,7 +2,7 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use taut::units::{Density, Dimension, Force, Frequency, Length, Mass, Pressure, UnitMass};
+use taut::input::units::{Density, Dimension, Force, Frequency, Length, Mass, Pressure, UnitMass};
 
 fuzz_target!(|text: &str| {
     for dimension in [
@@ -14,7 +14,7 @@ fuzz_target!(|text: &str| {
         Dimension::Density,
         Dimension::Pressure,
     ] {
-        if let Ok(value) = taut::units::parse_quantity(text, dimension) {
+        if let Ok(value) = taut::input::units::parse_quantity(text, dimension) {
             assert!(value.is_finite(), "{text:?} parsed to {value}");
         }
     }

@@ -3,7 +3,7 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use taut::yaml::{self, PathStep};
+use taut::input::yaml::{self, PathStep};
 
 fuzz_target!(|bytes: &[u8]| {
     let text = match yaml::text_from_bytes(bytes.to_vec(), "fuzz.yaml") {

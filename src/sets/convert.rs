@@ -10,10 +10,10 @@
 //!    target (`--tension`); a course the old instrument did not have takes the new instrument's
 //!    own target.
 //! 3. *Keep*: the installed string stays when, at the new pitch and length, its tension is within
-//!    the tolerance of the target (default ±10 %, [`crate::select::DEFAULT_TOLERANCE`]), inside
+//!    the tolerance of the target (default ±10 %, [`crate::strings::select::DEFAULT_TOLERANCE`]), inside
 //!    the instrument's tension window, not above the danger stress, and not wider than a stated
 //!    slot. Strings that still work are not replaced.
-//! 4. *Replace*: otherwise the selector ([`crate::select::select`]) picks a new one, preferring
+//! 4. *Replace*: otherwise the selector ([`crate::strings::select::select`]) picks a new one, preferring
 //!    the installed string's kind, then the kinds the instrument allows for that string.
 //!
 //! So a conversion to the same tuning and scale returns the same set, for any set whose strings
@@ -35,25 +35,27 @@
 
 use serde::Serialize;
 
-use crate::audit::{
+use crate::error::{Error, Result};
+use crate::input::units::METRES_PER_INCH;
+use crate::input::yaml::PathStep;
+use crate::instrument::{CourseInput, Instrument, TensionSpec};
+use crate::plan::solve::gauge_label;
+use crate::plan::warning::{
+    with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS,
+};
+use crate::plan::CoursePitch;
+use crate::sets::audit::{
     cautions_for, check_no_extra_courses, missing_course, set_strings, stress_limits,
 };
-use crate::construction::Construction;
-use crate::error::{Error, Result};
-use crate::feel::{self, Feel, FeelOptions};
-use crate::instrument::{CourseInput, Instrument, TensionSpec};
-use crate::kind::{StringKind, StringKinds};
-use crate::material::Materials;
-use crate::physics;
-use crate::plan::CoursePitch;
-use crate::select::{self, Checks, Request, StressLimits, Warnings};
-use crate::set::{SetCourse, SetString, StringSet};
-use crate::solve::gauge_label;
-use crate::stock::Stock;
+use crate::sets::set::{SetCourse, SetString, StringSet};
+use crate::strings::construction::Construction;
+use crate::strings::feel::{self, Feel, FeelOptions};
+use crate::strings::kind::{StringKind, StringKinds};
+use crate::strings::material::Materials;
+use crate::strings::physics;
+use crate::strings::select::{self, Checks, Request, StressLimits, Warnings};
+use crate::strings::stock::Stock;
 use crate::tuning::Tuning;
-use crate::units::METRES_PER_INCH;
-use crate::warning::{with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
-use crate::yaml::PathStep;
 
 /// A total-load change larger than this fraction (either way) comes with the setup caution.
 pub const DEFAULT_LOAD_CHANGE: f64 = 0.10;

@@ -8,9 +8,9 @@ use std::sync::OnceLock;
 use serde::Deserialize;
 
 use crate::error::{Error, Result};
-use crate::id::Id;
-use crate::registry::{Entry, Registry};
-use crate::units::Length;
+use crate::input::id::Id;
+use crate::input::registry::{Entry, Registry};
+use crate::input::units::Length;
 
 /// Largest number of gauges one catalog may hold; a range with a tiny step is a mistake.
 pub const MAX_GAUGES: usize = 2000;
@@ -98,11 +98,11 @@ impl Registry<GaugeCatalog> {
 /// Reads a gauge catalog file (`catalogs:` list; each catalog has `diameters`, `ranges` or both),
 /// naming `origin`, line and field on bad input.
 pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
-    let file: CatalogsFile = crate::yaml::parse(text, origin)?;
+    let file: CatalogsFile = crate::input::yaml::parse(text, origin)?;
     let mut catalogs = GaugeCatalogs::default();
     for (index, spec) in file.catalogs.into_iter().enumerate() {
         let place = |err: Error, field: &str, sub: Option<usize>| {
-            use crate::yaml::PathStep;
+            use crate::input::yaml::PathStep;
             let mut path = vec![
                 PathStep::Key("catalogs"),
                 PathStep::Index(index),
@@ -116,7 +116,7 @@ pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
                 None => format!("catalogs[{index}].{field}"),
             };
             let err = err.field(field_path);
-            let err = match crate::yaml::locate(text, &path) {
+            let err = match crate::input::yaml::locate(text, &path) {
                 Some((line, column)) => err.at(line, column),
                 None => err,
             };

@@ -450,14 +450,14 @@ mod tests {
         struct Probe {
             length: Length,
         }
-        let err = crate::yaml::parse::<Probe>("length: 648\n", "p.yaml")
+        let err = crate::input::yaml::parse::<Probe>("length: 648\n", "p.yaml")
             .unwrap_err()
             .to_string();
         assert!(
             err.contains("p.yaml:1:") && err.contains("no unit"),
             "{err}"
         );
-        let ok: Probe = crate::yaml::parse("length: 25.5in\n", "p.yaml").unwrap();
+        let ok: Probe = crate::input::yaml::parse("length: 25.5in\n", "p.yaml").unwrap();
         assert_relative_eq!(ok.length.si(), 0.6477, epsilon = 1e-12);
     }
 

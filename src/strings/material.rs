@@ -1,7 +1,7 @@
 //! String materials: density, elastic modulus, breaking strength, and where each number comes from.
 //!
 //! The shipped materials live in `src/data/materials.yaml` (values and provenance from
-//! `REFERENCES.md` §2–§4), read once through [`crate::yaml::parse`]. Users can add their own
+//! `REFERENCES.md` §2–§4), read once through [`crate::input::yaml::parse`]. Users can add their own
 //! with [`load_materials_file`], in the same schema.
 
 use std::fmt;
@@ -11,9 +11,9 @@ use serde::de::{self, MapAccess, SeqAccess, Visitor};
 use serde::{Deserialize, Deserializer};
 
 use crate::error::{Error, Result};
-use crate::id::Id;
-use crate::registry::{Entry, Registry};
-use crate::units::{Density, Length, Pressure};
+use crate::input::id::Id;
+use crate::input::registry::{Entry, Registry};
+use crate::input::units::{Density, Length, Pressure};
 
 /// A property that may depend on the wire's diameter (strength and modulus of drawn wire do).
 #[derive(Debug, Clone, PartialEq)]
@@ -227,7 +227,7 @@ pub const BUILTIN_MATERIALS_YAML: &str = include_str!("data/materials.yaml");
 /// Reads a materials file (`materials:` list, schema as `src/data/materials.yaml`), naming
 /// `origin`, line and field on bad input.
 pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
-    let file: MaterialsFile = crate::yaml::parse(text, origin)?;
+    let file: MaterialsFile = crate::input::yaml::parse(text, origin)?;
     let mut materials = Materials::default();
     for (index, material) in file.materials.into_iter().enumerate() {
         if material.source.trim().is_empty() {
@@ -254,14 +254,14 @@ pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
 }
 
 fn locate(err: Error, text: &str, index: usize, field: &str) -> Error {
-    use crate::yaml::PathStep;
+    use crate::input::yaml::PathStep;
     let path = [
         PathStep::Key("materials"),
         PathStep::Index(index),
         PathStep::Key(field),
     ];
     let err = err.field(format!("materials[{index}].{field}"));
-    match crate::yaml::locate(text, &path) {
+    match crate::input::yaml::locate(text, &path) {
         Some((line, column)) => err.at(line, column),
         None => err,
     }

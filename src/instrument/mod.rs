@@ -1,11 +1,11 @@
 //! Instrument definitions: the courses to string, their pitches and lengths, and what each may
 //! carry.
 //!
-//! An instrument file is YAML (read through [`crate::yaml::parse`]); its schema is documented in
+//! An instrument file is YAML (read through [`crate::input::yaml::parse`]); its schema is documented in
 //! README and in the examples/ folder. Checks that need one value are done while reading, so they
 //! name line and column; checks across values (duplicate course numbers, a course without any
 //! length) run in [`Instrument::from_text`] and are pointed back at their line with
-//! [`crate::yaml::locate`].
+//! [`crate::input::yaml::locate`].
 
 mod interval;
 mod scalar_or_map;
@@ -23,10 +23,10 @@ pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 
 use crate::error::{did_you_mean, Error, Result};
-use crate::plan::CoursePitch;
+use crate::input::units::{Force, Length};
+use crate::input::yaml::{self, PathStep};
+use crate::tuning::course_pitch::CoursePitch;
 use crate::tuning::Tuning;
-use crate::units::{Force, Length};
-use crate::yaml::{self, PathStep};
 
 /// The most courses one instrument may have. Concert harps have 47 and large zithers a few
 /// hundred; a thousand leaves room while catching a runaway generated file.

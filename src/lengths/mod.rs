@@ -34,19 +34,19 @@ use std::path::Path;
 
 use serde::{Deserialize, Serialize};
 
-use crate::audit::cautions_for;
 use crate::error::{Error, Result};
-use crate::feel::{self, Feel, FeelOptions};
+use crate::input::units::METRES_PER_INCH;
+use crate::input::yaml::{self, PathStep};
 use crate::instrument::{field_name, Percent, TensionSpec};
-use crate::physics;
+use crate::plan::warning::{StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
-use crate::select::{self, Checks, StressLimits, Warnings};
-use crate::set::{check_entry, SetString, StringEntryFile};
-use crate::stock::Stock;
+use crate::sets::audit::cautions_for;
+use crate::sets::set::{check_entry, SetString, StringEntryFile};
+use crate::strings::feel::{self, Feel, FeelOptions};
+use crate::strings::physics;
+use crate::strings::select::{self, Checks, StressLimits, Warnings};
+use crate::strings::stock::Stock;
 use crate::tuning::{self, Tuning};
-use crate::units::METRES_PER_INCH;
-use crate::warning::{StringRef, Warning, WarningKind};
-use crate::yaml::{self, PathStep};
 
 /// Default largest change of the wave speed √(T/μ) between neighbouring courses: 15 % (see the
 /// module documentation).
@@ -57,7 +57,7 @@ pub const DEFAULT_MAX_STEP: f64 = 0.15;
 pub const FOLD_BACK_TOLERANCE: f64 = 0.01;
 
 /// The tuning used when the layout names none.
-pub const DEFAULT_TUNING: &str = crate::solve::DEFAULT_TUNING;
+pub const DEFAULT_TUNING: &str = crate::plan::solve::DEFAULT_TUNING;
 
 #[derive(Debug, Clone, Deserialize)]
 #[serde(deny_unknown_fields)]

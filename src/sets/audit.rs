@@ -6,7 +6,7 @@
 //!
 //! A course gets **no** when any of its strings
 //! - runs above the danger fraction of its breaking strength (default 85 %, see
-//!   [`crate::select`]): it may break while tuning up;
+//!   [`crate::strings::select`]): it may break while tuning up;
 //! - falls outside the instrument's tension window (below: slack, buzzing; above: too stiff, and
 //!   more load than intended);
 //! - changes tension by more than [`AuditOptions::max_change`] (default ±30 %) from the
@@ -23,19 +23,21 @@
 use serde::Serialize;
 
 use crate::error::{Error, Result};
-use crate::feel::{self, Feel, FeelOptions};
+use crate::input::units::METRES_PER_INCH;
+use crate::input::yaml::PathStep;
 use crate::instrument::{CourseInput, CourseString, Instrument};
-use crate::kind::StringKinds;
-use crate::material::Materials;
-use crate::physics;
+use crate::plan::warning::{
+    with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS,
+};
 use crate::plan::CoursePitch;
-use crate::select::{self, Checks, StressLimits, Warnings};
-use crate::set::{ResolvedString, SetString, StringSet};
-use crate::stock::Stock;
+use crate::sets::set::{ResolvedString, SetString, StringSet};
+use crate::strings::feel::{self, Feel, FeelOptions};
+use crate::strings::kind::StringKinds;
+use crate::strings::material::Materials;
+use crate::strings::physics;
+use crate::strings::select::{self, Checks, StressLimits, Warnings};
+use crate::strings::stock::Stock;
 use crate::tuning::Tuning;
-use crate::units::METRES_PER_INCH;
-use crate::warning::{with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS};
-use crate::yaml::PathStep;
 
 /// Default largest tension change from the reference tuning before a course gets "no": ±30 %
 /// (see the module documentation).

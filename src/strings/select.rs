@@ -31,9 +31,9 @@
 //! Strings break: these flags are a planning aid, not a guarantee. Wear eye protection, bring a
 //! new string up to pitch gradually, and keep within the instrument maker's load rating.
 
-use crate::construction::Construction;
-use crate::kind::{Gauge, StringKind};
-use crate::physics;
+use crate::strings::construction::Construction;
+use crate::strings::kind::{Gauge, StringKind};
+use crate::strings::physics;
 
 /// A small set of warning flags.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]

@@ -1,7 +1,7 @@
 //! The physics of a stretched string, as pure functions in SI units.
 //!
 //! Every function takes and returns SI values (m, kg/m, N, Pa, Hz, kg/m³); conversion to the
-//! units people write happens at the edges ([`crate::units`]). Nothing here allocates, so the
+//! units people write happens at the edges ([`crate::input::units`]). Nothing here allocates, so the
 //! selector can call these millions of times.
 //!
 //! Sources are cited per function with the section of `REFERENCES.md` that collects them and

@@ -5,8 +5,8 @@
 //! weighing. Only the load-bearing part (the whole of a plain string, the core of a wound one)
 //! carries tension (REFERENCES §6.2, PRACTICE).
 
-use crate::material::Material;
-use crate::physics::{self, CoreShape, WrapLayer};
+use crate::strings::material::Material;
+use crate::strings::physics::{self, CoreShape, WrapLayer};
 
 /// The core of a wound string.
 #[derive(Debug, Clone, Copy, PartialEq)]

@@ -4,14 +4,13 @@
 //! The JSON layout is documented in README ("The plan's JSON"); field names are a stable
 //! interface for scripts.
 
+pub mod solve;
+pub mod warning;
+
 use serde::{Deserialize, Serialize};
 
-use std::str::FromStr;
-
-use crate::error::Result;
-use crate::pitch::{nearest_note_name, PitchSpec};
-use crate::tuning::Tuning;
-use crate::warning::{Severity, Warning};
+use crate::plan::warning::{Severity, Warning};
+pub use crate::tuning::course_pitch::CoursePitch;
 
 /// A solved instrument.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -33,41 +32,6 @@ pub struct Plan {
     /// Every warning of the plan: those of each course (repeated from the course) and those of
     /// the whole instrument (with `course` null), in course order.
     pub warnings: Vec<Warning>,
-}
-
-/// A course's pitch as written and as resolved in the tuning. Every report carries one, under
-/// the same JSON names.
-#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
-pub struct CoursePitch {
-    /// The pitch as written in the instrument file.
-    #[serde(rename = "pitch")]
-    pub written: String,
-    /// The tuning's own label for the pitch (e.g. a degree).
-    #[serde(rename = "pitch_label")]
-    pub label: String,
-    /// The nearest 12-tone note name at the tuning's concert pitch, e.g. `E4`.
-    pub note_name: String,
-    /// Offset from that note in cents.
-    pub note_offset_cents: f64,
-    /// The frequency in hertz.
-    #[serde(rename = "pitch_hz")]
-    pub hz: f64,
-}
-
-impl CoursePitch {
-    /// Resolves `written` in `tuning` and names the nearest 12-tone note. Errors carry no
-    /// location; the caller points them at the file's line.
-    pub fn resolve(written: &str, tuning: &Tuning) -> Result<CoursePitch> {
-        let resolved = tuning.resolve(&PitchSpec::from_str(written)?)?;
-        let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
-        Ok(CoursePitch {
-            written: written.to_string(),
-            label: resolved.label,
-            note_name,
-            note_offset_cents,
-            hz: resolved.hz,
-        })
-    }
 }
 
 /// One course of the plan.
@@ -104,9 +68,9 @@ pub struct StringPlan {
     /// Nearby choices.
     pub alternatives: Alternatives,
     /// Stiffness and feel of the chosen string (partial offsets, bend force), with the default
-    /// afterlengths of [`crate::feel::FeelOptions`].
+    /// afterlengths of [`crate::strings::feel::FeelOptions`].
     #[serde(default)]
-    pub feel: Option<crate::feel::Feel>,
+    pub feel: Option<crate::strings::feel::Feel>,
 }
 
 /// A catalog string at this string's pitch and length: what it is and how it behaves there.

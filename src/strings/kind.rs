@@ -9,16 +9,16 @@ use std::sync::OnceLock;
 
 use serde::Deserialize;
 
-use crate::construction::{
+use crate::error::{Error, Result};
+use crate::input::id::Id;
+use crate::input::registry::{Entry, Registry};
+use crate::input::units::{Length, Mass, UnitMass};
+use crate::strings::construction::{
     default_core_ratio, Construction, CoreRatio, Measured, WoundRecipe, DEFAULT_INNER_SHARE,
 };
-use crate::error::{Error, Result};
-use crate::gauge::GaugeCatalogs;
-use crate::id::Id;
-use crate::material::{Material, Materials};
-use crate::physics::CoreShape;
-use crate::registry::{Entry, Registry};
-use crate::units::{Length, Mass, UnitMass};
+use crate::strings::gauge::GaugeCatalogs;
+use crate::strings::material::{Material, Materials};
+use crate::strings::physics::CoreShape;
 
 /// One available gauge of a kind, with the numbers the selector needs (all SI).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -273,15 +273,15 @@ pub fn load_kinds_file(
     materials: &Materials,
     catalogs: &GaugeCatalogs,
 ) -> Result<StringKinds> {
-    let file: KindsFile = crate::yaml::parse(text, origin)?;
+    let file: KindsFile = crate::input::yaml::parse(text, origin)?;
     let mut kinds = StringKinds::default();
     for (index, spec) in file.kinds.into_iter().enumerate() {
         let place = |err: Error, path: &[&str]| {
-            use crate::yaml::PathStep;
+            use crate::input::yaml::PathStep;
             let mut steps = vec![PathStep::Key("kinds"), PathStep::Index(index)];
             steps.extend(path.iter().map(|key| PathStep::Key(key)));
             let err = err.field(format!("kinds[{index}].{}", path.join(".")));
-            let err = match crate::yaml::locate(text, &steps) {
+            let err = match crate::input::yaml::locate(text, &steps) {
                 Some((line, column)) => err.at(line, column),
                 None => err,
             };

@@ -11,9 +11,9 @@ use std::path::Path;
 use std::sync::OnceLock;
 
 use crate::error::{Error, Result};
-use crate::gauge::{load_catalogs_file, GaugeCatalogs};
-use crate::kind::{load_kinds_file, StringKinds};
-use crate::material::{load_materials_file, Materials};
+use crate::strings::gauge::{load_catalogs_file, GaugeCatalogs};
+use crate::strings::kind::{load_kinds_file, StringKinds};
+use crate::strings::material::{load_materials_file, Materials};
 
 /// Materials, gauge catalogs and string kinds available to a solve.
 #[derive(Debug, Clone)]
@@ -49,7 +49,7 @@ impl Stock {
         let mut stock = builtin.clone();
         for path in paths {
             let path = path.as_ref();
-            let text = crate::yaml::read_text(path)?;
+            let text = crate::input::yaml::read_text(path)?;
             stock.add_text(&text, &path.display().to_string())?;
         }
         Ok(Cow::Owned(stock))

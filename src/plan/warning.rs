@@ -5,7 +5,7 @@
 
 use serde::{Deserialize, Serialize};
 
-// The stress limits and the tension tolerance are the selector's (`crate::select`), where their
+// The stress limits and the tension tolerance are the selector's (`crate::strings::select`), where their
 // sources are given: caution above 65 %, danger above 85 % of breaking strength, ±10 % tolerance.
 
 /// What a warning is about. Serialized in snake_case (`stress_danger`).
@@ -204,7 +204,7 @@ impl StringRef {
             "{} is {:.3} mm ({:.4} in) across, wider than the {:.3} mm its slot or hole takes.",
             self.named(),
             diameter_m * 1000.0,
-            diameter_m / crate::units::METRES_PER_INCH,
+            diameter_m / crate::input::units::METRES_PER_INCH,
             slot_m * 1000.0
         );
         self.warning(WarningKind::WiderThanSlot, diameter_m, slot_m, message)

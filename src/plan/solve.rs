@@ -1,24 +1,24 @@
 //! From an instrument, a tuning and options to a [`Plan`]: resolve each course's pitch through
 //! the tuning, derive each string's pitch from its interval, ask the selector
-//! ([`crate::select::select`]) for a string, and turn its flags into [`Warning`]s.
+//! ([`crate::strings::select::select`]) for a string, and turn its flags into [`Warning`]s.
 //!
-//! Physics (Mersenne's laws, f = (1/2L)·√(T/μ), REFERENCES.md §1) lives in [`crate::physics`]
-//! and the choice rule in [`crate::select`]; this module only wires them to the instrument.
+//! Physics (Mersenne's laws, f = (1/2L)·√(T/μ), REFERENCES.md §1) lives in [`crate::strings::physics`]
+//! and the choice rule in [`crate::strings::select`]; this module only wires them to the instrument.
 //! Kind lists are resolved once up front into one flat list, and the selector's scratch space
 //! is one buffer reused for every string, so solving a course allocates only its output.
 
 use std::ops::Range;
 
 use crate::error::{Error, Result};
+use crate::input::units::METRES_PER_INCH;
+use crate::input::yaml::PathStep;
 use crate::instrument::{field_name, CourseInput, Instrument, TensionSpec};
-use crate::kind::{KindBuild, StringKind, StringKinds};
+use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::{Alternatives, CoursePlan, Plan, StringChoice, StringPlan};
-use crate::select::{self, Checks, Choice, Request, StressLimits, Warnings};
-use crate::stock::Stock;
+use crate::strings::kind::{KindBuild, StringKind, StringKinds};
+use crate::strings::select::{self, Checks, Choice, Request, StressLimits, Warnings};
+use crate::strings::stock::Stock;
 use crate::tuning::{self, Tuning};
-use crate::units::METRES_PER_INCH;
-use crate::warning::{with_load_check, StringRef, Warning, WarningKind};
-use crate::yaml::PathStep;
 
 /// The tuning used when neither the command line nor the instrument names one: 12 equal
 /// divisions of the octave at A4 = 440 Hz (ISO 16:1975).
@@ -319,11 +319,11 @@ impl CourseContext<'_> {
                 pitch_hz,
             );
             let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, &request);
-            let feel = crate::feel::feel(
+            let feel = crate::strings::feel::feel(
                 &kind.construction(chosen.diameter),
                 chosen.tension,
                 course.length_m,
-                &crate::feel::FeelOptions::default(),
+                &crate::strings::feel::FeelOptions::default(),
             );
             strings.push(StringPlan {
                 interval: string.interval.written().to_string(),

@@ -3,7 +3,7 @@
 //! anything shipped.
 
 use crate::error::{did_you_mean, Error, Result};
-use crate::id::Id;
+use crate::input::id::Id;
 
 /// An entry a [`Registry`] can hold.
 pub trait Entry {

@@ -1,5 +1,5 @@
 //! Stiffness and feel of one string on its course: how inharmonic it is, and how hard it is to
-//! bend. Built on the pure functions of [`crate::physics`]; this module only chooses what to
+//! bend. Built on the pure functions of [`crate::strings::physics`]; this module only chooses what to
 //! report and with which defaults.
 //!
 //! # Inharmonicity
@@ -33,8 +33,8 @@
 
 use serde::{Deserialize, Serialize};
 
-use crate::construction::Construction;
-use crate::physics::{self, BendGeometry};
+use crate::strings::construction::Construction;
+use crate::strings::physics::{self, BendGeometry};
 
 /// The partials whose offsets are reported.
 pub const PARTIALS: [u32; 3] = [2, 4, 8];
@@ -141,7 +141,7 @@ pub fn cells(feel: &Feel) -> [String; 3] {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::material::Materials;
+    use crate::strings::material::Materials;
 
     #[test]
     fn partial_offsets_grow_with_partial_number() {
@@ -163,7 +163,7 @@ mod tests {
 
     #[test]
     fn unknown_material_gives_no_figures() {
-        let string = Construction::Measured(crate::construction::Measured {
+        let string = Construction::Measured(crate::strings::construction::Measured {
             unit_mass: 0.001,
             diameter: None,
             material: None,

@@ -1,6 +1,6 @@
 //! String sets: the strings actually on an instrument (or planned for it), course by course.
 //!
-//! A set file is YAML read through [`crate::yaml::parse`] with unknown keys refused. Each string
+//! A set file is YAML read through [`crate::input::yaml::parse`] with unknown keys refused. Each string
 //! is written in one of three ways:
 //!
 //! ```yaml
@@ -33,15 +33,15 @@ use std::path::Path;
 
 use serde::{Deserialize, Deserializer};
 
-use crate::construction::{Construction, Measured, WoundRecipe};
 use crate::error::{Error, Result};
+use crate::input::units::{Length, Mass, UnitMass, METRES_PER_INCH};
+use crate::input::yaml::{self, PathStep};
 use crate::instrument::{Expecting, NoDetail, ScalarOrMap};
-use crate::kind::{KindBuild, StringKind, StringKinds};
-use crate::material::{Material, Materials};
 use crate::plan::Plan;
-use crate::stock::Stock;
-use crate::units::{Length, Mass, UnitMass, METRES_PER_INCH};
-use crate::yaml::{self, PathStep};
+use crate::strings::construction::{Construction, Measured, WoundRecipe};
+use crate::strings::kind::{KindBuild, StringKind, StringKinds};
+use crate::strings::material::{Material, Materials};
+use crate::strings::stock::Stock;
 
 /// The most courses a set may list (the same bound as instruments).
 pub const MAX_SET_COURSES: usize = crate::instrument::MAX_COURSES;
@@ -453,7 +453,7 @@ impl SetString {
                     ) => WoundRecipe {
                         core_material,
                         core_shape: *core_shape,
-                        core_ratio: crate::construction::CoreRatio::Fixed(core / diameter),
+                        core_ratio: crate::strings::construction::CoreRatio::Fixed(core / diameter),
                         inner,
                         outer: outer.as_ref().map(|(m, share)| (m, *share)),
                     }

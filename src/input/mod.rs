@@ -1,0 +1,10 @@
+//! Stage 1, reading input: the one YAML reader, quantities with units, checked ids and the
+//! registry that the shipped and user string data share.
+//!
+//! Nothing here knows about strings or tunings; every later stage reads its files through
+//! [`yaml`] and its quantities through [`units`].
+
+pub mod id;
+pub mod registry;
+pub mod units;
+pub mod yaml;

@@ -1,0 +1,11 @@
+//! Stage 5, sets: the strings actually on an instrument, and what can be asked of them.
+//!
+//! | module | holds |
+//! |---|---|
+//! | [`set`] | string-set files: kind + diameter, a measured μ, or a weighed string, per course |
+//! | [`audit`] | an installed set under a tuning, with a verdict per course |
+//! | [`convert`] | a set moved to a new tuning or scale length, keeping each string's feel |
+
+pub mod audit;
+pub mod convert;
+pub mod set;
