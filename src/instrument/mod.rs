@@ -7,7 +7,9 @@
 //! length) run in [`Instrument::from_text`] and are pointed back at their line with
 //! [`crate::input::yaml::locate`].
 
+mod check;
 mod interval;
+mod quantities;
 mod scalar_or_map;
 mod templates;
 mod tension;
@@ -18,6 +20,7 @@ use std::str::FromStr;
 use serde::Deserialize;
 
 pub use interval::Interval;
+pub use quantities::{Percent, ScaleLength};
 pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
@@ -33,108 +36,6 @@ use crate::tuning::Tuning;
 pub const MAX_COURSES: usize = 1000;
 /// The most strings one course may hold (single, pair or triple courses).
 pub const MAX_STRINGS_PER_COURSE: usize = 3;
-
-/// A fraction written as a percentage, e.g. `10%`.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub struct Percent(f64);
-
-impl Percent {
-    /// The fraction (0.1 for `10%`).
-    pub fn fraction(self) -> f64 {
-        self.0
-    }
-}
-
-impl FromStr for Percent {
-    type Err = Error;
-
-    fn from_str(text: &str) -> Result<Self> {
-        let trimmed = text.trim();
-        let number = trimmed.strip_suffix('%').ok_or_else(|| {
-            Error::input(format!("`{trimmed}` is not a percentage"))
-                .help("write the per cent sign, e.g. `10%`")
-        })?;
-        let value: f64 = number
-            .trim()
-            .parse()
-            .map_err(|_| Error::input(format!("`{trimmed}` is not a percentage")))?;
-        if !(value.is_finite() && value > 0.0 && value <= 1000.0) {
-            return Err(Error::input(format!(
-                "`{trimmed}` must be above 0% and at most 1000%"
-            )));
-        }
-        Ok(Percent(value / 100.0))
-    }
-}
-
-impl Expecting for Percent {
-    const EXPECTING: &'static str = "a percentage such as `10%`";
-}
-
-impl<'de> Deserialize<'de> for Percent {
-    fn deserialize<D: serde::Deserializer<'de>>(
-        deserializer: D,
-    ) -> std::result::Result<Self, D::Error> {
-        scalar_or_map::scalar(deserializer)
-    }
-}
-
-/// The vibrating length: one for every course, or two end values spread across the courses
-/// (a fanned neck, a harp's changing string length given by its ends).
-#[derive(Debug, Clone, PartialEq)]
-pub enum ScaleLength {
-    /// The same length for every course.
-    Uniform(Length),
-    /// From the first listed course to the last, with a shape between them.
-    Spread {
-        /// Length at the first listed course.
-        first: Length,
-        /// Length at the last listed course.
-        last: Length,
-        /// How the length moves between them (linear for frets fanned on a straight line).
-        shape: Shape,
-    },
-}
-
-#[derive(Debug, Clone, Deserialize)]
-#[serde(deny_unknown_fields)]
-struct SpreadDetail {
-    #[serde(deserialize_with = "scalar_or_map::scalar")]
-    first: Length,
-    #[serde(deserialize_with = "scalar_or_map::scalar")]
-    last: Length,
-    #[serde(default)]
-    shape: Shape,
-}
-
-impl<'de> Deserialize<'de> for ScaleLength {
-    fn deserialize<D: serde::Deserializer<'de>>(
-        deserializer: D,
-    ) -> std::result::Result<Self, D::Error> {
-        Ok(
-            match ScalarOrMap::<Length, SpreadDetail>::deserialize(deserializer)? {
-                ScalarOrMap::Scalar(length) => ScaleLength::Uniform(length),
-                ScalarOrMap::Map(spread) => ScaleLength::Spread {
-                    first: spread.first,
-                    last: spread.last,
-                    shape: spread.shape,
-                },
-            },
-        )
-    }
-}
-
-impl ScaleLength {
-    /// The length in metres a fraction `position` of the way from the first course to the last.
-    pub fn at(&self, position: f64) -> f64 {
-        match self {
-            ScaleLength::Uniform(length) => length.si(),
-            ScaleLength::Spread { first, last, shape } => {
-                shape.between(first.si(), last.si(), position)
-            }
-        }
-    }
-}
 
 /// Fractions of the breaking strength at which the stress warnings fire.
 #[derive(Debug, Clone, Copy, PartialEq, Deserialize)]
@@ -380,131 +281,6 @@ impl Instrument {
             error = error.at(line, column);
         }
         error.in_origin(self.origin.clone())
-    }
-
-    fn check(&self) -> Result<()> {
-        if self.courses.is_empty() {
-            return Err(self.point(
-                Error::input("the instrument has no courses; list at least one")
-                    .help("write e.g. `courses: [{pitch: E4}]`"),
-                &[PathStep::Key("courses")],
-            ));
-        }
-        if self.courses.len() > MAX_COURSES {
-            return Err(self.point(
-                Error::input(format!(
-                    "the instrument has {} courses; taut plans at most {MAX_COURSES}",
-                    self.courses.len()
-                )),
-                &[PathStep::Key("courses")],
-            ));
-        }
-        if self
-            .defaults
-            .tension
-            .as_ref()
-            .is_some_and(|t| t.is_profile())
-            && self.courses.len() < 2
-        {
-            return Err(self.point(
-                Error::input("a tension profile runs from the first course to the last; it needs at least two courses"),
-                &[PathStep::Key("defaults"), PathStep::Key("tension")],
-            ));
-        }
-        self.check_kind_list(
-            self.defaults.kinds.as_deref(),
-            &[PathStep::Key("defaults"), PathStep::Key("kinds")],
-        )?;
-        let mut numbers: Vec<(u32, usize)> = Vec::with_capacity(self.courses.len());
-        for (index, course) in self.courses.iter().enumerate() {
-            let at = |key: &'static str| {
-                [
-                    PathStep::Key("courses"),
-                    PathStep::Index(index),
-                    PathStep::Key(key),
-                ]
-            };
-            let number = self.course_number(index);
-            if number == 0 {
-                return Err(self.point(Error::input("course numbers start at 1"), &at("course")));
-            }
-            numbers.push((number, index));
-            if course.pitch.trim().is_empty() {
-                return Err(self.point(Error::input("the pitch is empty"), &at("pitch")));
-            }
-            if course.scale_length.is_none() && self.scale_length.is_none() {
-                return Err(self.point(
-                    Error::input(format!("course {number} has no vibrating length"))
-                        .field(format!("courses[{index}].scale_length"))
-                        .help("give the course a `scale_length`, or give the instrument one for all courses"),
-                    &[PathStep::Key("courses"), PathStep::Index(index)],
-                ));
-            }
-            if course.tension.as_ref().is_some_and(|t| t.is_profile()) {
-                return Err(self.point(
-                    Error::input("a tension profile (`first`/`last`) spans the whole instrument")
-                        .help("put the profile in `defaults.tension`, or give this course a target or window"),
-                    &at("tension"),
-                ));
-            }
-            if course.strings.is_empty() || course.strings.len() > MAX_STRINGS_PER_COURSE {
-                return Err(self.point(
-                    Error::input(format!(
-                        "course {number} lists {} strings; a course holds 1 to {MAX_STRINGS_PER_COURSE}",
-                        course.strings.len()
-                    )),
-                    &at("strings"),
-                ));
-            }
-            self.check_kind_list(course.kinds.as_deref(), &at("kinds"))?;
-            for (string_index, string) in course.strings.iter().enumerate() {
-                self.check_kind_list(
-                    string.kinds.as_deref(),
-                    &[
-                        PathStep::Key("courses"),
-                        PathStep::Index(index),
-                        PathStep::Key("strings"),
-                        PathStep::Index(string_index),
-                        PathStep::Key("kinds"),
-                    ],
-                )?;
-            }
-        }
-        numbers.sort_unstable();
-        if let Some(pair) = numbers.windows(2).find(|pair| pair[0].0 == pair[1].0) {
-            let (number, first_index) = pair[0];
-            let second_index = pair[1].1;
-            let first_line = yaml::locate(
-                &self.text,
-                &[PathStep::Key("courses"), PathStep::Index(first_index)],
-            )
-            .map(|(line, _)| format!(" (line {line})"))
-            .unwrap_or_default();
-            return Err(self.point(
-                Error::input(format!(
-                    "course number {number} is used twice; it was already given to the course at position {}{first_line}",
-                    first_index + 1
-                )),
-                &[
-                    PathStep::Key("courses"),
-                    PathStep::Index(second_index),
-                    PathStep::Key("course"),
-                ],
-            ));
-        }
-        Ok(())
-    }
-
-    fn check_kind_list(&self, kinds: Option<&[String]>, path: &[PathStep<'_>]) -> Result<()> {
-        if kinds.is_some_and(|k| k.is_empty()) {
-            return Err(self.point(
-                Error::input(
-                    "the list of allowed kinds is empty; name at least one, or leave the key out",
-                ),
-                path,
-            ));
-        }
-        Ok(())
     }
 
     /// The number shown for the course at `index`: its own `course`, or its position from 1.
