@@ -40,13 +40,21 @@ use crate::input::yaml::{self, PathStep};
 use crate::instrument::{field_name, Percent, TensionSpec};
 use crate::plan::warning::{StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
-use crate::sets::audit::cautions_for;
+use crate::sets::matching::cautions_for;
 use crate::sets::set::{check_entry, SetString, StringEntryFile};
 use crate::strings::feel::{self, Feel, FeelOptions};
 use crate::strings::physics;
 use crate::strings::select::{self, Checks, StressLimits, Warnings};
 use crate::strings::stock::Stock;
 use crate::tuning::{self, Tuning};
+
+mod read;
+#[allow(unused_imports)]
+use read::*;
+mod solve;
+#[allow(unused_imports)]
+use solve::*;
+pub use solve::*;
 
 /// Default largest change of the wave speed √(T/μ) between neighbouring courses: 15 % (see the
 /// module documentation).
@@ -188,150 +196,6 @@ pub struct Jump {
     pub message: String,
 }
 
-impl LayoutInput {
-    /// Reads a layout file.
-    pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
-        let text = yaml::read_text(path)?;
-        LayoutInput::from_text(text, &path.display().to_string(), stock)
-    }
-
-    /// Parses and checks a layout; `origin` names it in messages.
-    pub fn from_text(text: String, origin: &str, stock: &Stock) -> Result<Self> {
-        let file: LayoutFile = yaml::parse(&text, origin)?;
-        let mut input = LayoutInput {
-            name: file.name,
-            about: file.about,
-            tuning: file.tuning,
-            tension: file.tension,
-            max_step: file
-                .max_step
-                .map_or(DEFAULT_MAX_STEP, |percent| percent.fraction()),
-            courses: Vec::with_capacity(file.courses.len()),
-            origin: origin.to_string(),
-            text,
-        };
-        if file.courses.is_empty() {
-            return Err(input.point(
-                Error::input("the layout has no courses; list at least one"),
-                &[PathStep::Key("courses")],
-            ));
-        }
-        if file.courses.len() > crate::instrument::MAX_COURSES {
-            return Err(input.point(
-                Error::input(format!(
-                    "the layout lists {} courses; taut lays out at most {}",
-                    file.courses.len(),
-                    crate::instrument::MAX_COURSES
-                )),
-                &[PathStep::Key("courses")],
-            ));
-        }
-        let (kinds, materials) = (stock.kinds(), stock.materials());
-        for (index, course) in file.courses.into_iter().enumerate() {
-            let at = |key: &'static str| {
-                [
-                    PathStep::Key("courses"),
-                    PathStep::Index(index),
-                    PathStep::Key(key),
-                ]
-            };
-            let number = match course.course {
-                Some(0) => {
-                    return Err(
-                        input.point(Error::input("course numbers start at 1"), &at("course"))
-                    )
-                }
-                Some(number) => number,
-                None => u32::try_from(index + 1).unwrap_or(u32::MAX),
-            };
-            if input.courses.iter().any(|c| c.course == number) {
-                return Err(input.point(
-                    Error::input(format!("course number {number} is used twice")),
-                    &at("course"),
-                ));
-            }
-            if course.pitch.trim().is_empty() {
-                return Err(input.point(Error::input("the pitch is empty"), &at("pitch")));
-            }
-            if course.tension.as_ref().is_some_and(TensionSpec::is_profile) {
-                return Err(input.point(
-                    Error::input("a tension profile (`first`/`last`) spans the whole layout")
-                        .help("put the profile in the top-level `tension`"),
-                    &at("tension"),
-                ));
-            }
-            let string = check_entry(course.string, kinds, materials).map_err(|(err, key)| {
-                input.point(
-                    err,
-                    &[
-                        PathStep::Key("courses"),
-                        PathStep::Index(index),
-                        PathStep::Key("string"),
-                        PathStep::Key(key),
-                    ],
-                )
-            })?;
-            input.courses.push(LayoutCourseInput {
-                course: number,
-                pitch: course.pitch.trim().to_string(),
-                string,
-                tension: course.tension,
-            });
-        }
-        if input.tension.as_ref().is_some_and(TensionSpec::is_profile) && input.courses.len() < 2 {
-            return Err(input.point(
-                Error::input("a tension profile runs from the first course to the last; it needs at least two courses"),
-                &[PathStep::Key("tension")],
-            ));
-        }
-        Ok(input)
-    }
-
-    /// A one-course layout from command-line values: `string` is a set-file string entry such as
-    /// `{kind: plain-steel, diameter: 0.016in}`.
-    pub fn single(pitch: &str, string: &str, tension: TensionSpec, stock: &Stock) -> Result<Self> {
-        let entry: StringEntryFile = yaml::parse(string, "--string")?;
-        let (kinds, materials) = (stock.kinds(), stock.materials());
-        let string = check_entry(entry, kinds, materials)
-            .map_err(|(err, key)| err.field(key).in_origin("--string"))?;
-        if tension.is_profile() {
-            return Err(
-                Error::input("a profile needs several courses; give one tension")
-                    .in_origin("--tension"),
-            );
-        }
-        Ok(LayoutInput {
-            name: format!("{pitch} on one course"),
-            about: None,
-            tuning: None,
-            tension: Some(tension),
-            max_step: DEFAULT_MAX_STEP,
-            courses: vec![LayoutCourseInput {
-                course: 1,
-                pitch: pitch.trim().to_string(),
-                string,
-                tension: None,
-            }],
-            origin: "--pitch".to_string(),
-            text: String::new(),
-        })
-    }
-
-    /// Attaches this file's name, the field and, where found, its line to an error.
-    pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
-        let mut error = error.field(field_name(path));
-        let mut search = path;
-        while !search.is_empty() {
-            if let Some((line, column)) = yaml::locate(&self.text, search) {
-                error = error.at(line, column);
-                break;
-            }
-            search = &search[..search.len() - 1];
-        }
-        error.in_origin(self.origin.clone())
-    }
-}
-
 /// Choices that override the layout file.
 #[derive(Debug, Clone, Default)]
 pub struct LayoutOptions {
@@ -355,160 +219,4 @@ pub fn lay_out(input: &LayoutInput, stock: &Stock, options: &LayoutOptions) -> R
         (None, None) => tuning::load(DEFAULT_TUNING)?,
     };
     solve_layout(input, &tuning, stock, options)
-}
-
-/// Lays out the courses of `input` in `tuning`.
-pub fn solve_layout(
-    input: &LayoutInput,
-    tuning: &Tuning,
-    stock: &Stock,
-    options: &LayoutOptions,
-) -> Result<Layout> {
-    let (kinds, materials) = (stock.kinds(), stock.materials());
-    let max_step = options.max_step.unwrap_or(input.max_step);
-    let limits = StressLimits::default();
-    let count = input.courses.len();
-    let mut courses: Vec<LayoutCourse> = Vec::with_capacity(count);
-    let mut warnings = Vec::new();
-    let mut jumps = Vec::new();
-    for (index, course) in input.courses.iter().enumerate() {
-        let at_key = |key: &'static str| {
-            [
-                PathStep::Key("courses"),
-                PathStep::Index(index),
-                PathStep::Key(key),
-            ]
-        };
-        let resolved = CoursePitch::resolve(&course.pitch, tuning)
-            .map_err(|err| input.point(err, &at_key("pitch")))?;
-        let position = if count > 1 {
-            index as f64 / (count - 1) as f64
-        } else {
-            0.0
-        };
-        let spec = options
-            .tension
-            .as_ref()
-            .or(course.tension.as_ref())
-            .or(input.tension.as_ref())
-            .ok_or_else(|| {
-                input.point(
-                    Error::input(format!("course {} has no tension", course.course))
-                        .help("give a top-level `tension` (a target or a `first`/`last` profile), the course's own, or --tension"),
-                    &[PathStep::Key("courses"), PathStep::Index(index)],
-                )
-            })?;
-        let tension_n = spec.goal_at(position).target_n;
-        let string = course
-            .string
-            .resolve(kinds, materials)
-            .map_err(|err| input.point(err, &at_key("string")))?;
-        let unit_mass = string.construction.unit_mass();
-        let length_m = physics::length_for_tension(tension_n, unit_mass, resolved.hz);
-        let evaluation = select::evaluate(
-            &string.construction,
-            resolved.hz,
-            length_m,
-            &Checks {
-                limits,
-                ..Checks::default()
-            },
-        );
-        let at = StringRef {
-            course: course.course,
-            string: 1,
-        };
-        if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency)
-        {
-            if evaluation.warnings.contains(Warnings::STRESS_DANGER) {
-                warnings.push(at.stress(
-                    WarningKind::StressDanger,
-                    ratio,
-                    limits.danger,
-                    break_hz,
-                    resolved.hz,
-                ));
-            } else if evaluation.warnings.contains(Warnings::STRESS_CAUTION) {
-                warnings.push(at.stress(
-                    WarningKind::StressCaution,
-                    ratio,
-                    limits.caution,
-                    break_hz,
-                    resolved.hz,
-                ));
-            }
-        }
-        // f·L = √(T/μ)/2: the step of the wave speed between neighbours.
-        let speed = (tension_n / unit_mass).sqrt();
-        let step_pct = courses.last().map(|previous| {
-            let previous_speed = (previous.tension_n / previous.unit_mass_kg_per_m).sqrt();
-            (speed / previous_speed - 1.0) * 100.0
-        });
-        if let (Some(previous), Some(step)) = (courses.last(), step_pct) {
-            if step.abs() > max_step * 100.0 {
-                jumps.push(Jump {
-                    kind: JumpKind::Step,
-                    from_course: previous.course,
-                    to_course: course.course,
-                    value_pct: step,
-                    message: format!(
-                        "Courses {} to {}: √(T/μ) changes by {:+.0}% (limit ±{:.0}%), so the length steps by {:+.0}% more than the pitch asks; choose a {} string for course {} or move the tension to smooth the bridge line.",
-                        previous.course,
-                        course.course,
-                        step,
-                        max_step * 100.0,
-                        step,
-                        if step > 0.0 { "heavier" } else { "lighter" },
-                        course.course
-                    ),
-                });
-            }
-            let pitch_direction = resolved.hz - previous.pitch.hz;
-            let length_direction = length_m - previous.length_m;
-            if pitch_direction * length_direction > 0.0
-                && (length_m / previous.length_m - 1.0).abs() > FOLD_BACK_TOLERANCE
-            {
-                let change = (length_m / previous.length_m - 1.0) * 100.0;
-                jumps.push(Jump {
-                    kind: JumpKind::FoldBack,
-                    from_course: previous.course,
-                    to_course: course.course,
-                    value_pct: change,
-                    message: format!(
-                        "Courses {} to {}: the pitch goes {} but the length goes {} ({:+.1}%), so the bridge line folds back.",
-                        previous.course,
-                        course.course,
-                        if pitch_direction > 0.0 { "up" } else { "down" },
-                        if length_direction > 0.0 { "up" } else { "down" },
-                        change
-                    ),
-                });
-            }
-        }
-        let diameter = course.string.diameter();
-        courses.push(LayoutCourse {
-            course: course.course,
-            pitch: resolved,
-            string: course.string.label(),
-            diameter_mm: diameter.map(|d| d * 1000.0),
-            diameter_in: diameter.map(|d| d / METRES_PER_INCH),
-            unit_mass_kg_per_m: unit_mass,
-            tension_n,
-            length_m,
-            stress_ratio: evaluation.stress_ratio,
-            break_pitch_hz: evaluation.break_frequency,
-            step_pct,
-            feel: feel::feel(&string.construction, tension_n, length_m, &options.feel),
-        });
-    }
-    Ok(Layout {
-        name: input.name.clone(),
-        tuning: tuning.name().to_string(),
-        max_step,
-        total_tension_n: courses.iter().map(|c| c.tension_n).sum(),
-        cautions: cautions_for(&warnings),
-        courses,
-        jumps,
-        warnings,
-    })
 }

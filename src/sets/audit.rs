@@ -24,16 +24,14 @@ use serde::Serialize;
 
 use crate::error::{Error, Result};
 use crate::input::units::METRES_PER_INCH;
-use crate::input::yaml::PathStep;
 use crate::instrument::{CourseInput, CourseString, Instrument};
-use crate::plan::warning::{
-    with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS,
-};
+use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
+use crate::sets::matching::{
+    cautions_for, check_no_extra_courses, missing_course, set_strings, stress_limits,
+};
 use crate::sets::set::{ResolvedString, SetString, StringSet};
 use crate::strings::feel::{self, Feel, FeelOptions};
-use crate::strings::kind::StringKinds;
-use crate::strings::material::Materials;
 use crate::strings::physics;
 use crate::strings::select::{self, Checks, StressLimits, Warnings};
 use crate::strings::stock::Stock;
@@ -159,108 +157,6 @@ pub struct AuditString {
     pub break_pitch_hz: Option<f64>,
     /// Stiffness and feel.
     pub feel: Feel,
-}
-
-/// The instrument's stress limits (its own, or the selector's defaults).
-pub(crate) fn stress_limits(instrument: &Instrument) -> StressLimits {
-    let mut limits = StressLimits::default();
-    if let Some(own) = instrument.stress_limits {
-        if let Some(caution) = own.caution {
-            limits.caution = caution.fraction();
-        }
-        if let Some(danger) = own.danger {
-            limits.danger = danger.fraction();
-        }
-    }
-    limits
-}
-
-/// The set's course for an instrument course, with its strings resolved, checking the counts.
-pub(crate) fn set_strings<'k>(
-    set: &StringSet,
-    instrument: &Instrument,
-    course: &CourseInput<'_>,
-    kinds: &'k StringKinds,
-    materials: &'k Materials,
-) -> Result<Option<Vec<(SetString, ResolvedString<'k>)>>> {
-    let Some((set_index, set_course)) = set.course(course.number) else {
-        return Ok(None);
-    };
-    if set_course.strings.len() != course.strings.len() {
-        return Err(set.point(
-            Error::input(format!(
-                "course {} holds {} string(s) here, but the instrument `{}` lists {} for it",
-                course.number,
-                set_course.strings.len(),
-                instrument.name,
-                course.strings.len()
-            )),
-            &[
-                PathStep::Key("courses"),
-                PathStep::Index(set_index),
-                PathStep::Key("strings"),
-            ],
-        ));
-    }
-    let mut out = Vec::with_capacity(set_course.strings.len());
-    for (string_index, string) in set_course.strings.iter().enumerate() {
-        let resolved = string.resolve(kinds, materials).map_err(|err| {
-            set.point(
-                err,
-                &[
-                    PathStep::Key("courses"),
-                    PathStep::Index(set_index),
-                    PathStep::Key("strings"),
-                    PathStep::Index(string_index),
-                ],
-            )
-        })?;
-        out.push((string.clone(), resolved));
-    }
-    Ok(Some(out))
-}
-
-/// The error for an instrument course the set does not string.
-pub(crate) fn missing_course(set: &StringSet, instrument: &Instrument, number: u32) -> Error {
-    set.point(
-        Error::input(format!(
-            "the set has no strings for course {number}, which the instrument `{}` lists",
-            instrument.name
-        ))
-        .help("add the course to the set, numbered as in the instrument"),
-        &[PathStep::Key("courses")],
-    )
-}
-
-/// Refuses set courses the instrument does not have.
-pub(crate) fn check_no_extra_courses(set: &StringSet, instrument: &Instrument) -> Result<()> {
-    for (index, course) in set.courses.iter().enumerate() {
-        let known =
-            (0..instrument.courses.len()).any(|i| instrument.course_number(i) == course.course);
-        if !known {
-            return Err(set.point(
-                Error::input(format!(
-                    "course {} is not a course of the instrument `{}`",
-                    course.course, instrument.name
-                ))
-                .help("number the set's courses as the instrument numbers them"),
-                &[PathStep::Key("courses"), PathStep::Index(index)],
-            ));
-        }
-    }
-    Ok(())
-}
-
-/// Safety cautions to show when any warning is a caution or a danger.
-pub(crate) fn cautions_for(warnings: &[Warning]) -> Vec<String> {
-    if warnings
-        .iter()
-        .any(|warning| warning.severity >= Severity::Caution)
-    {
-        SAFETY_CAUTIONS.iter().map(|s| s.to_string()).collect()
-    } else {
-        Vec::new()
-    }
 }
 
 /// Where the strings are now, for measuring tension changes: an instrument (often the same one)

@@ -24,6 +24,7 @@ pub mod library;
 pub mod listing;
 pub mod pitch;
 pub mod reference;
+mod resolve;
 pub mod shape;
 
 use num_rational::Ratio;
@@ -37,6 +38,9 @@ use crate::tuning::pitch::{
 };
 pub use interval::Interval;
 pub use reference::{Reference, ReferenceSpec};
+
+#[cfg(test)]
+mod tests;
 
 /// Most degrees per period (or entries in a list) a tuning may have. Real tunings stay far below;
 /// the bound keeps a typo (`1000000edo`) from allocating gigabytes.
@@ -359,112 +363,6 @@ impl Tuning {
     pub fn cents_above_degree_zero(&self, k: i64) -> Option<f64> {
         self.absolute_cents(k).map(|(c, _)| c)
     }
-
-    /// Resolves a pitch as written against this tuning. Note names must land on a degree
-    /// (within [`LANDING_TOLERANCE_CENTS`]) unless snapped with `~` or moved by an explicit
-    /// cents offset; degrees must exist in the tuning.
-    pub fn resolve(&self, spec: &PitchSpec) -> Result<ResolvedPitch> {
-        let label = spec.to_string();
-        match spec {
-            PitchSpec::Degree { degree } => Ok(self.degree(*degree)?.resolved(label)),
-            PitchSpec::PeriodStep { period, step } => {
-                let n = self.degrees_per_period().ok_or_else(|| {
-                    Error::input(format!(
-                        "`{label}` names a period, but `{}` is a list of frequencies without periods",
-                        self.name
-                    ))
-                    .help("name a degree instead, e.g. `deg3`")
-                })? as i64;
-                if !(0..n).contains(step) {
-                    return Err(Error::input(format!(
-                        "`{label}`: `{}` has {n} degrees per period, so the degree within a period runs 0 to {}",
-                        self.name,
-                        n - 1
-                    )));
-                }
-                let k = i64::checked_mul(*period, n)
-                    .and_then(|base| base.checked_add(*step))
-                    .ok_or_else(|| Error::input(format!("`{label}` is out of range")))?;
-                Ok(self.degree(k)?.resolved(label))
-            }
-            PitchSpec::Note {
-                note,
-                offset_cents,
-                has_offset,
-                snap,
-            } => {
-                let hz = note.hz(self.concert_a4_hz()) * ratio_from_cents(*offset_cents);
-                let nearest = self.nearest_degree(hz).ok_or_else(|| {
-                    Error::input(format!("`{label}` is out of this tuning's range"))
-                })?;
-                let distance = cents(hz / nearest.hz);
-                if *snap || distance.abs() <= LANDING_TOLERANCE_CENTS {
-                    return Ok(nearest.resolved(label));
-                }
-                if *has_offset {
-                    return Ok(self.free_pitch(hz, None, label));
-                }
-                Err(Error::input(format!(
-                    "`{label}` is not a degree of `{}`: the nearest degree, deg{}, is {:+.2} cents away",
-                    self.name, nearest.degree, -distance
-                ))
-                .help(format!(
-                    "write `~{label}` for the nearest degree, `deg{}` to name it, or add a cents offset (e.g. `{label}+0c`) for the exact 12-tone pitch",
-                    nearest.degree
-                )))
-            }
-            PitchSpec::Cents { cents: offset } => {
-                let hz = self.reference.hz * ratio_from_cents(*offset);
-                Ok(self.free_pitch(hz, None, label))
-            }
-            PitchSpec::Ratio { ratio } => {
-                let hz = self.reference.hz * ratio_to_f64(ratio);
-                Ok(self.free_pitch(hz, Some(*ratio), label))
-            }
-            PitchSpec::Hz { hz } => Ok(self.free_pitch(*hz, None, label)),
-        }
-        .and_then(|resolved: ResolvedPitch| {
-            if resolved.hz.is_finite() && resolved.hz > 0.0 {
-                Ok(resolved)
-            } else {
-                Err(Error::input(format!(
-                    "`{}` is out of range: its frequency is not a finite number",
-                    resolved.label
-                )))
-            }
-        })
-    }
-
-    /// A pitch given by frequency; it records the degree it lands on, if any.
-    fn free_pitch(&self, hz: f64, ratio: Option<ExactRatio>, label: String) -> ResolvedPitch {
-        let cents_from_reference = match &ratio {
-            Some(ratio) => cents_of_ratio(ratio),
-            None => cents(hz / self.reference.hz),
-        };
-        let degree = self
-            .nearest_degree(hz)
-            .filter(|d| cents(hz / d.hz).abs() <= LANDING_TOLERANCE_CENTS)
-            .map(|d| d.degree);
-        ResolvedPitch {
-            hz,
-            cents_from_reference,
-            degree,
-            ratio,
-            label,
-        }
-    }
-}
-
-impl DegreePitch {
-    fn resolved(self, label: String) -> ResolvedPitch {
-        ResolvedPitch {
-            hz: self.hz,
-            cents_from_reference: self.cents_from_reference,
-            degree: Some(self.degree),
-            ratio: self.ratio,
-            label,
-        }
-    }
 }
 
 /// Loads a tuning by shipped name, inline spec or YAML file path (in that order), each
@@ -517,99 +415,4 @@ fn load_body(body: &str) -> Result<Tuning> {
         )),
     };
     Err(error)
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-    use approx::assert_abs_diff_eq;
-
-    fn twelve() -> Tuning {
-        load("12edo").unwrap()
-    }
-
-    #[test]
-    fn twelve_edo_places_e2_and_e4_by_iso_16() {
-        // ISO 16:1975 (A4 = 440 Hz) and f = 440 · 2^((m − 69)/12), REFERENCES §7.2:
-        // E2 = 82.4069 Hz, E4 = 329.6276 Hz (DERIVED).
-        let tuning = twelve();
-        let e2 = tuning.resolve(&"E2".parse().unwrap()).unwrap();
-        assert_eq!(e2.degree, Some(-29));
-        assert_abs_diff_eq!(e2.hz, 82.4069, epsilon = 5e-5);
-        let e4 = tuning.resolve(&"E4".parse().unwrap()).unwrap();
-        assert_abs_diff_eq!(e4.hz, 329.6276, epsilon = 5e-5);
-        assert_eq!(
-            tuning.degree(12).unwrap().ratio,
-            Some(Ratio::from_integer(2))
-        );
-    }
-
-    #[test]
-    fn note_names_must_land_unless_snapped_or_offset() {
-        let tuning = load("19edo").unwrap();
-        let err = tuning
-            .resolve(&"E2".parse().unwrap())
-            .unwrap_err()
-            .to_string();
-        assert!(err.contains("~E2"), "{err}");
-        let snapped = tuning.resolve(&"~E2".parse().unwrap()).unwrap();
-        assert!(snapped.degree.is_some());
-        let free = tuning.resolve(&"E2+0c".parse().unwrap()).unwrap();
-        assert_eq!(free.degree, None);
-        assert_abs_diff_eq!(free.hz, 82.4069, epsilon = 5e-5);
-        // A4 is degree 0 of 19-EDO at the default reference, so it lands.
-        assert_eq!(
-            tuning.resolve(&"A4".parse().unwrap()).unwrap().degree,
-            Some(0)
-        );
-    }
-
-    #[test]
-    fn period_steps_and_free_pitches_resolve() {
-        let tuning = twelve();
-        let p = tuning.resolve(&"deg3p-1".parse().unwrap()).unwrap();
-        assert_eq!(p.degree, Some(-9));
-        let fifth = tuning.resolve(&"3/2".parse().unwrap()).unwrap();
-        assert_eq!(fifth.ratio, Some(Ratio::new(3, 2)));
-        assert_eq!(fifth.degree, None);
-        assert_abs_diff_eq!(fifth.hz, 660.0, epsilon = 1e-9);
-        let octave = tuning.resolve(&"1200c".parse().unwrap()).unwrap();
-        assert_eq!(octave.degree, Some(12));
-        assert!(tuning.resolve(&"deg12p0".parse().unwrap()).is_err());
-    }
-
-    #[test]
-    fn nearest_degree_handles_both_layouts_and_bad_input() {
-        let tuning = twelve();
-        assert_eq!(tuning.nearest_degree(445.0).unwrap().degree, 0);
-        assert_eq!(tuning.nearest_degree(430.0).unwrap().degree, 0);
-        assert_eq!(tuning.nearest_degree(415.0).unwrap().degree, -1);
-        assert!(tuning.nearest_degree(0.0).is_none());
-        assert!(tuning.nearest_degree(f64::NAN).is_none());
-        let list = load("hertz:100,200,300").unwrap();
-        assert_eq!(list.nearest_degree(260.0).unwrap().degree, 2);
-        assert_eq!(list.nearest_degree(10.0).unwrap().degree, 0);
-        assert!(list.degree(3).is_err());
-        assert!(list.degree(-1).is_err());
-        assert_eq!(list.degrees_per_period(), None);
-    }
-
-    #[test]
-    fn huge_degrees_do_not_panic() {
-        let tuning = twelve();
-        for k in [i64::MAX, i64::MIN, 1 << 40] {
-            assert!(tuning.degree(k).is_err(), "{k}");
-        }
-        let just = load("ratios:1/1,9/8,5/4:2/1").unwrap();
-        // Degree 378 is 2^126 (fits in i128); degree 381 is 2^127, which does not: the ratio is
-        // gone but the frequency stays. Degree 3100 is 2^1033 · 440 Hz, beyond f64.
-        assert_eq!(
-            just.degree(378).unwrap().ratio,
-            Some(Ratio::from_integer(1i128 << 126))
-        );
-        let high = just.degree(381).unwrap();
-        assert_eq!(high.ratio, None);
-        assert!(high.hz.is_finite());
-        assert!(just.degree(3100).is_err());
-    }
 }

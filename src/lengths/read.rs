@@ -1,0 +1,148 @@
+//! Reading and checking layout files (and the one-string form of `taut lengths --string`).
+
+#[allow(unused_imports)]
+use super::*;
+
+impl LayoutInput {
+    /// Reads a layout file.
+    pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
+        let text = yaml::read_text(path)?;
+        LayoutInput::from_text(text, &path.display().to_string(), stock)
+    }
+
+    /// Parses and checks a layout; `origin` names it in messages.
+    pub fn from_text(text: String, origin: &str, stock: &Stock) -> Result<Self> {
+        let file: LayoutFile = yaml::parse(&text, origin)?;
+        let mut input = LayoutInput {
+            name: file.name,
+            about: file.about,
+            tuning: file.tuning,
+            tension: file.tension,
+            max_step: file
+                .max_step
+                .map_or(DEFAULT_MAX_STEP, |percent| percent.fraction()),
+            courses: Vec::with_capacity(file.courses.len()),
+            origin: origin.to_string(),
+            text,
+        };
+        if file.courses.is_empty() {
+            return Err(input.point(
+                Error::input("the layout has no courses; list at least one"),
+                &[PathStep::Key("courses")],
+            ));
+        }
+        if file.courses.len() > crate::instrument::MAX_COURSES {
+            return Err(input.point(
+                Error::input(format!(
+                    "the layout lists {} courses; taut lays out at most {}",
+                    file.courses.len(),
+                    crate::instrument::MAX_COURSES
+                )),
+                &[PathStep::Key("courses")],
+            ));
+        }
+        let (kinds, materials) = (stock.kinds(), stock.materials());
+        for (index, course) in file.courses.into_iter().enumerate() {
+            let at = |key: &'static str| {
+                [
+                    PathStep::Key("courses"),
+                    PathStep::Index(index),
+                    PathStep::Key(key),
+                ]
+            };
+            let number = match course.course {
+                Some(0) => {
+                    return Err(
+                        input.point(Error::input("course numbers start at 1"), &at("course"))
+                    )
+                }
+                Some(number) => number,
+                None => u32::try_from(index + 1).unwrap_or(u32::MAX),
+            };
+            if input.courses.iter().any(|c| c.course == number) {
+                return Err(input.point(
+                    Error::input(format!("course number {number} is used twice")),
+                    &at("course"),
+                ));
+            }
+            if course.pitch.trim().is_empty() {
+                return Err(input.point(Error::input("the pitch is empty"), &at("pitch")));
+            }
+            if course.tension.as_ref().is_some_and(TensionSpec::is_profile) {
+                return Err(input.point(
+                    Error::input("a tension profile (`first`/`last`) spans the whole layout")
+                        .help("put the profile in the top-level `tension`"),
+                    &at("tension"),
+                ));
+            }
+            let string = check_entry(course.string, kinds, materials).map_err(|(err, key)| {
+                input.point(
+                    err,
+                    &[
+                        PathStep::Key("courses"),
+                        PathStep::Index(index),
+                        PathStep::Key("string"),
+                        PathStep::Key(key),
+                    ],
+                )
+            })?;
+            input.courses.push(LayoutCourseInput {
+                course: number,
+                pitch: course.pitch.trim().to_string(),
+                string,
+                tension: course.tension,
+            });
+        }
+        if input.tension.as_ref().is_some_and(TensionSpec::is_profile) && input.courses.len() < 2 {
+            return Err(input.point(
+                Error::input("a tension profile runs from the first course to the last; it needs at least two courses"),
+                &[PathStep::Key("tension")],
+            ));
+        }
+        Ok(input)
+    }
+
+    /// A one-course layout from command-line values: `string` is a set-file string entry such as
+    /// `{kind: plain-steel, diameter: 0.016in}`.
+    pub fn single(pitch: &str, string: &str, tension: TensionSpec, stock: &Stock) -> Result<Self> {
+        let entry: StringEntryFile = yaml::parse(string, "--string")?;
+        let (kinds, materials) = (stock.kinds(), stock.materials());
+        let string = check_entry(entry, kinds, materials)
+            .map_err(|(err, key)| err.field(key).in_origin("--string"))?;
+        if tension.is_profile() {
+            return Err(
+                Error::input("a profile needs several courses; give one tension")
+                    .in_origin("--tension"),
+            );
+        }
+        Ok(LayoutInput {
+            name: format!("{pitch} on one course"),
+            about: None,
+            tuning: None,
+            tension: Some(tension),
+            max_step: DEFAULT_MAX_STEP,
+            courses: vec![LayoutCourseInput {
+                course: 1,
+                pitch: pitch.trim().to_string(),
+                string,
+                tension: None,
+            }],
+            origin: "--pitch".to_string(),
+            text: String::new(),
+        })
+    }
+
+    /// Attaches this file's name, the field and, where found, its line to an error.
+    pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
+        let mut error = error.field(field_name(path));
+        let mut search = path;
+        while !search.is_empty() {
+            if let Some((line, column)) = yaml::locate(&self.text, search) {
+                error = error.at(line, column);
+                break;
+            }
+            search = &search[..search.len() - 1];
+        }
+        error.in_origin(self.origin.clone())
+    }
+}

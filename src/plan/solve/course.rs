@@ -1,0 +1,284 @@
+//! Solving one course: every string of it against the kinds it may take, then its warnings.
+
+#[allow(unused_imports)]
+use super::*;
+
+/// Every kind list of the instrument resolved to kinds, in one flat list; each string of each
+/// course (in order) gets a range into it.
+pub(super) struct KindLists<'k> {
+    pub(super) arena: Vec<&'k StringKind>,
+    pub(super) per_string: Vec<Range<usize>>,
+    pub(super) longest: usize,
+}
+
+impl<'k> KindLists<'k> {
+    pub(super) fn resolve(instrument: &Instrument, kinds: &'k StringKinds) -> Result<Self> {
+        let mut lists = KindLists {
+            arena: Vec::new(),
+            per_string: Vec::new(),
+            longest: 0,
+        };
+        let defaults = match &instrument.defaults.kinds {
+            Some(ids) => Some(lists.push(
+                instrument,
+                kinds,
+                ids,
+                &[PathStep::Key("defaults"), PathStep::Key("kinds")],
+            )?),
+            None => None,
+        };
+        for (index, course) in instrument.courses.iter().enumerate() {
+            let course_range = match &course.kinds {
+                Some(ids) => Some(lists.push(
+                    instrument,
+                    kinds,
+                    ids,
+                    &[
+                        PathStep::Key("courses"),
+                        PathStep::Index(index),
+                        PathStep::Key("kinds"),
+                    ],
+                )?),
+                None => defaults.clone(),
+            };
+            for (string_index, string) in course.strings.iter().enumerate() {
+                let range = match &string.kinds {
+                    Some(ids) => Some(lists.push(
+                        instrument,
+                        kinds,
+                        ids,
+                        &[
+                            PathStep::Key("courses"),
+                            PathStep::Index(index),
+                            PathStep::Key("strings"),
+                            PathStep::Index(string_index),
+                            PathStep::Key("kinds"),
+                        ],
+                    )?),
+                    None => course_range.clone(),
+                };
+                let range = range.ok_or_else(|| {
+                    instrument.point(
+                        Error::input(format!(
+                            "course {} allows no string kinds",
+                            instrument.course_number(index)
+                        ))
+                        .field(format!("courses[{index}].kinds"))
+                        .help(format!(
+                            "list `kinds` in `defaults` or in the course; known kinds: {}",
+                            kinds
+                                .all()
+                                .iter()
+                                .map(|kind| kind.id.as_str())
+                                .collect::<Vec<_>>()
+                                .join(", ")
+                        )),
+                        &[PathStep::Key("courses"), PathStep::Index(index)],
+                    )
+                })?;
+                lists.per_string.push(range);
+            }
+        }
+        Ok(lists)
+    }
+
+    fn push(
+        &mut self,
+        instrument: &Instrument,
+        kinds: &'k StringKinds,
+        ids: &[String],
+        path: &[PathStep<'_>],
+    ) -> Result<Range<usize>> {
+        if ids.len() > MAX_KINDS_PER_LIST {
+            return Err(instrument.point(
+                Error::input(format!(
+                    "{} kinds are listed; at most {MAX_KINDS_PER_LIST} are allowed",
+                    ids.len()
+                )),
+                path,
+            ));
+        }
+        let start = self.arena.len();
+        for (position, id) in ids.iter().enumerate() {
+            let kind = kinds.get(id.trim()).map_err(|err| {
+                // Flow lists (`[a, b]`) cannot be located item by item: point at the key's line.
+                instrument.point(err.field(format!("{}[{position}]", field_name(path))), path)
+            })?;
+            self.arena.push(kind);
+        }
+        self.longest = self.longest.max(ids.len());
+        Ok(start..self.arena.len())
+    }
+}
+
+/// Everything one course's solve reads.
+pub(super) struct CourseContext<'a> {
+    pub(super) instrument: &'a Instrument,
+    pub(super) tuning: &'a Tuning,
+    pub(super) course: CourseInput<'a>,
+    pub(super) limits: StressLimits,
+    pub(super) tolerance: f64,
+}
+
+impl CourseContext<'_> {
+    fn path(&self, key: &'static str) -> [PathStep<'static>; 3] {
+        [
+            PathStep::Key("courses"),
+            PathStep::Index(self.course.index),
+            PathStep::Key(key),
+        ]
+    }
+
+    pub(super) fn solve(
+        &self,
+        arena: &[&StringKind],
+        ranges: &[Range<usize>],
+        best_per_kind: &mut [Option<Choice>],
+    ) -> Result<CoursePlan> {
+        let course = self.course;
+        let resolved = self.instrument.course_pitch(&course, self.tuning)?;
+        let goal = course.tension.ok_or_else(|| {
+            self.instrument.point(
+                Error::input(format!("course {} has no tension target", course.number))
+                    .field(format!("courses[{}].tension", course.index))
+                    .help("give `tension` in `defaults` or in the course (e.g. `tension: 70N`), or pass --tension"),
+                &[PathStep::Key("courses"), PathStep::Index(course.index)],
+            )
+        })?;
+        let mut strings = Vec::with_capacity(course.strings.len());
+        let mut warnings = Vec::new();
+        for (string_index, (string, range)) in course.strings.iter().zip(ranges).enumerate() {
+            let kinds = &arena[range.clone()];
+            let pitch_hz = resolved.hz * string.interval.ratio();
+            let request = Request {
+                frequency: pitch_hz,
+                length: course.length_m,
+                target_tension: goal.target_n,
+                tolerance: self.tolerance,
+                checks: Checks {
+                    min_tension: goal.min_n,
+                    max_tension: goal.max_n,
+                    widest: course.max_diameter_m,
+                    limits: self.limits,
+                },
+            };
+            let scratch = &mut best_per_kind[..kinds.len()];
+            let selection = select::select(&request, kinds, scratch);
+            let chosen = selection.chosen.ok_or_else(|| {
+                self.instrument.point(
+                    Error::input(format!(
+                        "course {}: none of the allowed kinds has any gauge to choose from",
+                        course.number
+                    )),
+                    &self.path("kinds"),
+                )
+            })?;
+            let at = StringRef {
+                course: course.number,
+                string: string_index + 1,
+            };
+            let kind = kinds[chosen.kind];
+            self.flag(
+                &mut warnings,
+                at,
+                &request,
+                &selection.warnings,
+                &chosen,
+                selection.required_unit_mass,
+                kind,
+                pitch_hz,
+            );
+            let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, &request);
+            let feel = crate::strings::feel::feel(
+                &kind.construction(chosen.diameter),
+                chosen.tension,
+                course.length_m,
+                &crate::strings::feel::FeelOptions::default(),
+            );
+            strings.push(StringPlan {
+                interval: string.interval.written().to_string(),
+                pitch_hz,
+                target_tension_n: goal.target_n,
+                required_unit_mass_kg_per_m: selection.required_unit_mass,
+                choice: choice_of(&chosen),
+                alternatives: Alternatives {
+                    thinner: selection.thinner.as_ref().map(choice_of),
+                    thicker: selection.thicker.as_ref().map(choice_of),
+                    other_kinds: scratch
+                        .iter()
+                        .flatten()
+                        .filter(|other| other.kind != chosen.kind)
+                        .map(choice_of)
+                        .collect(),
+                },
+                feel: Some(feel),
+            });
+        }
+        Ok(CoursePlan {
+            course: course.number,
+            pitch: resolved,
+            length_m: course.length_m,
+            strings,
+            warnings,
+        })
+    }
+
+    /// Turns the selector's flags for one string into warnings with figures.
+    #[allow(clippy::too_many_arguments)]
+    fn flag(
+        &self,
+        warnings: &mut Vec<Warning>,
+        at: StringRef,
+        request: &Request,
+        flags: &Warnings,
+        chosen: &Choice,
+        required_unit_mass: f64,
+        kind: &StringKind,
+        pitch_hz: f64,
+    ) {
+        let limits = request.checks.limits;
+        if flags.contains(Warnings::STRESS_DANGER) {
+            warnings.push(at.stress(
+                WarningKind::StressDanger,
+                chosen.stress_ratio,
+                limits.danger,
+                chosen.break_frequency,
+                pitch_hz,
+            ));
+        } else if flags.contains(Warnings::STRESS_CAUTION) {
+            warnings.push(at.stress(
+                WarningKind::StressCaution,
+                chosen.stress_ratio,
+                limits.caution,
+                chosen.break_frequency,
+                pitch_hz,
+            ));
+        }
+        let gauges = kind.gauges();
+        if flags.contains(Warnings::THINNER_THAN_CATALOG) {
+            if let Some(lightest) = gauges.first() {
+                warnings.push(at.thinner_than_practical(required_unit_mass, lightest.unit_mass));
+            }
+        }
+        if flags.contains(Warnings::THICKER_THAN_CATALOG) {
+            if let Some(heaviest) = gauges.last() {
+                warnings.push(at.thicker_than_catalog(required_unit_mass, heaviest.unit_mass));
+            }
+        }
+        if flags.contains(Warnings::WIDER_THAN_SLOT) {
+            if let Some(widest) = request.checks.widest {
+                warnings.push(at.wider_than_slot(chosen.diameter, widest));
+            }
+        }
+        if let Some(window) = at.outside_window(
+            chosen.tension,
+            request.checks.min_tension,
+            request.checks.max_tension,
+        ) {
+            warnings.push(window);
+        }
+        if flags.contains(Warnings::NONE_WITHIN_TOLERANCE) {
+            warnings.push(at.off_target(chosen.tension, request.target_tension, self.tolerance));
+        }
+    }
+}
