@@ -1,6 +1,6 @@
 //! Gauge catalogs: the diameters a kind of string is available in.
 //!
-//! The shipped catalogs (`src/data/gauges.yaml`) hold the usual trade steps (PRACTICE). A user can
+//! The shipped catalogs (`src/strings/data/gauges.yaml`) hold the usual trade steps (PRACTICE). A user can
 //! list what is on their own shelf in a file of the same schema ([`load_catalogs_file`]).
 
 use std::sync::OnceLock;

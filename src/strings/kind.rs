@@ -2,7 +2,7 @@
 //! catalog (e.g. `nickel-wound` = hexagonal music-wire core, nickel-plated steel wrap, inch
 //! gauges). Instrument files refer to kinds by id.
 //!
-//! The shipped kinds live in `src/data/kinds.yaml`. Resolving a kind computes, once, every gauge's
+//! The shipped kinds live in `src/strings/data/kinds.yaml`. Resolving a kind computes, once, every gauge's
 //! linear density and breaking tension, so that the selector only reads precomputed numbers.
 
 use std::sync::OnceLock;
@@ -265,7 +265,7 @@ impl Registry<StringKind> {
     }
 }
 
-/// Reads a string-kinds file (`kinds:` list, schema as `src/data/kinds.yaml`) and resolves its
+/// Reads a string-kinds file (`kinds:` list, schema as `src/strings/data/kinds.yaml`) and resolves its
 /// material and catalog ids, naming `origin`, line and field on bad input.
 pub fn load_kinds_file(
     text: &str,

@@ -1,6 +1,6 @@
 //! String materials: density, elastic modulus, breaking strength, and where each number comes from.
 //!
-//! The shipped materials live in `src/data/materials.yaml` (values and provenance from
+//! The shipped materials live in `src/strings/data/materials.yaml` (values and provenance from
 //! `REFERENCES.md` §2–§4), read once through [`crate::input::yaml::parse`]. Users can add their own
 //! with [`load_materials_file`], in the same schema.
 
@@ -206,7 +206,7 @@ impl Entry for Material {
 }
 
 impl Registry<Material> {
-    /// The materials shipped with `taut` (`src/data/materials.yaml`), parsed once.
+    /// The materials shipped with `taut` (`src/strings/data/materials.yaml`), parsed once.
     pub fn builtin() -> Result<&'static Materials> {
         static BUILTIN: OnceLock<std::result::Result<Materials, String>> = OnceLock::new();
         BUILTIN
@@ -224,7 +224,7 @@ impl Registry<Material> {
 /// The shipped material data.
 pub const BUILTIN_MATERIALS_YAML: &str = include_str!("data/materials.yaml");
 
-/// Reads a materials file (`materials:` list, schema as `src/data/materials.yaml`), naming
+/// Reads a materials file (`materials:` list, schema as `src/strings/data/materials.yaml`), naming
 /// `origin`, line and field on bad input.
 pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
     let file: MaterialsFile = crate::input::yaml::parse(text, origin)?;

@@ -2,7 +2,7 @@
 //! workshop shelf — added to the shipped ones.
 //!
 //! A stock file is one YAML document with any of the sections `materials:`, `catalogs:` and
-//! `kinds:`, each in the schema of the shipped files in `src/data/`. Its kinds may use the
+//! `kinds:`, each in the schema of the shipped files in `src/strings/data/`. Its kinds may use the
 //! shipped materials and catalogs as well as its own. Ids must be new: a stock file adds, it
 //! never silently replaces a shipped value.
 

@@ -17,7 +17,7 @@
 //!       - {mass: 1.43g, length: 900mm, diameter: 1.1mm}  # a weighed piece of the string
 //! ```
 //!
-//! - `kind` + `diameter`: the construction and materials of the kind (see `src/data/kinds.yaml`)
+//! - `kind` + `diameter`: the construction and materials of the kind (see `src/strings/data/kinds.yaml`)
 //!   at that outer diameter; for wound kinds `core_diameter` replaces the kind's default
 //!   core-to-outer ratio when the maker states the core.
 //! - `unit_mass` (μ) or `mass` over `length` (μ = m/l): a measured string. `diameter` lets the
