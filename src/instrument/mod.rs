@@ -7,6 +7,7 @@
 //! length) run in [`Instrument::from_text`] and are pointed back at their line with
 //! [`crate::input::yaml::locate`].
 
+pub mod frets;
 mod interval;
 mod scalar_or_map;
 mod templates;
@@ -17,6 +18,7 @@ use std::str::FromStr;
 
 use serde::Deserialize;
 
+pub use frets::FretSettings;
 pub use interval::Interval;
 pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
@@ -244,6 +246,7 @@ struct InstrumentFile {
     #[serde(default)]
     defaults: CourseSettings,
     courses: Vec<Course>,
+    frets: Option<FretSettings>,
 }
 
 /// A checked instrument definition, with the text it came from so later errors can point at
@@ -268,6 +271,8 @@ pub struct Instrument {
     pub defaults: CourseSettings,
     /// The courses in the order written (at least one).
     pub courses: Vec<Course>,
+    /// Fret layout settings (`taut frets`), as written.
+    pub frets: Option<FretSettings>,
     origin: String,
     text: String,
 }
@@ -333,6 +338,7 @@ impl Instrument {
             stress_limits: file.stress_limits,
             defaults: file.defaults,
             courses: file.courses,
+            frets: file.frets,
             origin: origin.to_string(),
             text,
         };
