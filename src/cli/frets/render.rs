@@ -8,17 +8,17 @@ use taut::tuning::pitch::format_ratio;
 
 use crate::cli::text::{course_pitch_text, new_table, right};
 
-/// Courses whose frets sound the same ratios (so one column of ratios serves them all).
+/// Courses whose frets sound the same ratios (so one column of ratios serves them all); one
+/// may stop earlier than another (a board end at a different fraction of its length).
 fn groups(layout: &FretLayout) -> Vec<Vec<&CourseFrets>> {
     let mut groups: Vec<Vec<&CourseFrets>> = Vec::new();
     for course in &layout.courses {
         let same = |other: &&CourseFrets| {
-            other.frets.len() == course.frets.len()
-                && other
-                    .frets
-                    .iter()
-                    .zip(&course.frets)
-                    .all(|(a, b)| (a.cents - b.cents).abs() < 1e-6)
+            other
+                .frets
+                .iter()
+                .zip(&course.frets)
+                .all(|(a, b)| (a.cents - b.cents).abs() < 1e-6)
         };
         match groups
             .iter_mut()
@@ -38,6 +38,9 @@ fn mm(metres: f64) -> String {
 /// The table for one group of courses that share their fret ratios.
 fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
     let Some(first) = group.first() else {
+        return String::new();
+    };
+    let Some(longest) = group.iter().max_by_key(|c| c.frets.len()) else {
         return String::new();
     };
     let one_length = group
@@ -64,7 +67,7 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
         header.push("Angle °".to_string());
     }
     let mut table = new_table(header.iter().map(String::as_str).collect());
-    for (index, fret) in first.frets.iter().enumerate() {
+    for (index, fret) in longest.frets.iter().enumerate() {
         let mut row = vec![
             right(fret.fret.to_string()),
             right(format!("{:.2}", fret.cents)),
@@ -81,6 +84,7 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
         };
         if one_length {
             row.push(right(mm(fret.distance_from_nut_m)));
+            // Equal lengths and ratios: every course of the group has this fret.
         } else {
             for course in group {
                 let distance = course.frets.get(index).map(|f| f.distance_from_nut_m);
@@ -108,10 +112,12 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
     let lengths: Vec<String> = group.iter().map(|c| mm(c.length_m)).collect();
     let mut lengths = lengths;
     lengths.dedup();
+    let mut counts: Vec<String> = group.iter().map(|c| c.frets.len().to_string()).collect();
+    counts.dedup();
     format!(
         "{title} — {} mm, {} fret(s)\n{table}\n",
         lengths.join("/"),
-        first.frets.len()
+        counts.join("/")
     )
 }
 
