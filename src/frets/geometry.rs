@@ -56,7 +56,7 @@ impl Fan {
         let direction = |length: f64| -> Result<Point> {
             let run = input.last_fret_fraction * length;
             let sine = half_change / run;
-            if !(sine.abs() < 1.0) {
+            if sine.is_nan() || sine.abs() >= 1.0 {
                 return Err(Error::input(format!(
                     "the board widens by {:.1} mm on each side over {:.1} mm of course, which no straight course can follow",
                     half_change * 1000.0,

@@ -14,11 +14,12 @@ fn groups(layout: &FretLayout) -> Vec<Vec<&CourseFrets>> {
     let mut groups: Vec<Vec<&CourseFrets>> = Vec::new();
     for course in &layout.courses {
         let same = |other: &&CourseFrets| {
-            other
-                .frets
-                .iter()
-                .zip(&course.frets)
-                .all(|(a, b)| (a.cents - b.cents).abs() < 1e-6)
+            other.frets.is_empty() == course.frets.is_empty()
+                && other
+                    .frets
+                    .iter()
+                    .zip(&course.frets)
+                    .all(|(a, b)| (a.cents - b.cents).abs() < 1e-6)
         };
         match groups
             .iter_mut()
