@@ -11,6 +11,7 @@
 //! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]) and warnings ([`plan::warning`]) |
 //! | 6. sets | [`sets`] | string-set files, auditing a set, converting a set to a new tuning or scale |
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
+//! | 6. frets | [`frets`] | fret positions for any tuning, straight or fanned, per course; the board drawing |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -20,6 +21,7 @@
 )]
 
 pub mod error;
+pub mod frets;
 pub mod input;
 pub mod instrument;
 pub mod lengths;

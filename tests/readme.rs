@@ -97,6 +97,7 @@ fn readme_outputs_are_current() {
         "plan guitar-19edo",
         "audit examples/guitar-22edo-mode.yaml --set examples/steel-guitar-set.yaml --from-instrument examples/steel-guitar-12edo.yaml",
         "lengths examples/psaltery-layout.yaml",
+        "frets guitar-19edo --up-to 200mm",
     ] {
         let marker = format!("$ taut {command}\n");
         let start = text

@@ -3,6 +3,7 @@
 
 mod audit;
 mod convert;
+mod frets;
 mod lengths;
 mod output;
 mod plan;
@@ -34,6 +35,8 @@ enum Command {
     Convert(convert::ConvertArgs),
     /// Solve vibrating lengths from pitch, string and tension, for builders.
     Lengths(lengths::LengthsArgs),
+    /// Lay out frets for any tuning, straight or fanned, per course; table, JSON, CSV or SVG.
+    Frets(frets::FretsArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -55,6 +58,7 @@ pub fn main() -> ExitCode {
         Command::Audit(args) => audit::run(args),
         Command::Convert(args) => convert::run(args),
         Command::Lengths(args) => lengths::run(args),
+        Command::Frets(args) => frets::run(&args),
     };
     output::finish(result)
 }

@@ -8,6 +8,7 @@
 //! [`crate::input::yaml::locate`].
 
 mod check;
+pub mod frets;
 mod interval;
 mod quantities;
 mod scalar_or_map;
@@ -19,6 +20,7 @@ use std::str::FromStr;
 
 use serde::Deserialize;
 
+pub use frets::FretSettings;
 pub use interval::Interval;
 pub use quantities::{Percent, ScaleLength};
 pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
@@ -145,6 +147,7 @@ struct InstrumentFile {
     #[serde(default)]
     defaults: CourseSettings,
     courses: Vec<Course>,
+    frets: Option<FretSettings>,
 }
 
 /// A checked instrument definition, with the text it came from so later errors can point at
@@ -169,6 +172,8 @@ pub struct Instrument {
     pub defaults: CourseSettings,
     /// The courses in the order written (at least one).
     pub courses: Vec<Course>,
+    /// Fret layout settings (`taut frets`), as written.
+    pub frets: Option<FretSettings>,
     origin: String,
     text: String,
 }
@@ -234,6 +239,7 @@ impl Instrument {
             stress_limits: file.stress_limits,
             defaults: file.defaults,
             courses: file.courses,
+            frets: file.frets,
             origin: origin.to_string(),
             text,
         };

@@ -1,0 +1,242 @@
+//! A fret layout as terminal tables, JSON and CSV.
+
+use serde::Serialize;
+
+use taut::error::{Error, Result};
+use taut::frets::{CourseFrets, FretLayout};
+use taut::tuning::pitch::format_ratio;
+
+use crate::cli::text::{course_pitch_text, new_table, right};
+
+/// Courses whose frets sound the same ratios (so one column of ratios serves them all); one
+/// may stop earlier than another (a board end at a different fraction of its length).
+fn groups(layout: &FretLayout) -> Vec<Vec<&CourseFrets>> {
+    let mut groups: Vec<Vec<&CourseFrets>> = Vec::new();
+    for course in &layout.courses {
+        let same = |other: &&CourseFrets| {
+            other.frets.is_empty() == course.frets.is_empty()
+                && other
+                    .frets
+                    .iter()
+                    .zip(&course.frets)
+                    .all(|(a, b)| (a.cents - b.cents).abs() < 1e-6)
+        };
+        match groups
+            .iter_mut()
+            .find(|group| group.first().is_some_and(same))
+        {
+            Some(group) => group.push(course),
+            None => groups.push(vec![course]),
+        }
+    }
+    groups
+}
+
+fn mm(metres: f64) -> String {
+    format!("{:.2}", metres * 1000.0)
+}
+
+/// The table for one group of courses that share their fret ratios.
+fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
+    let Some(first) = group.first() else {
+        return String::new();
+    };
+    let Some(longest) = group.iter().max_by_key(|c| c.frets.len()) else {
+        return String::new();
+    };
+    let one_length = group
+        .iter()
+        .all(|c| (c.length_m - first.length_m).abs() < 1e-9);
+    let names: Vec<String> = group
+        .iter()
+        .map(|c| format!("{} {}", c.course, course_pitch_text(&c.pitch)))
+        .collect();
+    let title = if group.len() == 1 {
+        format!("Course {}", names.join(""))
+    } else {
+        format!("Courses {}", names.join(", "))
+    };
+    let mut header = vec!["Fret".to_string(), "Cents".to_string(), "Ratio".to_string()];
+    if one_length {
+        header.push("From nut mm".to_string());
+        header.push("Spacing mm".to_string());
+    } else {
+        header.extend(group.iter().map(|c| format!("C{} mm", c.course)));
+        header.push("Min spacing mm".to_string());
+    }
+    if layout.fanned {
+        header.push("Angle °".to_string());
+    }
+    let mut table = new_table(header.iter().map(String::as_str).collect());
+    for (index, fret) in longest.frets.iter().enumerate() {
+        let mut row = vec![
+            right(fret.fret.to_string()),
+            right(format!("{:.2}", fret.cents)),
+            right(fret.ratio.as_ref().map_or("-".to_string(), format_ratio)),
+        ];
+        let spacing = group
+            .iter()
+            .filter_map(|c| c.frets.get(index).map(|f| f.spacing_m))
+            .fold(f64::MAX, f64::min);
+        let flag = if spacing < layout.min_spacing_m {
+            " !"
+        } else {
+            ""
+        };
+        if one_length {
+            row.push(right(mm(fret.distance_from_nut_m)));
+            // Equal lengths and ratios: every course of the group has this fret.
+        } else {
+            for course in group {
+                let distance = course.frets.get(index).map(|f| f.distance_from_nut_m);
+                row.push(right(distance.map_or("-".to_string(), mm)));
+            }
+        }
+        row.push(right(format!("{}{flag}", mm(spacing))));
+        if layout.fanned {
+            let angles: Vec<f64> = group
+                .iter()
+                .filter_map(|c| c.frets.get(index).and_then(|f| f.angle_deg))
+                .collect();
+            let low = angles.iter().copied().fold(f64::MAX, f64::min);
+            let high = angles.iter().copied().fold(f64::MIN, f64::max);
+            row.push(right(if angles.is_empty() {
+                "-".to_string()
+            } else if high - low < 0.005 {
+                format!("{low:+.2}")
+            } else {
+                format!("{low:+.2}…{high:+.2}")
+            }));
+        }
+        table.add_row(row);
+    }
+    let lengths: Vec<String> = group.iter().map(|c| mm(c.length_m)).collect();
+    let mut lengths = lengths;
+    lengths.dedup();
+    let mut counts: Vec<String> = group.iter().map(|c| c.frets.len().to_string()).collect();
+    counts.dedup();
+    format!(
+        "{title} — {} mm, {} fret(s)\n{table}\n",
+        lengths.join("/"),
+        counts.join("/")
+    )
+}
+
+/// The terminal report: a table per group of courses sharing their frets, mergeable frets,
+/// warnings and what the layout assumes.
+pub fn table(layout: &FretLayout) -> String {
+    let mut out = format!("{} — tuning {}\n", layout.instrument, layout.tuning);
+    let groups = groups(layout);
+    if groups.len() == 1 && layout.courses.len() > 1 {
+        out.push_str("Every course has the same frets (straight across the board).\n");
+    } else if groups.len() > 1 {
+        out.push_str(&format!(
+            "The courses need {} different sets of frets (partial frets where they differ).\n",
+            groups.len()
+        ));
+    }
+    for group in &groups {
+        out.push_str(&group_table(layout, group));
+    }
+    if groups.len() > 1 {
+        if layout.mergeable.is_empty() {
+            out.push_str(&format!(
+                "No frets of neighbouring courses lie within {:.1}c of each other without already coinciding.\n",
+                layout.merge_within_cents
+            ));
+        } else {
+            out.push_str(&format!(
+                "\nFrets of neighbouring courses within {:.1}c (one shared fret half way leaves each course about half the gap off):\n",
+                layout.merge_within_cents
+            ));
+            for pair in &layout.mergeable {
+                out.push_str(&format!(
+                    "  courses {} and {}: frets {} and {} are {:.2}c apart, {:.2} mm along course {}\n",
+                    pair.courses[0],
+                    pair.courses[1],
+                    pair.frets[0],
+                    pair.frets[1],
+                    pair.cents_apart.abs(),
+                    pair.apart_m * 1000.0,
+                    pair.courses[0]
+                ));
+            }
+        }
+    }
+    if layout.warnings.is_empty() {
+        out.push_str("No warnings.\n");
+    } else {
+        out.push_str(&format!("\nWarnings ({}):\n", layout.warnings.len()));
+        for warning in &layout.warnings {
+            out.push_str(&format!("  {}: {}\n", warning.kind.name(), warning.message));
+        }
+    }
+    out.push_str(&format!(
+        "Distances run from the nut along each course; ! marks spacing under {:.1} mm. Assumes {}.\n",
+        layout.min_spacing_m * 1000.0,
+        layout.compensation
+    ));
+    if layout.fanned {
+        let first = layout.courses.first().map_or(0, |c| c.course);
+        let last = layout.courses.last().map_or(0, |c| c.course);
+        out.push_str(&format!(
+            "Angle: each fret's angle from square across the board, positive where its end at course {last} lies further from the nut than at course {first}; frets are square at {:.3} of each length.\n",
+            layout.board.square_at
+        ));
+    }
+    out
+}
+
+/// The JSON document (pretty-printed, ending in a newline).
+pub fn json(layout: &FretLayout) -> Result<String> {
+    serde_json::to_string_pretty(layout)
+        .map(|mut text| {
+            text.push('\n');
+            text
+        })
+        .map_err(|err| Error::input(format!("cannot render the frets as JSON: {err}")))
+}
+
+/// One CSV row per fret.
+#[derive(Serialize)]
+struct CsvRow<'a> {
+    course: u32,
+    pitch: &'a str,
+    length_m: f64,
+    fret: u32,
+    degree: i64,
+    cents: f64,
+    ratio: Option<String>,
+    distance_from_nut_m: f64,
+    spacing_m: f64,
+    angle_deg: Option<f64>,
+}
+
+/// The CSV table: one row per fret of every course (ratio and angle empty when there is none).
+pub fn csv(layout: &FretLayout) -> Result<String> {
+    let mut writer = csv::Writer::from_writer(Vec::new());
+    let fail = |err: csv::Error| Error::input(format!("cannot render the frets as CSV: {err}"));
+    for course in &layout.courses {
+        for fret in &course.frets {
+            writer
+                .serialize(CsvRow {
+                    course: course.course,
+                    pitch: &course.pitch.written,
+                    length_m: course.length_m,
+                    fret: fret.fret,
+                    degree: fret.degree,
+                    cents: fret.cents,
+                    ratio: fret.ratio.as_ref().map(format_ratio),
+                    distance_from_nut_m: fret.distance_from_nut_m,
+                    spacing_m: fret.spacing_m,
+                    angle_deg: fret.angle_deg,
+                })
+                .map_err(fail)?;
+        }
+    }
+    let bytes = writer
+        .into_inner()
+        .map_err(|err| Error::input(format!("cannot render the frets as CSV: {err}")))?;
+    String::from_utf8(bytes)
+        .map_err(|err| Error::input(format!("cannot render the frets as CSV: {err}")))
+}
