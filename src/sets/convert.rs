@@ -504,6 +504,9 @@ fn convert_course(
             }
             _ => None,
         };
+        // Whether a newly chosen string is already the heaviest or the thinnest of its catalog,
+        // so that a window it misses is out of reach for its kind.
+        let mut catalog_end = (false, false);
         let (set_string, construction, evaluation, selection_flags) = match keep {
             Some((written, construction, evaluation)) => {
                 (written, construction, evaluation, evaluation.warnings)
@@ -526,6 +529,13 @@ fn convert_course(
                 let evaluation =
                     select::evaluate(&construction, pitch_hz, placed.length_m, &checks);
                 flag_catalog(&mut warnings, at, &selection, kind, &request);
+                let gauges = kind.gauges();
+                catalog_end = (
+                    gauges.last().is_some_and(|g| g.diameter == chosen.diameter),
+                    gauges
+                        .first()
+                        .is_some_and(|g| g.diameter == chosen.diameter),
+                );
                 (
                     SetString::Kind {
                         kind: kind.id.as_str().to_string(),
@@ -548,6 +558,7 @@ fn convert_course(
             &checks,
             pitch_hz,
             set_string.diameter(),
+            catalog_end,
         );
         let slot = slot_fit(
             slot_stated,
@@ -727,6 +738,7 @@ fn flag_catalog(
     }
 }
 
+#[allow(clippy::too_many_arguments)]
 fn flag_common(
     warnings: &mut Vec<Warning>,
     at: StringRef,
@@ -735,6 +747,7 @@ fn flag_common(
     checks: &Checks,
     pitch_hz: f64,
     diameter: Option<f64>,
+    (heaviest, thinnest): (bool, bool),
 ) {
     if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency) {
         if flags.contains(Warnings::STRESS_DANGER) || ratio > checks.limits.danger {
@@ -760,9 +773,13 @@ fn flag_common(
             warnings.push(at.wider_than_slot(diameter, widest));
         }
     }
-    if let Some(window) =
-        at.outside_window(evaluation.tension, checks.min_tension, checks.max_tension)
-    {
+    if let Some(window) = at.outside_window_of_catalog(
+        evaluation.tension,
+        checks.min_tension,
+        checks.max_tension,
+        heaviest,
+        thinnest,
+    ) {
         warnings.push(window);
     }
 }
