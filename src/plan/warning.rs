@@ -8,6 +8,14 @@ use serde::{Deserialize, Serialize};
 // The stress limits and the tension tolerance are the selector's (`crate::strings::select`), where their
 // sources are given: caution above 65 %, danger above 85 % of breaking strength, ±10 % tolerance.
 
+/// How far a string's tension may fall from its target (as a fraction of the target) before a
+/// miss is a caution rather than a note: 30 %. Our own rule of thumb, not a published figure,
+/// and the same as the audit's largest accepted change: tension goes with the square of the
+/// pitch, so 30 % short feels like the string tuned down three semitones. Such a string buzzes,
+/// flaps against the frets or its neighbours and will not hold its pitch; 30 % over loads the
+/// instrument well beyond what was planned.
+pub const FAR_FROM_TARGET: f64 = 0.30;
+
 /// What a warning is about. Serialized in snake_case (`stress_danger`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
 #[serde(rename_all = "snake_case")]
@@ -61,17 +69,17 @@ impl WarningKind {
         }
     }
 
-    /// How serious this kind is.
+    /// How serious this kind is at least. `thicker_than_catalog` and `off_target` rise to a
+    /// caution when the tension misses its target by more than [`FAR_FROM_TARGET`].
     pub fn severity(self) -> Severity {
         match self {
             WarningKind::StressDanger | WarningKind::OverRatedLoad => Severity::Danger,
             WarningKind::StressCaution
             | WarningKind::ThinnerThanPractical
             | WarningKind::WiderThanSlot
-            | WarningKind::TensionAboveWindow => Severity::Caution,
-            WarningKind::ThickerThanCatalog
             | WarningKind::TensionBelowWindow
-            | WarningKind::OffTarget => Severity::Note,
+            | WarningKind::TensionAboveWindow => Severity::Caution,
+            WarningKind::ThickerThanCatalog | WarningKind::OffTarget => Severity::Note,
         }
     }
 }
@@ -123,9 +131,20 @@ impl StringRef {
     }
 
     fn warning(self, kind: WarningKind, value: f64, limit: f64, message: String) -> Warning {
+        self.warning_at(kind, kind.severity(), value, limit, message)
+    }
+
+    fn warning_at(
+        self,
+        kind: WarningKind,
+        severity: Severity,
+        value: f64,
+        limit: f64,
+        message: String,
+    ) -> Warning {
         Warning {
             kind,
-            severity: kind.severity(),
+            severity,
             course: Some(self.course),
             string: Some(self.string),
             value,
@@ -146,7 +165,7 @@ impl StringRef {
         let semitones = 12.0 * (break_pitch_hz / pitch_hz).log2();
         let message = if stress_ratio >= 1.0 {
             format!(
-                "{} would need {:.0}% of its breaking strength (limit {:.0}%): it breaks near {:.1} Hz, {:.1} semitones before it reaches its pitch.",
+                "{} can never reach its pitch: it would need {:.0}% of its breaking strength (limit {:.0}%) and breaks near {:.1} Hz, {:.1} semitones below it.",
                 self.named(),
                 stress_ratio * 100.0,
                 limit * 100.0,
@@ -166,13 +185,16 @@ impl StringRef {
         self.warning(kind, stress_ratio, limit, message)
     }
 
-    /// The target asks for a lighter string than the thinnest available.
+    /// The target asks for a lighter string than the thinnest available: the target cannot be
+    /// reached with this kind. At a fixed pitch and length tension goes with μ (REFERENCES §1.2),
+    /// so the thinnest pulls `lightest / required` times the target.
     pub fn thinner_than_practical(self, required_unit_mass: f64, lightest: f64) -> Warning {
         let message = format!(
-            "{} would need {:.3} g/m for its target tension, lighter than the thinnest practical string ({:.3} g/m); the thinnest is used and carries more tension.",
+            "{} cannot come down to its target tension with this kind: it would need {:.3} g/m, lighter than the thinnest practical string ({:.3} g/m), which is used and pulls {:.0}% more than the target.",
             self.named(),
             required_unit_mass * 1000.0,
-            lightest * 1000.0
+            lightest * 1000.0,
+            (lightest / required_unit_mass - 1.0) * 100.0
         );
         self.warning(
             WarningKind::ThinnerThanPractical,
@@ -182,16 +204,27 @@ impl StringRef {
         )
     }
 
-    /// The target asks for a heavier string than the catalog holds.
+    /// The target asks for a heavier string than the catalog holds: the target cannot be reached
+    /// with this kind. A caution when the heaviest falls more than [`FAR_FROM_TARGET`] short
+    /// (tension goes with μ at a fixed pitch and length, REFERENCES §1.2).
     pub fn thicker_than_catalog(self, required_unit_mass: f64, heaviest: f64) -> Warning {
+        let shortfall = 1.0 - heaviest / required_unit_mass;
+        let far = shortfall > FAR_FROM_TARGET;
         let message = format!(
-            "{} would need {:.3} g/m for its target tension, heavier than any catalog string ({:.3} g/m); the heaviest is used and carries less tension.",
+            "{} cannot reach its target tension with this kind: it would need {:.3} g/m, heavier than any catalog string ({:.3} g/m); the heaviest is used and pulls {:.0}% less than the target{}",
             self.named(),
             required_unit_mass * 1000.0,
-            heaviest * 1000.0
+            heaviest * 1000.0,
+            shortfall * 100.0,
+            if far { SLACK } else { "." }
         );
-        self.warning(
+        self.warning_at(
             WarningKind::ThickerThanCatalog,
+            if far {
+                Severity::Caution
+            } else {
+                Severity::Note
+            },
             required_unit_mass,
             heaviest,
             message,
@@ -210,6 +243,32 @@ impl StringRef {
         self.warning(WarningKind::WiderThanSlot, diameter_m, slot_m, message)
     }
 
+    /// Tension outside the stated window for a string chosen from a catalog: the same warning,
+    /// and when no gauge of the kind could bring it inside (it is already the heaviest of its
+    /// catalog and still below, or the thinnest and still above), a sentence saying that the
+    /// window is out of reach.
+    pub fn outside_window_of_catalog(
+        self,
+        tension_n: f64,
+        min_n: Option<f64>,
+        max_n: Option<f64>,
+        heaviest: bool,
+        thinnest: bool,
+    ) -> Option<Warning> {
+        let mut warning = self.outside_window(tension_n, min_n, max_n)?;
+        let below = warning.kind == WarningKind::TensionBelowWindow;
+        if below && heaviest {
+            warning
+                .message
+                .push_str(" No catalog string of this kind is heavy enough to reach the window.");
+        } else if !below && thinnest {
+            warning.message.push_str(
+                " No catalog string of this kind is light enough to stay inside the window.",
+            );
+        }
+        Some(warning)
+    }
+
     /// Tension outside the stated window.
     pub fn outside_window(
         self,
@@ -219,7 +278,7 @@ impl StringRef {
     ) -> Option<Warning> {
         if let Some(min) = min_n.filter(|&min| tension_n < min) {
             let message = format!(
-                "{} carries {:.1} N, below the window's {:.1} N: it will feel slack and may buzz.",
+                "{} carries {:.1} N, below the window's {:.1} N: it will feel slack, may buzz and may not hold its pitch.",
                 self.named(),
                 tension_n,
                 min
@@ -238,20 +297,45 @@ impl StringRef {
         None
     }
 
-    /// No catalog string near the target.
+    /// No catalog string near the target. A caution when the closest misses by more than
+    /// [`FAR_FROM_TARGET`].
     pub fn off_target(self, tension_n: f64, target_n: f64, tolerance: f64) -> Warning {
-        let distance = (tension_n - target_n).abs() / target_n;
+        let change = tension_n / target_n - 1.0;
+        let distance = change.abs();
+        let far = distance > FAR_FROM_TARGET;
+        let consequence = match (far, change < 0.0) {
+            (false, _) => ".",
+            (true, true) => SLACK,
+            (true, false) => {
+                ": it loads the instrument far more than planned and feels much stiffer."
+            }
+        };
         let message = format!(
-            "{}: the closest catalog string gives {:.1} N against a target of {:.1} N ({:+.0}%, tolerance {:.0}%).",
+            "{}: the closest catalog string gives {:.1} N against a target of {:.1} N ({:+.0}%, tolerance {:.0}%){}",
             self.named(),
             tension_n,
             target_n,
-            (tension_n / target_n - 1.0) * 100.0,
-            tolerance * 100.0
+            change * 100.0,
+            tolerance * 100.0,
+            consequence
         );
-        self.warning(WarningKind::OffTarget, distance, tolerance, message)
+        let severity = if far {
+            Severity::Caution
+        } else {
+            Severity::Note
+        };
+        self.warning_at(
+            WarningKind::OffTarget,
+            severity,
+            distance,
+            tolerance,
+            message,
+        )
     }
 }
+
+/// What a string far below its target does, ending a warning's sentence.
+const SLACK: &str = ": it will be slack, buzz or flap, and will not hold its pitch.";
 
 /// A report's warnings: every course's, in course order, then the instrument's own when the
 /// total tension exceeds its rated load. Plans, audits and conversions all list them this way.

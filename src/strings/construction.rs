@@ -196,42 +196,83 @@ impl<'m> Construction<'m> {
     }
 }
 
-/// Default core diameter as a fraction of the outer diameter for a hexagonal steel core with one
-/// wrap layer (guitar and electric-bass wound strings) from 0.046 in outer upwards: 0.39.
-/// PRACTICE, from memory: common constructions run about 0.39 for a 0.046 in string (0.018 in
-/// core) up to 0.5 for thin wound; see [`CoreRatio::HexTapered`].
-pub const HEX_CORE_RATIO: f64 = 0.39;
-/// Default core fraction for a round steel core with one wrap layer (harp and piano style): 0.45.
-/// PRACTICE, from memory.
-pub const ROUND_CORE_RATIO: f64 = 0.45;
+const IN: f64 = 0.0254;
+
+/// Default core-to-outer ratios of a hexagonal steel core under one wrap layer (guitar and
+/// electric-bass wound strings), as (outer diameter m, ratio) knots; the ratio is read across the
+/// corners, as the shipped kinds are, and interpolated linearly between knots.
+///
+/// Thin wound strings carry relatively thick cores: a fixed ratio either starves a 0.024 in G of
+/// core (it read as 88 % of its breaking strength at standard pitch, where such strings are
+/// routinely tuned a whole step up) or overstates the core of a bass string.
+/// - The trade's core sizes (from memory: about 0.012–0.0135 in in a 0.024–0.026 in string,
+///   0.015 in in 0.032 in, 0.017 in in 0.042 in, 0.018–0.0185 in in 0.046–0.053 in) are taken
+///   as micrometer readings, which settle on a hexagon's flats; across the corners they are
+///   2/√3 = 1.155 times larger (DERIVED): about 0.60, 0.54, 0.46 and 0.40 of the outer diameter.
+/// - Cross-check (DERIVED, REFERENCES-2 §6.2): with these ratios the open-string B of a light
+///   acoustic set's D3, A2 and E2 (0.032/0.042/0.053 in) comes out 4.7e-5, 7.5e-5 and 1.2e-4,
+///   against measured 5.0e-5, 6.6e-5 and 1.08e-4 (Järveläinen & Karjalainen, *Acta Acustica*
+///   92, 2006, READ-R; the measured strings' gauges are not known), and a 0.046 in electric E2
+///   gives 1.5e-4 against 1.56e-4 (Barbancho et al., *IEEE TASLP* 20, 2012, READ-R). A fixed
+///   0.39 gives the D3 a quarter of the measured B (1.2e-5).
+/// - All of them lie inside the 33–66 % a bass-string article gives (REFERENCES-2 §1.1,
+///   PRACTICE, READ).
+///
+/// Beyond 0.053 in the ratio stays 0.40 (the earlier fixed default there was 0.39; PRACTICE,
+/// from memory).
+pub const HEX_CORE_RATIOS: [(f64, f64); 4] = [
+    (0.026 * IN, 0.60),
+    (0.032 * IN, 0.54),
+    (0.042 * IN, 0.46),
+    (0.053 * IN, 0.40),
+];
+
+/// Default ratios of a round steel core under one wrap layer (harp and piano style), as knots.
+/// At the thin end, 0.55: a round core with the load-bearing area of the hexagonal default there
+/// (0.60 × √0.827 = 0.546, DERIVED; REFERENCES §6.2 for the 0.827). From 0.042 in, 0.45, the
+/// earlier default (PRACTICE, from memory). A single copper layer on the 1.051 mm core of a
+/// grand piano's C2 would need a ratio of 0.55 to give its published μ (REFERENCES-2 §1.1,
+/// DERIVED illustration only: that string may be double-wound), so 0.45 errs towards a thinner
+/// core, i.e. towards warning early.
+pub const ROUND_CORE_RATIOS: [(f64, f64); 2] = [(0.026 * IN, 0.55), (0.042 * IN, 0.45)];
+
 /// Default core fraction for a round steel core under two wrap layers (piano and harp basses):
-/// 0.40. PRACTICE, from memory.
+/// 0.40. PRACTICE, from memory. Consistent with a grand piano's D♯1 (core 1.492 mm, μ 75.5 g/m,
+/// Chabassier et al. 2013 via REFERENCES-2 §2.1, READ-R): two equal copper layers at this ratio
+/// give that μ at an outer diameter of 3.7 mm (DERIVED; the string's outer diameter is not
+/// published there, so this is an illustration, not a check).
 pub const DOUBLE_WRAP_CORE_RATIO: f64 = 0.40;
-/// Default core fraction for a multifilament nylon core (wound basses of nylon-strung
-/// instruments): 0.65. PRACTICE, from memory.
-pub const MULTIFILAMENT_CORE_RATIO: f64 = 0.65;
+
+/// Default ratios of a multifilament nylon core (the wound basses of nylon-strung instruments),
+/// as (outer diameter m, ratio) knots.
+///
+/// The basses of a normal-tension classical set carry about even tension (about 6–8 kgf each,
+/// common practice, from memory) and only the core carries it, so their cores are about the same
+/// size whatever the outer diameter: about 0.5 mm from the 0.76 mm D3 to the 1.09 mm E2
+/// (PRACTICE, from memory; the wrap wire grows instead). A fixed ratio (the earlier 0.65) made
+/// the E2 string far too light (48 N against 74 N on the D3). At 0.76 mm the ratio 0.68 gives
+/// μ = 1.92 g/m, within 2 % of the 1.95 g/m measured on a commercial normal-tension D3
+/// (Woodhouse 2004, Table I, REFERENCES-2 §6.1, READ-R; that string's diameter is not given).
+/// Below 0.60 mm and above 1.09 mm the end ratios hold.
+pub const MULTIFILAMENT_CORE_RATIOS: [(f64, f64); 4] = [
+    (0.60e-3, 0.75),
+    (0.76e-3, 0.68),
+    (0.89e-3, 0.57),
+    (1.09e-3, 0.46),
+];
+
 /// Default share of the total wrap thickness taken by the inner of two layers: one half.
 /// PRACTICE assumption.
 pub const DEFAULT_INNER_SHARE: f64 = 0.5;
-
-/// Core-to-outer diameter ratio of the hexagonal-core default at its thin end (0.020 in and
-/// below). PRACTICE, from memory: thin wound strings have relatively thick cores.
-pub const HEX_CORE_RATIO_THIN: f64 = 0.50;
-/// Outer diameter (m) up to which [`HEX_CORE_RATIO_THIN`] applies: 0.020 in.
-pub const HEX_CORE_THIN_OUTER: f64 = 0.020 * 0.0254;
-/// Outer diameter (m) from which [`HEX_CORE_RATIO`] applies: 0.046 in.
-pub const HEX_CORE_THICK_OUTER: f64 = 0.046 * 0.0254;
 
 /// A wound kind's core diameter as a fraction of its outer diameter.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum CoreRatio {
     /// The same fraction at every gauge.
     Fixed(f64),
-    /// The hexagonal-core single-wrap default: [`HEX_CORE_RATIO_THIN`] up to 0.020 in outer,
-    /// falling linearly to [`HEX_CORE_RATIO`] at 0.046 in and constant beyond. One fixed ratio
-    /// either starves thin wound strings of core (a 0.024 in D string would read as overstressed)
-    /// or overstates the core of bass strings. PRACTICE, from memory.
-    HexTapered,
+    /// A fraction that depends on the outer diameter: (outer diameter m, ratio) knots in rising
+    /// order of diameter, interpolated linearly and held constant beyond the first and last.
+    ByOuterDiameter(&'static [(f64, f64)]),
 }
 
 impl CoreRatio {
@@ -239,27 +280,42 @@ impl CoreRatio {
     pub fn at(self, outer_diameter: f64) -> f64 {
         match self {
             CoreRatio::Fixed(ratio) => ratio,
-            CoreRatio::HexTapered => {
-                let t = ((outer_diameter - HEX_CORE_THIN_OUTER)
-                    / (HEX_CORE_THICK_OUTER - HEX_CORE_THIN_OUTER))
-                    .clamp(0.0, 1.0);
-                HEX_CORE_RATIO_THIN + t * (HEX_CORE_RATIO - HEX_CORE_RATIO_THIN)
-            }
+            CoreRatio::ByOuterDiameter(knots) => interpolate(knots, outer_diameter),
         }
     }
+}
+
+/// Linear interpolation through knots sorted by x, clamped at both ends.
+fn interpolate(knots: &[(f64, f64)], x: f64) -> f64 {
+    let (Some(&(first_x, first_y)), Some(&(last_x, last_y))) = (knots.first(), knots.last()) else {
+        return f64::NAN;
+    };
+    if x <= first_x {
+        return first_y;
+    }
+    if x >= last_x {
+        return last_y;
+    }
+    knots
+        .windows(2)
+        .find(|pair| x <= pair[1].0)
+        .map_or(last_y, |pair| {
+            let ((x0, y0), (x1, y1)) = (pair[0], pair[1]);
+            y0 + (x - x0) / (x1 - x0) * (y1 - y0)
+        })
 }
 
 /// The default core-to-outer ratio for a construction family, used when a kind does not give one.
 /// A core material lighter than 2000 kg/m³ is taken to be a polymer bundle.
 pub fn default_core_ratio(shape: CoreShape, wrap_layers: usize, core_density: f64) -> CoreRatio {
     if core_density < 2000.0 {
-        CoreRatio::Fixed(MULTIFILAMENT_CORE_RATIO)
+        CoreRatio::ByOuterDiameter(&MULTIFILAMENT_CORE_RATIOS)
     } else if wrap_layers >= 2 {
         CoreRatio::Fixed(DOUBLE_WRAP_CORE_RATIO)
     } else if shape == CoreShape::Round {
-        CoreRatio::Fixed(ROUND_CORE_RATIO)
+        CoreRatio::ByOuterDiameter(&ROUND_CORE_RATIOS)
     } else {
-        CoreRatio::HexTapered
+        CoreRatio::ByOuterDiameter(&HEX_CORE_RATIOS)
     }
 }
 
@@ -306,5 +362,35 @@ impl<'m> WoundRecipe<'m> {
             ),
         };
         Construction::Wound { core, wraps }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn ratio_by_outer_diameter_interpolates_between_knots_and_holds_beyond() {
+        let ratio = CoreRatio::ByOuterDiameter(&HEX_CORE_RATIOS);
+        assert_eq!(ratio.at(0.010 * IN), 0.60);
+        assert_eq!(ratio.at(0.026 * IN), 0.60);
+        assert!((ratio.at(0.029 * IN) - 0.57).abs() < 1e-12);
+        assert!((ratio.at(0.042 * IN) - 0.46).abs() < 1e-12);
+        assert_eq!(ratio.at(0.130 * IN), 0.40);
+        assert_eq!(CoreRatio::Fixed(0.5).at(1.0), 0.5);
+    }
+
+    #[test]
+    fn every_default_family_thins_its_core_ratio_as_the_string_thickens() {
+        for knots in [
+            &HEX_CORE_RATIOS[..],
+            &ROUND_CORE_RATIOS[..],
+            &MULTIFILAMENT_CORE_RATIOS[..],
+        ] {
+            assert!(knots
+                .windows(2)
+                .all(|pair| pair[1].0 > pair[0].0 && pair[1].1 < pair[0].1));
+            assert!(knots.iter().all(|&(_, ratio)| ratio > 0.0 && ratio < 1.0));
+        }
     }
 }

@@ -270,10 +270,14 @@ impl CourseContext<'_> {
                 warnings.push(at.wider_than_slot(chosen.diameter, widest));
             }
         }
-        if let Some(window) = at.outside_window(
+        if let Some(window) = at.outside_window_of_catalog(
             chosen.tension,
             request.checks.min_tension,
             request.checks.max_tension,
+            gauges.last().is_some_and(|g| g.diameter == chosen.diameter),
+            gauges
+                .first()
+                .is_some_and(|g| g.diameter == chosen.diameter),
         ) {
             warnings.push(window);
         }

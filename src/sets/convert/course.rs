@@ -88,6 +88,9 @@ pub(super) fn convert_course(
             }
             _ => None,
         };
+        // Whether a newly chosen string is already the heaviest or the thinnest of its catalog,
+        // so that a window it misses is out of reach for its kind.
+        let mut catalog_end = (false, false);
         let (set_string, construction, evaluation, selection_flags) = match keep {
             Some((written, construction, evaluation)) => {
                 (written, construction, evaluation, evaluation.warnings)
@@ -110,6 +113,13 @@ pub(super) fn convert_course(
                 let evaluation =
                     select::evaluate(&construction, pitch_hz, placed.length_m, &checks);
                 flag_catalog(&mut warnings, at, &selection, kind, &request);
+                let gauges = kind.gauges();
+                catalog_end = (
+                    gauges.last().is_some_and(|g| g.diameter == chosen.diameter),
+                    gauges
+                        .first()
+                        .is_some_and(|g| g.diameter == chosen.diameter),
+                );
                 (
                     SetString::Kind {
                         kind: kind.id.as_str().to_string(),
@@ -132,6 +142,7 @@ pub(super) fn convert_course(
             &checks,
             pitch_hz,
             set_string.diameter(),
+            catalog_end,
         );
         let slot = slot_fit(
             slot_stated,

@@ -128,6 +128,7 @@ pub(super) fn flag_catalog(
     }
 }
 
+#[allow(clippy::too_many_arguments)]
 pub(super) fn flag_common(
     warnings: &mut Vec<Warning>,
     at: StringRef,
@@ -136,6 +137,7 @@ pub(super) fn flag_common(
     checks: &Checks,
     pitch_hz: f64,
     diameter: Option<f64>,
+    (heaviest, thinnest): (bool, bool),
 ) {
     if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency) {
         if flags.contains(Warnings::STRESS_DANGER) || ratio > checks.limits.danger {
@@ -161,9 +163,13 @@ pub(super) fn flag_common(
             warnings.push(at.wider_than_slot(diameter, widest));
         }
     }
-    if let Some(window) =
-        at.outside_window(evaluation.tension, checks.min_tension, checks.max_tension)
-    {
+    if let Some(window) = at.outside_window_of_catalog(
+        evaluation.tension,
+        checks.min_tension,
+        checks.max_tension,
+        heaviest,
+        thinnest,
+    ) {
         warnings.push(window);
     }
 }
