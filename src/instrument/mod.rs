@@ -13,6 +13,7 @@ mod quantities;
 mod scalar_or_map;
 mod templates;
 mod tension;
+mod variants;
 
 use std::path::Path;
 use std::str::FromStr;
@@ -24,6 +25,7 @@ pub use quantities::{Percent, ScaleLength};
 pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
+pub use variants::{Variant, MAX_VARIANTS};
 
 use crate::error::{did_you_mean, Error, Result};
 use crate::input::units::{Force, Length};
@@ -145,6 +147,8 @@ struct InstrumentFile {
     #[serde(default)]
     defaults: CourseSettings,
     courses: Vec<Course>,
+    #[serde(default)]
+    variants: Vec<Variant>,
 }
 
 /// A checked instrument definition, with the text it came from so later errors can point at
@@ -169,6 +173,8 @@ pub struct Instrument {
     pub defaults: CourseSettings,
     /// The courses in the order written (at least one).
     pub courses: Vec<Course>,
+    /// The tunings and course-pitch variants the player moves between (empty: just the one).
+    pub variants: Vec<Variant>,
     origin: String,
     text: String,
 }
@@ -234,10 +240,12 @@ impl Instrument {
             stress_limits: file.stress_limits,
             defaults: file.defaults,
             courses: file.courses,
+            variants: file.variants,
             origin: origin.to_string(),
             text,
         };
         instrument.check()?;
+        instrument.check_variants()?;
         Ok(instrument)
     }
 
