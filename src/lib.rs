@@ -8,8 +8,8 @@
 //! | 2. pitch | [`tuning`] | tuning definitions, the shipped library, analysis, and pitch addressing ([`tuning::pitch`]) |
 //! | 3. strings | [`strings`] | physics, materials, constructions, gauge catalogs, kinds, the selector, the user's stock, feel |
 //! | 4. instrument | [`instrument`] | instrument definitions: courses, lengths, tension targets, templates |
-//! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]) and warnings ([`plan::warning`]) |
-//! | 6. sets | [`sets`] | string-set files, auditing a set, converting a set to a new tuning or scale |
+//! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]), warnings ([`plan::warning`]) and one set for several tunings ([`plan::several`]) |
+//! | 6. sets | [`sets`] | string-set files, auditing a set (in one tuning or several, [`sets::several`]), converting a set to a new tuning or scale |
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
 //! | 6. frets | [`frets`] | fret positions for any tuning, straight or fanned, per course; the board drawing |
 //!

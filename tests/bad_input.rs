@@ -1064,3 +1064,42 @@ fn inline_string_without_unit() {
         "{stderr}"
     );
 }
+
+#[test]
+fn a_variant_retuning_a_course_the_instrument_lacks() {
+    // BASE has 11 lines; `variants:` is line 12, the course key line 15.
+    let text = format!("{BASE}variants:\n  - name: up\n    pitches:\n      9: E5\n");
+    let stderr = plan_refuses_at(&text, 15, "variants[0].pitches.9");
+    assert!(stderr.contains("course 9 is not a course"), "{stderr}");
+}
+
+#[test]
+fn a_variant_pitch_its_tuning_cannot_address() {
+    let text = format!("{BASE}variants:\n  - name: a\n  - name: b\n    tuning: 19edo\n");
+    // Course 1's `E4` is not a degree of 19-EDO: the course's line, naming the variant.
+    let stderr = plan_refuses_at(&text, 9, "courses[0].pitch");
+    assert!(stderr.contains("variant `b`"), "{stderr}");
+}
+
+#[test]
+fn several_tunings_beside_the_files_variants() {
+    let dir = scratch(&[(
+        "probe.yaml",
+        format!("{BASE}variants:\n  - name: a\n").as_bytes(),
+    )]);
+    let stderr = refused_with_code(
+        dir.path(),
+        &[
+            "plan",
+            "probe.yaml",
+            "--tuning",
+            "12edo",
+            "--tuning",
+            "19edo",
+            "-o",
+            "report.txt",
+        ],
+        2,
+    );
+    assert!(stderr.contains("--tuning"), "{stderr}");
+}

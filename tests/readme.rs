@@ -95,6 +95,7 @@ fn readme_outputs_are_current() {
     let text = readme();
     for command in [
         "plan guitar-19edo",
+        "plan examples/guitar-three-tunings.yaml",
         "audit examples/guitar-22edo-mode.yaml --set examples/steel-guitar-set.yaml --from-instrument examples/steel-guitar-12edo.yaml",
         "lengths examples/psaltery-layout.yaml",
         "frets guitar-19edo --up-to 200mm",
@@ -132,8 +133,8 @@ fn start_here_commands_match_ci() {
     assert!(root().join("examples/guitar-19edo.yaml").is_file());
 }
 
-/// The YAML examples README shows are files `taut` reads: an instrument, a stock file and a
-/// string set, in that order.
+/// The YAML examples README shows are files `taut` reads: an instrument, a stock file, an
+/// instrument with variants and a string set, in that order.
 #[test]
 fn readme_yaml_examples_are_valid_files() {
     let text = readme();
@@ -144,7 +145,7 @@ fn readme_yaml_examples_are_valid_files() {
         .collect();
     assert_eq!(
         blocks.len(),
-        3,
+        4,
         "README's YAML examples changed: update this test"
     );
     let instrument =
@@ -159,5 +160,14 @@ fn readme_yaml_examples_are_valid_files() {
     .unwrap();
     let mut own = stock.clone();
     own.add_text(blocks[1], "README stock").unwrap();
-    taut::sets::set::StringSet::from_text(blocks[2].to_string(), "README set", &own).unwrap();
+    let several =
+        taut::instrument::Instrument::from_text(blocks[2].to_string(), "README variants").unwrap();
+    let plan = taut::plan::several::plan(
+        &several,
+        stock,
+        &taut::plan::several::SeveralOptions::default(),
+    )
+    .unwrap();
+    assert_eq!(plan.tunings.len(), 3);
+    taut::sets::set::StringSet::from_text(blocks[3].to_string(), "README set", &own).unwrap();
 }

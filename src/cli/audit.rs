@@ -1,5 +1,7 @@
 //! `taut audit`: an installed string set under a tuning, with a yes or no per course.
 
+mod several;
+
 use std::path::PathBuf;
 
 use clap::Args;
@@ -92,9 +94,10 @@ pub struct AuditArgs {
     /// The installed strings: a string-set file.
     #[arg(long, value_name = "SET")]
     pub set: PathBuf,
-    /// Tuning to audit instead of the instrument's own.
+    /// Tuning to audit instead of the instrument's own. Give it more than once to audit the set
+    /// in every tuning listed, side by side.
     #[arg(long, value_name = "TUNING")]
-    pub tuning: Option<String>,
+    pub tuning: Vec<String>,
     /// Tuning the strings are in now, for the tension changes (default: the own tuning of the
     /// instrument they are on now, when that differs from what is audited).
     #[arg(long, value_name = "TUNING")]
@@ -119,7 +122,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let set = StringSet::load(&args.set, &stock)?;
-    let tuning = tuning_for(&instrument, args.tuning.as_deref(), "--tuning")?;
+    let given = args.tuning.first();
     let now_instrument = match &args.from_instrument {
         Some(spec) => {
             Some(Instrument::load(spec).map_err(|err| err.in_origin("--from-instrument"))?)
@@ -127,7 +130,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
         None => None,
     };
     let now = now_instrument.as_ref().unwrap_or(&instrument);
-    let reference_tuning = match (&args.from, &now_instrument, &args.tuning, &now.tuning) {
+    let reference_tuning = match (&args.from, &now_instrument, given, &now.tuning) {
         (Some(spec), _, _, _) => Some(tuning::load(spec).map_err(|err| err.in_origin("--from"))?),
         (None, Some(_), _, None) => Some(tuning::load(taut::plan::solve::DEFAULT_TUNING)?),
         (None, Some(_), _, Some(spec)) | (None, None, Some(_), Some(spec)) => {
@@ -141,17 +144,17 @@ pub fn run(args: AuditArgs) -> Result<()> {
     });
     let max_change = parse_flag::<Percent>(args.max_change.as_deref(), "--max-change")?
         .map_or(DEFAULT_MAX_CHANGE, Percent::fraction);
-    let report = audit::audit(
-        &instrument,
-        &set,
-        &tuning,
-        reference,
-        &stock,
-        &AuditOptions {
-            max_change,
-            feel: args.feel.options()?,
-        },
-    )?;
+    let options = AuditOptions {
+        max_change,
+        feel: args.feel.options()?,
+    };
+    if args.tuning.len() > 1 || !instrument.variants.is_empty() {
+        let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
+        let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;
+        return output::emit(&report, &args.output);
+    }
+    let tuning = tuning_for(&instrument, given.map(String::as_str), "--tuning")?;
+    let report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
     output::emit(&report, &args.output)
 }
 

@@ -1,6 +1,7 @@
 //! `taut plan`: solve a string for every course of an instrument in a tuning.
 
 mod render;
+mod several;
 
 use std::path::PathBuf;
 
@@ -9,7 +10,9 @@ use clap::{Args, ValueEnum};
 use taut::error::Result;
 use taut::input::units::{ForceUnit, LengthUnit};
 use taut::instrument::{Instrument, TensionSpec};
+use taut::plan::several::SeveralOptions;
 use taut::plan::solve::{self, SolveOptions};
+use taut::strings::select::several::Balance;
 
 pub use render::DisplayUnits;
 
@@ -41,6 +44,15 @@ pub enum ForceChoice {
     Kgf,
 }
 
+/// How a string shared by several tunings is balanced among them.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum BalanceChoice {
+    /// The smallest worst-case relative deviation of tension from the target.
+    Target,
+    /// The lowest worst-case stress (share of breaking strength).
+    Stress,
+}
+
 /// Units a vibrating length can be shown in.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
 pub enum LengthChoice {
@@ -63,9 +75,15 @@ pub struct PlanArgs {
     #[arg(value_name = "INSTRUMENT")]
     pub instrument: String,
     /// Tuning to use instead of the instrument's own: a shipped name (e.g. `19edo`), an inline
-    /// spec, or a YAML file, optionally with `@reference`.
+    /// spec, or a YAML file, optionally with `@reference`. Give it more than once to plan one
+    /// set that serves every tuning listed.
     #[arg(long, value_name = "TUNING")]
-    pub tuning: Option<String>,
+    pub tuning: Vec<String>,
+    /// With several tunings (or the instrument's `variants`), how the shared string is balanced
+    /// among them: the smallest worst-case deviation from the target tension, or the lowest
+    /// worst-case stress.
+    #[arg(long, value_enum, default_value = "target", value_name = "RULE")]
+    pub balance: BalanceChoice,
     /// Tension for every course instead of the file's: a target such as `70N`, `16lbf`, `7kgf`,
     /// or a window such as `60N..90N`.
     #[arg(long, value_name = "TENSION", allow_hyphen_values = true)]
@@ -94,11 +112,19 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
+    let force = match args.force_unit {
+        ForceChoice::N => ForceUnit::N,
+        ForceChoice::Lbf => ForceUnit::Lbf,
+        ForceChoice::Kgf => ForceUnit::Kgf,
+    };
+    if args.tuning.len() > 1 || !instrument.variants.is_empty() {
+        return run_several(args, &instrument, &stock, tension, force);
+    }
     let plan = solve::plan(
         &instrument,
         &stock,
         &SolveOptions {
-            tuning: args.tuning.clone(),
+            tuning: args.tuning.first().cloned(),
             tension,
         },
     )?;
@@ -107,11 +133,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         output::write_atomically(path, set.as_bytes())?;
     }
     let units = DisplayUnits {
-        force: match args.force_unit {
-            ForceChoice::N => ForceUnit::N,
-            ForceChoice::Lbf => ForceUnit::Lbf,
-            ForceChoice::Kgf => ForceUnit::Kgf,
-        },
+        force,
         length: match args.length_unit {
             LengthChoice::Mm => LengthUnit::Mm,
             LengthChoice::In => LengthUnit::In,
@@ -124,9 +146,55 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         PlanFormat::Csv => render::csv(&plan)?,
         PlanFormat::Yaml => render::yaml(&plan)?,
     };
-    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
+    write(args, &text)
+}
+
+/// The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
+fn write(args: &PlanArgs, text: &str) -> Result<()> {
     match &args.output {
         Some(path) => output::write_atomically(path, text.as_bytes()),
         None => output::write_stdout(text.as_bytes()),
     }
+}
+
+/// `taut plan` with several tunings or the instrument's variants: one set for all of them.
+fn run_several(
+    args: &PlanArgs,
+    instrument: &Instrument,
+    stock: &taut::strings::stock::Stock,
+    tension: Option<TensionSpec>,
+    force: ForceUnit,
+) -> Result<()> {
+    let plan = taut::plan::several::plan(
+        instrument,
+        stock,
+        &SeveralOptions {
+            tunings: args.tuning.clone(),
+            tension,
+            balance: match args.balance {
+                BalanceChoice::Target => Balance::Target,
+                BalanceChoice::Stress => Balance::Stress,
+            },
+        },
+    )?;
+    if let Some(path) = &args.save_set {
+        if let Some(first) = plan.tunings.first() {
+            let mut set = taut::sets::set::StringSet::from_plan(&first.plan);
+            let names: Vec<&str> = plan.tunings.iter().map(|b| b.variant.as_str()).collect();
+            set.name = format!("{} for {}", plan.instrument, names.join(", "));
+            set.tuning = None;
+            set.about = Some(format!(
+                "Strings chosen by `taut plan` to serve every one of: {}.",
+                names.join(", ")
+            ));
+            output::write_atomically(path, set.to_yaml().as_bytes())?;
+        }
+    }
+    let text = match args.format {
+        PlanFormat::Table => several::table(&plan, force),
+        PlanFormat::Json => several::json(&plan)?,
+        PlanFormat::Csv => several::csv(&plan)?,
+        PlanFormat::Yaml => several::yaml(&plan)?,
+    };
+    write(args, &text)
 }

@@ -91,6 +91,75 @@ pub fn feel_legend(bend_cents: f64) -> String {
     )
 }
 
+/// The widest table a side-by-side report writes, in columns.
+pub const MAX_WIDTH: usize = 100;
+
+/// The letter that stands for the tuning at `index` in side-by-side reports (A, B, …).
+pub fn letter(index: usize) -> char {
+    char::from(b'A' + u8::try_from(index % 26).unwrap_or(0))
+}
+
+fn width(text: &str) -> usize {
+    text.lines()
+        .map(|line| line.chars().count())
+        .max()
+        .unwrap_or(0)
+}
+
+/// Tables of `count` columns (tunings) side by side, as many per table as fit in [`MAX_WIDTH`]
+/// columns (at least one), spread evenly over the tables; `build` makes the table for the given
+/// indices. Each table ends in a newline.
+pub fn side_by_side(count: usize, build: impl Fn(&[usize]) -> Table) -> String {
+    let all: Vec<usize> = (0..count).collect();
+    let even = |per_table: usize| {
+        let tables = count.div_ceil(per_table.max(1)).max(1);
+        count.div_ceil(tables).max(1)
+    };
+    let mut per_table = count.max(1);
+    while per_table > 1 {
+        let widest = all
+            .chunks(even(per_table))
+            .map(|shown| width(&build(shown).to_string()))
+            .max()
+            .unwrap_or(0);
+        if widest <= MAX_WIDTH {
+            break;
+        }
+        per_table -= 1;
+    }
+    all.chunks(even(per_table))
+        .map(|shown| format!("{}\n", build(shown)))
+        .collect()
+}
+
+/// The legend of a side-by-side report: one line per tuning with its letter, name, tuning and
+/// the courses it retunes; `entries` yields (name, tuning, retuned course numbers).
+pub fn tuning_legend<'a>(entries: impl Iterator<Item = (&'a str, &'a str, &'a [u32])>) -> String {
+    let mut out = String::new();
+    for (index, (name, tuning, retuned)) in entries.enumerate() {
+        out.push_str(&format!("  {}  {name}: tuning {tuning}", letter(index)));
+        if !retuned.is_empty() {
+            let courses: Vec<String> = retuned.iter().map(u32::to_string).collect();
+            out.push_str(&format!(", course {} retuned", courses.join(", ")));
+        }
+        out.push('\n');
+    }
+    out
+}
+
+/// Every tuning's warnings in one list, each message led by its tuning's letter.
+pub fn lettered_warnings<'a>(per_tuning: impl Iterator<Item = &'a Vec<Warning>>) -> Vec<Warning> {
+    per_tuning
+        .enumerate()
+        .flat_map(|(index, warnings)| {
+            warnings.iter().map(move |warning| Warning {
+                message: format!("[{}] {}", letter(index), warning.message),
+                ..warning.clone()
+            })
+        })
+        .collect()
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

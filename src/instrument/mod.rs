@@ -14,6 +14,7 @@ mod quantities;
 mod scalar_or_map;
 mod templates;
 mod tension;
+mod variants;
 
 use std::path::Path;
 use std::str::FromStr;
@@ -26,6 +27,7 @@ pub use quantities::{Percent, ScaleLength};
 pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
+pub use variants::{Variant, MAX_VARIANTS};
 
 use crate::error::{did_you_mean, Error, Result};
 use crate::input::units::{Force, Length};
@@ -148,6 +150,8 @@ struct InstrumentFile {
     defaults: CourseSettings,
     courses: Vec<Course>,
     frets: Option<FretSettings>,
+    #[serde(default)]
+    variants: Vec<Variant>,
 }
 
 /// A checked instrument definition, with the text it came from so later errors can point at
@@ -174,6 +178,8 @@ pub struct Instrument {
     pub courses: Vec<Course>,
     /// Fret layout settings (`taut frets`), as written.
     pub frets: Option<FretSettings>,
+    /// The tunings and course-pitch variants the player moves between (empty: just the one).
+    pub variants: Vec<Variant>,
     origin: String,
     text: String,
 }
@@ -240,10 +246,12 @@ impl Instrument {
             defaults: file.defaults,
             courses: file.courses,
             frets: file.frets,
+            variants: file.variants,
             origin: origin.to_string(),
             text,
         };
         instrument.check()?;
+        instrument.check_variants()?;
         Ok(instrument)
     }
 

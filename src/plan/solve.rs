@@ -14,15 +14,15 @@ use crate::input::units::METRES_PER_INCH;
 use crate::input::yaml::PathStep;
 use crate::instrument::{field_name, CourseInput, Instrument, TensionSpec};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
-use crate::plan::{Alternatives, CoursePlan, Plan, StringChoice, StringPlan};
+use crate::plan::{Alternatives, CoursePitch, CoursePlan, Plan, StringChoice, StringPlan};
 use crate::strings::kind::{KindBuild, StringKind, StringKinds};
-use crate::strings::select::{self, Checks, Choice, Request, StressLimits, Warnings};
+use crate::strings::select::{self, Checks, Choice, Request, Selection, StressLimits, Warnings};
 use crate::strings::stock::Stock;
 use crate::tuning::{self, Tuning};
 
 mod course;
 #[allow(unused_imports)]
-use course::*;
+pub(crate) use course::*;
 
 /// The tuning used when neither the command line nor the instrument names one: 12 equal
 /// divisions of the octave at A4 = 440 Hz (ISO 16:1975).
@@ -91,6 +91,17 @@ pub fn solve(
         string_slot += course.strings.len();
         courses.push(context.solve(&lists.arena, ranges, &mut best_per_kind)?);
     }
+    Ok(finish_plan(instrument, tuning, courses, limits))
+}
+
+/// The whole plan from its courses: the total load, its check against the rated load, and
+/// every warning in course order.
+pub(crate) fn finish_plan(
+    instrument: &Instrument,
+    tuning: &Tuning,
+    courses: Vec<CoursePlan>,
+    limits: StressLimits,
+) -> Plan {
     let total_tension_n: f64 = courses
         .iter()
         .flat_map(|course| &course.strings)
@@ -102,7 +113,7 @@ pub fn solve(
         total_tension_n,
         rated_load_n,
     );
-    Ok(Plan {
+    Plan {
         instrument: instrument.name.clone(),
         tuning: tuning.name().to_string(),
         courses,
@@ -111,10 +122,10 @@ pub fn solve(
         caution_stress_ratio: limits.caution,
         danger_stress_ratio: limits.danger,
         warnings,
-    })
+    }
 }
 
-fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
+pub(crate) fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
     let mut limits = StressLimits::default();
     if let Some(own) = instrument.stress_limits {
         if let Some(caution) = own.caution {

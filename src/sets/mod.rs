@@ -5,9 +5,11 @@
 //! | [`set`] | string-set files: kind + diameter, a measured μ, or a weighed string, per course |
 //! | [`audit`] | an installed set under a tuning, with a verdict per course |
 //! | [`matching`] | a set's courses matched to an instrument's, shared by audit and conversion |
+//! | [`several`] | an installed set under several tunings or variants, side by side, with verdicts |
 //! | [`convert`] | a set moved to a new tuning or scale length, keeping each string's feel |
 
 pub mod audit;
 pub mod convert;
 pub mod matching;
 pub mod set;
+pub mod several;

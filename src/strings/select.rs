@@ -35,6 +35,8 @@ use crate::strings::construction::Construction;
 use crate::strings::kind::{Gauge, StringKind};
 use crate::strings::physics;
 
+pub mod several;
+
 /// A small set of warning flags.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
 pub struct Warnings(u16);
@@ -372,7 +374,24 @@ pub fn select(
             fallback = Some(best);
         }
     }
-    let chosen = first_acceptable.or(fallback);
+    finish(
+        request,
+        kinds,
+        first_acceptable.or(fallback),
+        required,
+        any_within_tolerance,
+    )
+}
+
+/// The selector's answer around a chosen string: its catalog neighbours and its flags, plus
+/// [`Warnings::NONE_WITHIN_TOLERANCE`] when no kind's best came within the tolerance.
+fn finish(
+    request: &Request,
+    kinds: &[&StringKind],
+    chosen: Option<Choice>,
+    required: f64,
+    any_within_tolerance: bool,
+) -> Selection {
     let neighbour = |offset: isize| {
         let choice = chosen?;
         let gauges = kinds.get(choice.kind)?.gauges();

@@ -20,7 +20,7 @@ pub struct DisplayUnits {
     pub length: LengthUnit,
 }
 
-fn tension_text(newtons: f64, unit: ForceUnit) -> String {
+pub(super) fn tension_text(newtons: f64, unit: ForceUnit) -> String {
     match unit {
         ForceUnit::N => format!("{newtons:.1} N"),
         other => format!(
@@ -39,7 +39,7 @@ fn length_text(metres: f64, unit: LengthUnit) -> String {
     }
 }
 
-fn worst_severity(course: &CoursePlan, string_number: usize) -> Option<Severity> {
+pub(super) fn worst_severity(course: &CoursePlan, string_number: usize) -> Option<Severity> {
     course
         .warnings
         .iter()

@@ -5,14 +5,14 @@ use super::*;
 
 /// Every kind list of the instrument resolved to kinds, in one flat list; each string of each
 /// course (in order) gets a range into it.
-pub(super) struct KindLists<'k> {
-    pub(super) arena: Vec<&'k StringKind>,
-    pub(super) per_string: Vec<Range<usize>>,
-    pub(super) longest: usize,
+pub(crate) struct KindLists<'k> {
+    pub(crate) arena: Vec<&'k StringKind>,
+    pub(crate) per_string: Vec<Range<usize>>,
+    pub(crate) longest: usize,
 }
 
 impl<'k> KindLists<'k> {
-    pub(super) fn resolve(instrument: &Instrument, kinds: &'k StringKinds) -> Result<Self> {
+    pub(crate) fn resolve(instrument: &Instrument, kinds: &'k StringKinds) -> Result<Self> {
         let mut lists = KindLists {
             arena: Vec::new(),
             per_string: Vec::new(),
@@ -112,12 +112,12 @@ impl<'k> KindLists<'k> {
 }
 
 /// Everything one course's solve reads.
-pub(super) struct CourseContext<'a> {
-    pub(super) instrument: &'a Instrument,
-    pub(super) tuning: &'a Tuning,
-    pub(super) course: CourseInput<'a>,
-    pub(super) limits: StressLimits,
-    pub(super) tolerance: f64,
+pub(crate) struct CourseContext<'a> {
+    pub(crate) instrument: &'a Instrument,
+    pub(crate) tuning: &'a Tuning,
+    pub(crate) course: CourseInput<'a>,
+    pub(crate) limits: StressLimits,
+    pub(crate) tolerance: f64,
 }
 
 impl CourseContext<'_> {
@@ -135,8 +135,30 @@ impl CourseContext<'_> {
         ranges: &[Range<usize>],
         best_per_kind: &mut [Option<Choice>],
     ) -> Result<CoursePlan> {
+        let resolved = self.instrument.course_pitch(&self.course, self.tuning)?;
+        let mut strings = Vec::with_capacity(self.course.strings.len());
+        let mut warnings = Vec::new();
+        for (string_index, range) in ranges.iter().enumerate() {
+            let kinds = &arena[range.clone()];
+            let request = self.request(&resolved, string_index)?;
+            let scratch = &mut best_per_kind[..kinds.len()];
+            let selection = select::select(&request, kinds, scratch);
+            strings.push(self.string_plan(
+                string_index,
+                kinds,
+                &request,
+                &selection,
+                scratch,
+                &mut warnings,
+            )?);
+        }
+        Ok(self.course_plan(resolved, strings, warnings))
+    }
+
+    /// What string `string_index` of the course asks of the selector at the course pitch
+    /// `resolved`.
+    pub(crate) fn request(&self, resolved: &CoursePitch, string_index: usize) -> Result<Request> {
         let course = self.course;
-        let resolved = self.instrument.course_pitch(&course, self.tuning)?;
         let goal = course.tension.ok_or_else(|| {
             self.instrument.point(
                 Error::input(format!("course {} has no tension target", course.number))
@@ -145,82 +167,108 @@ impl CourseContext<'_> {
                 &[PathStep::Key("courses"), PathStep::Index(course.index)],
             )
         })?;
-        let mut strings = Vec::with_capacity(course.strings.len());
-        let mut warnings = Vec::new();
-        for (string_index, (string, range)) in course.strings.iter().zip(ranges).enumerate() {
-            let kinds = &arena[range.clone()];
-            let pitch_hz = resolved.hz * string.interval.ratio();
-            let request = Request {
-                frequency: pitch_hz,
-                length: course.length_m,
-                target_tension: goal.target_n,
-                tolerance: self.tolerance,
-                checks: Checks {
-                    min_tension: goal.min_n,
-                    max_tension: goal.max_n,
-                    widest: course.max_diameter_m,
-                    limits: self.limits,
-                },
-            };
-            let scratch = &mut best_per_kind[..kinds.len()];
-            let selection = select::select(&request, kinds, scratch);
-            let chosen = selection.chosen.ok_or_else(|| {
-                self.instrument.point(
-                    Error::input(format!(
-                        "course {}: none of the allowed kinds has any gauge to choose from",
-                        course.number
-                    )),
-                    &self.path("kinds"),
-                )
-            })?;
-            let at = StringRef {
-                course: course.number,
-                string: string_index + 1,
-            };
-            let kind = kinds[chosen.kind];
-            self.flag(
-                &mut warnings,
-                at,
-                &request,
-                &selection.warnings,
-                &chosen,
-                selection.required_unit_mass,
-                kind,
-                pitch_hz,
-            );
-            let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, &request);
-            let feel = crate::strings::feel::feel(
-                &kind.construction(chosen.diameter),
-                chosen.tension,
-                course.length_m,
-                &crate::strings::feel::FeelOptions::default(),
-            );
-            strings.push(StringPlan {
-                interval: string.interval.written().to_string(),
-                pitch_hz,
-                target_tension_n: goal.target_n,
-                required_unit_mass_kg_per_m: selection.required_unit_mass,
-                choice: choice_of(&chosen),
-                alternatives: Alternatives {
-                    thinner: selection.thinner.as_ref().map(choice_of),
-                    thicker: selection.thicker.as_ref().map(choice_of),
-                    other_kinds: scratch
-                        .iter()
-                        .flatten()
-                        .filter(|other| other.kind != chosen.kind)
-                        .map(choice_of)
-                        .collect(),
-                },
-                feel: Some(feel),
-            });
-        }
-        Ok(CoursePlan {
+        let interval = course
+            .strings
+            .get(string_index)
+            .map_or(1.0, |string| string.interval.ratio());
+        Ok(Request {
+            frequency: resolved.hz * interval,
+            length: course.length_m,
+            target_tension: goal.target_n,
+            tolerance: self.tolerance,
+            checks: Checks {
+                min_tension: goal.min_n,
+                max_tension: goal.max_n,
+                widest: course.max_diameter_m,
+                limits: self.limits,
+            },
+        })
+    }
+
+    /// The plan of one string from the selector's answer; its warnings go to `warnings`.
+    /// `others` holds each allowed kind's best, for the alternatives.
+    pub(crate) fn string_plan(
+        &self,
+        string_index: usize,
+        kinds: &[&StringKind],
+        request: &Request,
+        selection: &Selection,
+        others: &[Option<Choice>],
+        warnings: &mut Vec<Warning>,
+    ) -> Result<StringPlan> {
+        let course = self.course;
+        let chosen = selection.chosen.ok_or_else(|| self.no_gauge_error())?;
+        let at = StringRef {
             course: course.number,
+            string: string_index + 1,
+        };
+        let kind = kinds[chosen.kind];
+        let pitch_hz = request.frequency;
+        self.flag(
+            warnings,
+            at,
+            request,
+            &selection.warnings,
+            &chosen,
+            selection.required_unit_mass,
+            kind,
+            pitch_hz,
+        );
+        let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, request);
+        let feel = crate::strings::feel::feel(
+            &kind.construction(chosen.diameter),
+            chosen.tension,
+            course.length_m,
+            &crate::strings::feel::FeelOptions::default(),
+        );
+        Ok(StringPlan {
+            interval: course
+                .strings
+                .get(string_index)
+                .map_or_else(String::new, |string| string.interval.written().to_string()),
+            pitch_hz,
+            target_tension_n: request.target_tension,
+            required_unit_mass_kg_per_m: selection.required_unit_mass,
+            choice: choice_of(&chosen),
+            alternatives: Alternatives {
+                thinner: selection.thinner.as_ref().map(choice_of),
+                thicker: selection.thicker.as_ref().map(choice_of),
+                other_kinds: others
+                    .iter()
+                    .flatten()
+                    .filter(|other| other.kind != chosen.kind)
+                    .map(choice_of)
+                    .collect(),
+            },
+            feel: Some(feel),
+        })
+    }
+
+    /// The error for a course whose allowed kinds hold no gauge at all.
+    pub(crate) fn no_gauge_error(&self) -> Error {
+        self.instrument.point(
+            Error::input(format!(
+                "course {}: none of the allowed kinds has any gauge to choose from",
+                self.course.number
+            )),
+            &self.path("kinds"),
+        )
+    }
+
+    /// The course's plan from its strings' plans.
+    pub(crate) fn course_plan(
+        &self,
+        resolved: CoursePitch,
+        strings: Vec<StringPlan>,
+        warnings: Vec<Warning>,
+    ) -> CoursePlan {
+        CoursePlan {
+            course: self.course.number,
             pitch: resolved,
-            length_m: course.length_m,
+            length_m: self.course.length_m,
             strings,
             warnings,
-        })
+        }
     }
 
     /// Turns the selector's flags for one string into warnings with figures.

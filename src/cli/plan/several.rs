@@ -1,0 +1,228 @@
+//! Renderers of a [`SeveralPlan`] (one set for several tunings): a side-by-side table that fits
+//! 100 columns, JSON, CSV and YAML. The table gives each tuning a letter; when the tunings do
+//! not fit side by side, they are shown in several tables ([`side_by_side`]).
+
+use comfy_table::{Cell, Table};
+
+use taut::error::Result;
+use taut::input::units::ForceUnit;
+use taut::plan::several::SeveralPlan;
+use taut::plan::warning::Severity;
+use taut::strings::select::several::Agreement;
+
+use super::render::{self, tension_text, worst_severity};
+use crate::cli::text::{
+    letter, lettered_warnings, new_table, right, severity_flag, side_by_side, tuning_legend,
+    warnings_and_cautions,
+};
+
+fn agreement_text(agreement: Agreement) -> &'static str {
+    match agreement {
+        Agreement::OnTarget => "on target",
+        Agreement::Serves => "off target",
+        Agreement::Conflict => "CONFLICT",
+    }
+}
+
+/// The set: per string the chosen kind and gauge, how well it fits the list, and the tunings
+/// that set its limits.
+fn set_table(plan: &SeveralPlan) -> Table {
+    let mut table = new_table(vec![
+        "Course",
+        "String",
+        "Fit",
+        "Slackest in",
+        "Most stressed in",
+    ]);
+    for (course_index, shared) in plan.courses.iter().enumerate() {
+        for (string_index, string) in shared.strings.iter().enumerate() {
+            let first = string_index == 0;
+            let name = |variant: &str| {
+                let index = plan.tunings.iter().position(|b| b.variant == variant);
+                format!("{} {variant}", index.map_or('?', letter))
+            };
+            table.add_row(vec![
+                right(if first {
+                    shared.course.to_string()
+                } else {
+                    String::new()
+                }),
+                Cell::new(if first {
+                    format!("{} {}", string.kind, string.gauge)
+                } else {
+                    let interval = plan
+                        .tunings
+                        .first()
+                        .and_then(|block| block.plan.courses.get(course_index))
+                        .and_then(|course| course.strings.get(string_index))
+                        .map_or("", |s| s.interval.as_str());
+                    format!("  {interval}: {} {}", string.kind, string.gauge)
+                }),
+                Cell::new(agreement_text(string.agreement)),
+                Cell::new(name(&string.slackest_variant)),
+                Cell::new(name(&string.most_stressed_variant)),
+            ]);
+        }
+    }
+    table
+}
+
+/// The tunings `shown` (indices into `plan.tunings`) side by side: per string its gauge, then
+/// pitch, tension and stress in each.
+fn chunk_table(plan: &SeveralPlan, shown: &[usize]) -> Table {
+    let letters: Vec<String> = shown.iter().map(|&i| letter(i).to_string()).collect();
+    let mut header = vec!["Course", "Gauge"];
+    header.extend(letters.iter().map(String::as_str));
+    let mut table = new_table(header);
+    for (course_index, shared) in plan.courses.iter().enumerate() {
+        for (string_index, string) in shared.strings.iter().enumerate() {
+            let first = string_index == 0;
+            let mut row = vec![
+                right(if first {
+                    shared.course.to_string()
+                } else {
+                    String::new()
+                }),
+                right(string.gauge.clone()),
+            ];
+            for &tuning in shown {
+                let course = plan
+                    .tunings
+                    .get(tuning)
+                    .and_then(|block| block.plan.courses.get(course_index));
+                let cell = course
+                    .and_then(|course| {
+                        let planned = course.strings.get(string_index)?;
+                        let pitch = if first {
+                            format!("{} ", course.pitch.label)
+                        } else {
+                            format!("{} ", planned.interval)
+                        };
+                        let flag = worst_severity(course, string_index + 1)
+                            .filter(|&s| s >= Severity::Caution)
+                            .map_or(String::new(), |s| format!(" {}", severity_flag(s)));
+                        Some(format!(
+                            "{pitch}{:.1} N {:.0}%{flag}",
+                            planned.choice.tension_n,
+                            planned.choice.stress_ratio * 100.0
+                        ))
+                    })
+                    .unwrap_or_default();
+                row.push(right(cell));
+            }
+            table.add_row(row);
+        }
+    }
+    table
+}
+
+/// The terminal report: the tunings and their letters, the side-by-side table, the load in each
+/// tuning against the rated load, conflicts, every tuning's warnings and the safety cautions.
+pub fn table(plan: &SeveralPlan, force: ForceUnit) -> String {
+    let mut out = format!(
+        "{} — one set for {} tunings (balance: {})\n",
+        plan.instrument,
+        plan.tunings.len(),
+        plan.balance.name()
+    );
+    out.push_str(&tuning_legend(plan.tunings.iter().map(|block| {
+        (
+            block.variant.as_str(),
+            block.plan.tuning.as_str(),
+            block.retuned_courses.as_slice(),
+        )
+    })));
+    out.push_str(&format!("{}\n", set_table(plan)));
+    out.push_str(
+        "Fit: on target in every tuning; off target in some, but safe and inside the window in\n\
+         all; or CONFLICT (see below). The slackest and the most stressed tuning set the limits.\n",
+    );
+    out.push_str(&side_by_side(plan.tunings.len(), |shown| {
+        chunk_table(plan, shown)
+    }));
+    out.push_str("Each tuning: pitch, tension, and stress as a share of breaking strength.\n");
+    out.push_str("Total tension:\n");
+    for (index, block) in plan.tunings.iter().enumerate() {
+        let mut line = format!(
+            "  {}  {}",
+            letter(index),
+            tension_text(block.plan.total_tension_n, force)
+        );
+        if let Some(rated) = block.plan.rated_load_n {
+            line.push_str(&format!(
+                " ({:.0}% of the rated {})",
+                block.plan.total_tension_n / rated * 100.0,
+                tension_text(rated, force)
+            ));
+        }
+        out.push_str(&line);
+        out.push('\n');
+    }
+    if plan.conflicts.is_empty() {
+        out.push_str("Every string serves every tuning.\n");
+    } else {
+        out.push_str(&format!(
+            "\nConflicts ({}): no string serves every tuning on these courses.\n",
+            plan.conflicts.len()
+        ));
+        for conflict in &plan.conflicts {
+            out.push_str(&format!("  {}\n", conflict.message));
+        }
+    }
+    let warnings = lettered_warnings(plan.tunings.iter().map(|block| &block.plan.warnings));
+    out.push_str(&warnings_and_cautions(&warnings, &plan.cautions));
+    out
+}
+
+/// The JSON document (pretty-printed, ending in a newline).
+pub fn json(plan: &SeveralPlan) -> Result<String> {
+    serde_json::to_string_pretty(plan)
+        .map(|mut text| {
+            text.push('\n');
+            text
+        })
+        .map_err(|err| taut::Error::input(format!("cannot render the plan as JSON: {err}")))
+}
+
+/// The YAML document: the same fields as JSON.
+pub fn yaml(plan: &SeveralPlan) -> Result<String> {
+    taut::input::yaml::to_text(plan)
+}
+
+/// The CSV table: `taut plan`'s rows for every tuning, each led by the variant's name and how
+/// well the shared string fits the list.
+pub fn csv(plan: &SeveralPlan) -> Result<String> {
+    let fits: Vec<&'static str> = plan
+        .courses
+        .iter()
+        .flat_map(|course| &course.strings)
+        .map(|string| match string.agreement {
+            Agreement::OnTarget => "on_target",
+            Agreement::Serves => "serves",
+            Agreement::Conflict => "conflict",
+        })
+        .collect();
+    let mut out = String::new();
+    for (index, block) in plan.tunings.iter().enumerate() {
+        let rows = render::csv(&block.plan)?;
+        let mut lines = rows.lines();
+        let header = lines.next().unwrap_or_default();
+        if index == 0 {
+            out.push_str(&format!("variant,agreement,{header}\n"));
+        }
+        let variant = csv_field(&block.variant);
+        for (line, fit) in lines.zip(fits.iter()) {
+            out.push_str(&format!("{variant},{fit},{line}\n"));
+        }
+    }
+    Ok(out)
+}
+
+/// One CSV field, quoted when it needs to be.
+fn csv_field(text: &str) -> String {
+    if text.contains([',', '"', '\n', '\r']) {
+        format!("\"{}\"", text.replace('"', "\"\""))
+    } else {
+        text.to_string()
+    }
+}
