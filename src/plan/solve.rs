@@ -179,7 +179,20 @@ fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoi
         inharmonicity: kind
             .construction(choice.diameter)
             .inharmonicity(choice.tension, request.length),
+        standing: select::standing(choice, request.tolerance).into(),
+        flags: {
+            let mut flags = flag_names(choice.warnings);
+            if choice.tension_error.abs() > request.tolerance {
+                flags.push("off_target".to_string());
+            }
+            flags
+        },
     }
+}
+
+/// The selector's flag names in the snake_case of the plan's other names.
+pub(crate) fn flag_names(flags: Warnings) -> Vec<String> {
+    flags.names().map(|name| name.replace('-', "_")).collect()
 }
 
 /// The way the trade writes this diameter: inches for gauges on the half-thousandth grid of

@@ -6,15 +6,27 @@
 //!
 //! # Choice rule
 //!
-//! 1. The linear density the course needs is μ = T/(2Lf)² (REFERENCES §1.2).
+//! 1. The linear density the course needs is μ = T/(2Lf)² (REFERENCES §1.2). A tension window
+//!    without a stated target aims at its middle (see [`crate::instrument::TensionGoal`]).
 //! 2. In each allowed kind the best gauge is the one whose tension is nearest the target, among
 //!    the gauges no wider than the slot (if none fits, the thinnest, flagged wider than the slot).
-//! 3. The chosen string is the best gauge of the *first kind in the caller's order of
-//!    preference* that is acceptable: tension within the tolerance of the target, inside the
-//!    tension window, not in the danger zone, and fitting the slot.
-//! 4. If no kind is acceptable, the chosen string is the kind's best that goes wrong least, ranked
-//!    by: not dangerous first, then fitting the slot, then inside the window, then the smallest
-//!    tension error.
+//! 3. Each kind's best then stands in one of three ranks ([`Standing`]):
+//!    - *on target*: tension within the tolerance of the target, inside the tension window,
+//!      fitting the slot, below the caution stress, of known strength, and the kind's catalog
+//!      reaches the linear density the course needs (neither thinner nor thicker than it has);
+//!    - *with reservations*: within the tolerance, inside the window, fitting and below the
+//!      danger stress, but above the caution stress, at the end of its catalog, or of unknown
+//!      strength;
+//!    - *closest*: anything else.
+//! 4. The chosen string is the best gauge of the *first kind in the caller's order of
+//!    preference* that is on target; failing that, the first with reservations. A kind that
+//!    needs a thicker (or thinner) gauge than its catalog has, or runs in the caution zone, so
+//!    never beats a later kind that is on target and safe: practitioners change construction
+//!    (plain to wound, nylon to wound) before they string at the end of a catalog or near the
+//!    elastic limit.
+//! 5. If no kind is within reach, the chosen string is the kind's best that goes wrong least,
+//!    ranked by: not dangerous first, then fitting the slot, then inside the window, then the
+//!    smallest tension error.
 //!
 //! # Stress limits
 //!
@@ -215,6 +227,49 @@ pub struct Selection {
     pub thicker: Option<Choice>,
     /// The chosen string's flags, plus [`Warnings::NONE_WITHIN_TOLERANCE`] when it applies.
     pub warnings: Warnings,
+    /// How the chosen string stands against the rule (why it was chosen).
+    pub standing: Standing,
+}
+
+/// How one kind's best gauge stands against the choice rule (see the module documentation);
+/// the order is the order of preference.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub enum Standing {
+    /// Within tolerance, inside the window, fitting, below the caution stress, of known strength,
+    /// and inside its kind's catalog.
+    OnTarget,
+    /// Within tolerance, inside the window, fitting and below the danger stress, but in the
+    /// caution zone, at the end of its catalog, or of unknown strength.
+    WithReservations,
+    /// Neither: the string that goes wrong least.
+    Closest,
+}
+
+impl Standing {
+    /// Stable name, e.g. `on-target`.
+    pub fn name(self) -> &'static str {
+        match self {
+            Standing::OnTarget => "on-target",
+            Standing::WithReservations => "with-reservations",
+            Standing::Closest => "closest",
+        }
+    }
+}
+
+/// Where `choice` stands against the rule for a request with `tolerance`.
+pub fn standing(choice: &Choice, tolerance: f64) -> Standing {
+    if !is_acceptable(choice, tolerance) {
+        Standing::Closest
+    } else if choice.warnings.intersects(
+        Warnings::STRESS_CAUTION
+            .union(Warnings::THINNER_THAN_CATALOG)
+            .union(Warnings::THICKER_THAN_CATALOG)
+            .union(Warnings::STRENGTH_UNKNOWN),
+    ) {
+        Standing::WithReservations
+    } else {
+        Standing::OnTarget
+    }
 }
 
 fn stress_flags(stress_ratio: f64, limits: StressLimits) -> Warnings {
@@ -347,7 +402,8 @@ pub fn select(
 ) -> Selection {
     let required =
         physics::unit_mass_for_tension(request.target_tension, request.length, request.frequency);
-    let mut first_acceptable: Option<Choice> = None;
+    let mut first_on_target: Option<Choice> = None;
+    let mut first_reserved: Option<Choice> = None;
     let mut fallback: Option<Choice> = None;
     let mut any_within_tolerance = false;
     for (kind_index, kind) in kinds.iter().enumerate() {
@@ -359,8 +415,12 @@ pub fn select(
         }
         let Some(best) = best else { continue };
         any_within_tolerance |= best.tension_error.abs() <= request.tolerance;
-        if first_acceptable.is_none() && is_acceptable(&best, request.tolerance) {
-            first_acceptable = Some(best);
+        match standing(&best, request.tolerance) {
+            Standing::OnTarget if first_on_target.is_none() => first_on_target = Some(best),
+            Standing::WithReservations if first_reserved.is_none() => {
+                first_reserved = Some(best)
+            }
+            _ => {}
         }
         let better = match &fallback {
             None => true,
@@ -372,7 +432,11 @@ pub fn select(
             fallback = Some(best);
         }
     }
-    let chosen = first_acceptable.or(fallback);
+    let (chosen, standing) = match (first_on_target, first_reserved) {
+        (Some(choice), _) => (Some(choice), Standing::OnTarget),
+        (None, Some(choice)) => (Some(choice), Standing::WithReservations),
+        (None, None) => (fallback, Standing::Closest),
+    };
     let neighbour = |offset: isize| {
         let choice = chosen?;
         let gauges = kinds.get(choice.kind)?.gauges();
@@ -390,6 +454,7 @@ pub fn select(
         thinner: neighbour(-1),
         thicker: neighbour(1),
         warnings,
+        standing,
     }
 }
 
