@@ -71,6 +71,10 @@ pub struct StringPlan {
     /// afterlengths of [`crate::strings::feel::FeelOptions`].
     #[serde(default)]
     pub feel: Option<crate::strings::feel::Feel>,
+    /// The string as the instrument file fixed it (`string:`), so a saved set writes it back
+    /// as written; `None` for a chosen string.
+    #[serde(skip)]
+    pub fixed: Option<crate::instrument::entry::SetString>,
 }
 
 /// A catalog string at this string's pitch and length: what it is and how it behaves there.

@@ -417,9 +417,7 @@ pub fn select(
         any_within_tolerance |= best.tension_error.abs() <= request.tolerance;
         match standing(&best, request.tolerance) {
             Standing::OnTarget if first_on_target.is_none() => first_on_target = Some(best),
-            Standing::WithReservations if first_reserved.is_none() => {
-                first_reserved = Some(best)
-            }
+            Standing::WithReservations if first_reserved.is_none() => first_reserved = Some(best),
             _ => {}
         }
         let better = match &fallback {

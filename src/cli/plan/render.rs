@@ -52,8 +52,8 @@ fn worst_severity(course: &CoursePlan, string_number: usize) -> Option<Severity>
 /// cautions.
 pub fn table(plan: &Plan, units: DisplayUnits) -> String {
     let mut table = new_table(vec![
-        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Target", "Tension", "Stress",
-        "",
+        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Target", "Tension",
+        "Stress", "",
     ]);
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
@@ -77,7 +77,11 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
                 } else {
                     String::new()
                 }),
-                Cell::new(&string.choice.kind),
+                Cell::new(if string.choice.standing == Standing::Fixed {
+                    format!("{} (fixed)", string.choice.kind)
+                } else {
+                    string.choice.kind.clone()
+                }),
                 right(format!("{:.4}", string.choice.diameter_in)),
                 right(format!("{:.3}", string.choice.diameter_mm)),
                 right(format!("{:.4}", string.choice.unit_mass_kg_per_m * 1000.0)),
@@ -111,6 +115,10 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
     out
 }
 
+fn flags_text(choice: &StringChoice) -> String {
+    choice.flags.join(", ").replace('_', " ")
+}
+
 fn choice_text(choice: &StringChoice, units: DisplayUnits) -> String {
     let mut text = format!(
         "{} {} {}",
@@ -121,8 +129,7 @@ fn choice_text(choice: &StringChoice, units: DisplayUnits) -> String {
     if choice.standing != Standing::OnTarget {
         text.push_str(&format!(" ({}", choice.standing.words()));
         if !choice.flags.is_empty() {
-            text.push_str(": ");
-            text.push_str(&choice.flags.join(", ").replace('_', " "));
+            text.push_str(&format!(": {}", flags_text(choice)));
         }
         text.push(')');
     }
@@ -142,24 +149,34 @@ pub fn alternatives(plan: &Plan, units: DisplayUnits) -> String {
             } else {
                 format!("Course {}", course.course)
             };
+            let chosen = &string.choice;
+            let mut why = match chosen.standing {
+                Standing::Closest => "the closest: no allowed kind is acceptable",
+                other => other.words(),
+            }
+            .to_string();
+            if !chosen.flags.is_empty() {
+                why.push_str(&format!(" ({})", flags_text(chosen)));
+            }
             out.push_str(&format!(
-                "  {label}, target {}: {}, {}\n",
+                "  {label}, target {}: {} {} {}, {why}\n",
                 tension_text(string.target_tension_n, units.force),
-                choice_text(&string.choice, units),
-                match string.choice.standing {
-                    Standing::Closest => "the closest: no allowed kind is acceptable",
-                    other => other.words(),
-                }
+                chosen.kind,
+                chosen.gauge,
+                tension_text(chosen.tension_n, units.force),
             ));
             let alternatives = &string.alternatives;
-            let neighbours: Vec<String> = [("thinner", &alternatives.thinner), ("thicker", &alternatives.thicker)]
-                .into_iter()
-                .filter_map(|(name, choice)| {
-                    choice
-                        .as_ref()
-                        .map(|c| format!("{name} {}", choice_text(c, units)))
-                })
-                .collect();
+            let neighbours: Vec<String> = [
+                ("thinner", &alternatives.thinner),
+                ("thicker", &alternatives.thicker),
+            ]
+            .into_iter()
+            .filter_map(|(name, choice)| {
+                choice
+                    .as_ref()
+                    .map(|c| format!("{name} {}", choice_text(c, units)))
+            })
+            .collect();
             if !neighbours.is_empty() {
                 out.push_str(&format!("      {}\n", neighbours.join("; ")));
             }

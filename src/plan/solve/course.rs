@@ -42,6 +42,11 @@ impl<'k> KindLists<'k> {
                 None => defaults.clone(),
             };
             for (string_index, string) in course.strings.iter().enumerate() {
+                if string.string.is_some() || course.string.is_some() {
+                    // A fixed string is checked, not chosen: it needs no kinds.
+                    lists.per_string.push(0..0);
+                    continue;
+                }
                 let range = match &string.kinds {
                     Some(ids) => Some(lists.push(
                         instrument,
@@ -118,6 +123,7 @@ pub(super) struct CourseContext<'a> {
     pub(super) course: CourseInput<'a>,
     pub(super) limits: StressLimits,
     pub(super) tolerance: f64,
+    pub(super) stock: &'a Stock,
 }
 
 impl CourseContext<'_> {
@@ -162,6 +168,18 @@ impl CourseContext<'_> {
                     limits: self.limits,
                 },
             };
+            let at = StringRef {
+                course: course.number,
+                string: string_index + 1,
+            };
+            if let Some(entry) = course.fixed(string_index) {
+                let plan = self.fixed(entry, string_index, &request, at, &mut warnings)?;
+                strings.push(StringPlan {
+                    interval: string.interval.written().to_string(),
+                    ..plan
+                });
+                continue;
+            }
             let scratch = &mut best_per_kind[..kinds.len()];
             let selection = select::select(&request, kinds, scratch);
             let chosen = selection.chosen.ok_or_else(|| {
@@ -173,10 +191,6 @@ impl CourseContext<'_> {
                     &self.path("kinds"),
                 )
             })?;
-            let at = StringRef {
-                course: course.number,
-                string: string_index + 1,
-            };
             let kind = kinds[chosen.kind];
             self.flag(
                 &mut warnings,
@@ -212,6 +226,7 @@ impl CourseContext<'_> {
                         .collect(),
                 },
                 feel: Some(feel),
+                fixed: None,
             });
         }
         Ok(CoursePlan {
