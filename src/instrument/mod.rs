@@ -23,7 +23,7 @@ use serde::Deserialize;
 pub use entry::StringEntryFile;
 pub use interval::Interval;
 pub use quantities::{Percent, ScaleLength};
-pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
+pub use scalar_or_map::{optional_scalar, Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 
