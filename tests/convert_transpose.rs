@@ -72,26 +72,35 @@ fn keeping_the_bend_matches_the_old_push_better_than_equal_tension() {
     ]);
     assert_eq!(by_tension["rule"], "equal_tension");
     assert_eq!(by_bend["rule"], "equal_bend");
-    let misses = |conversion: &Value| -> Vec<f64> {
+    let strings = |conversion: &Value| -> Vec<Value> {
         conversion["courses"]
             .as_array()
             .unwrap()
             .iter()
             .flat_map(|c| c["strings"].as_array().unwrap().clone())
-            .map(|s| {
-                let before = number(&s["feel_before"]["bend_force_n"]);
-                let after = number(&s["feel_after"]["bend_force_n"]);
-                (after / before - 1.0).abs()
-            })
             .collect()
     };
-    let (tension_misses, bend_misses) = (misses(&by_tension), misses(&by_bend));
-    for (t, b) in tension_misses.iter().zip(&bend_misses) {
-        assert!(b <= t, "bend rule {b} worse than equal tension {t}");
+    let miss = |s: &Value| {
+        let before = number(&s["feel_before"]["bend_force_n"]);
+        let after = number(&s["feel_after"]["bend_force_n"]);
+        (after / before - 1.0).abs()
+    };
+    let mut uncapped = 0;
+    for (t, b) in strings(&by_tension).iter().zip(&strings(&by_bend)) {
+        assert!(
+            miss(b) <= miss(t),
+            "bend rule {b} worse than equal tension {t}"
+        );
+        // The instrument's window (60–140 N) caps a target; below the cap only the catalog's
+        // 0.001 in steps stand between the target and the result: within 10 % of the old push.
+        if number(&b["target_tension_n"]) < 140.0 - 1e-9 {
+            uncapped += 1;
+            assert!(miss(b) < 0.10, "{b}");
+        } else {
+            assert!(number(&b["target_tension_n"]) <= 140.0 + 1e-9);
+        }
     }
-    // Catalog steps of 0.001 in are the only thing between the target and the result, and the
-    // window's 140 N cap: every string lands within 10 % of its old push.
-    assert!(bend_misses.iter().all(|m| *m < 0.10), "{bend_misses:?}");
+    assert!(uncapped >= 3, "too few strings below the window's cap");
     let text = table(&[
         "convert",
         GUITAR,

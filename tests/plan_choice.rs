@@ -14,7 +14,7 @@ fn guitar(tension: &str, extra_d3: &str) -> String {
     )
 }
 
-fn string_of<'a>(plan: &'a Value, course: usize) -> &'a Value {
+fn string_of(plan: &Value, course: usize) -> &Value {
     &plan["courses"][course]["strings"][0]
 }
 

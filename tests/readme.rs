@@ -131,8 +131,8 @@ fn start_here_commands_match_ci() {
     assert!(root().join("examples/guitar-19edo.yaml").is_file());
 }
 
-/// The YAML examples README shows are files `taut` reads: an instrument, a stock file and a
-/// string set, in that order.
+/// The YAML examples README shows are files `taut` reads: an instrument, a stock file, an
+/// instrument with fixed strings, a string set and a layout, in that order.
 #[test]
 fn readme_yaml_examples_are_valid_files() {
     let text = readme();
@@ -143,7 +143,7 @@ fn readme_yaml_examples_are_valid_files() {
         .collect();
     assert_eq!(
         blocks.len(),
-        3,
+        5,
         "README's YAML examples changed: update this test"
     );
     let instrument =
@@ -158,5 +158,18 @@ fn readme_yaml_examples_are_valid_files() {
     .unwrap();
     let mut own = stock.clone();
     own.add_text(blocks[1], "README stock").unwrap();
-    taut::sets::set::StringSet::from_text(blocks[2].to_string(), "README set", &own).unwrap();
+    let kept =
+        taut::instrument::Instrument::from_text(blocks[2].to_string(), "README kept").unwrap();
+    let plan =
+        taut::plan::solve::plan(&kept, stock, &taut::plan::solve::SolveOptions::default()).unwrap();
+    assert_eq!(
+        plan.courses[0].strings[0].choice.standing,
+        taut::plan::Standing::Fixed
+    );
+    taut::sets::set::StringSet::from_text(blocks[3].to_string(), "README set", &own).unwrap();
+    let layout =
+        taut::lengths::LayoutInput::from_text(blocks[4].to_string(), "README layout", stock)
+            .unwrap();
+    let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
+    assert_eq!(laid.string_count, 4);
 }

@@ -315,15 +315,19 @@ fn evaluate_gauge(
         Some(gauge.diameter),
         &request.checks,
     ));
+    // A relative margin far below any catalog step, so a string whose own tension is the
+    // target (μ·x/x rounding to one unit in the last place off) does not read as off the
+    // catalog's end.
+    const EDGE: f64 = 1e-9;
     if gauges
         .first()
-        .is_some_and(|g| required_unit_mass < g.unit_mass)
+        .is_some_and(|g| required_unit_mass < g.unit_mass * (1.0 - EDGE))
     {
         warnings.insert(Warnings::THINNER_THAN_CATALOG);
     }
     if gauges
         .last()
-        .is_some_and(|g| required_unit_mass > g.unit_mass)
+        .is_some_and(|g| required_unit_mass > g.unit_mass * (1.0 + EDGE))
     {
         warnings.insert(Warnings::THICKER_THAN_CATALOG);
     }

@@ -80,6 +80,12 @@ pub(super) fn convert_course(
             nut_afterlength: options.feel.nut_afterlength,
             bridge_afterlength: options.feel.bridge_afterlength,
         };
+        // The bend target stays inside the instrument's window: a push matched above the
+        // window's `max` would trade one problem for another.
+        let window = (
+            goal.and_then(|g| g.min_n).unwrap_or(0.0),
+            goal.and_then(|g| g.max_n).unwrap_or(f64::INFINITY),
+        );
         let target_for = |construction: &Construction<'_>| -> f64 {
             match (bend_goal, construction.axial_stiffness()) {
                 (Some(force), Some(stiffness)) => physics::tension_for_bend_force(
@@ -87,7 +93,8 @@ pub(super) fn convert_course(
                     stiffness,
                     force,
                     options.feel.bend_cents,
-                ),
+                )
+                .clamp(window.0, window.1.max(window.0)),
                 _ => target_tension_n,
             }
         };
