@@ -45,8 +45,9 @@ proptest! {
     #![proptest_config(ProptestConfig::with_cases(64))]
     /// A conversion to the same tuning and scale returns the same set, for any set whose strings
     /// are not in the danger zone where they are (then each string is kept). Choosing every
-    /// string afresh from the catalog returns the same kinds and gauges too, because the target
-    /// is each string's own tension and its own gauge meets it exactly.
+    /// string afresh from the catalog returns the same kinds and gauges too when every string is
+    /// below the caution stress, because the target is each string's own tension and its own
+    /// gauge meets it exactly.
     #[test]
     fn same_tuning_and_scale_return_the_same_set(
         scale_mm in 400u32..900,
@@ -77,6 +78,15 @@ proptest! {
         prop_assert_eq!(conversion.strings_replaced, 0);
         prop_assert!(conversion.total_change_pct.abs() < 1e-9);
 
+        // Chosen afresh, a string in the caution zone (above 65 %) gives way to another kind
+        // that is on target and below it (the choice rule, README "How a string is chosen"),
+        // so the same set comes back only when every string sits below the caution limit.
+        let calm = conversion.courses.iter().flat_map(|c| &c.strings).all(|s| {
+            s.before.as_ref().and_then(|b| b.stress_ratio).is_some_and(|r| r <= 0.65)
+        });
+        if !calm {
+            return Ok(());
+        }
         let fresh = convert(&instrument, &set, &tuning, &instrument, &tuning, Stock::builtin().unwrap(), &ConvertOptions {
             reselect_all: true,
             ..options

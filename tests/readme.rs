@@ -134,7 +134,8 @@ fn start_here_commands_match_ci() {
 }
 
 /// The YAML examples README shows are files `taut` reads: an instrument, a stock file, an
-/// instrument with variants and a string set, in that order.
+/// instrument with fixed strings, an instrument with variants, a string set and a layout, in
+/// that order.
 #[test]
 fn readme_yaml_examples_are_valid_files() {
     let text = readme();
@@ -145,7 +146,7 @@ fn readme_yaml_examples_are_valid_files() {
         .collect();
     assert_eq!(
         blocks.len(),
-        4,
+        6,
         "README's YAML examples changed: update this test"
     );
     let instrument =
@@ -160,8 +161,16 @@ fn readme_yaml_examples_are_valid_files() {
     .unwrap();
     let mut own = stock.clone();
     own.add_text(blocks[1], "README stock").unwrap();
+    let kept =
+        taut::instrument::Instrument::from_text(blocks[2].to_string(), "README kept").unwrap();
+    let plan =
+        taut::plan::solve::plan(&kept, stock, &taut::plan::solve::SolveOptions::default()).unwrap();
+    assert_eq!(
+        plan.courses[0].strings[0].choice.standing,
+        taut::plan::Standing::Fixed
+    );
     let several =
-        taut::instrument::Instrument::from_text(blocks[2].to_string(), "README variants").unwrap();
+        taut::instrument::Instrument::from_text(blocks[3].to_string(), "README variants").unwrap();
     let plan = taut::plan::several::plan(
         &several,
         stock,
@@ -169,5 +178,10 @@ fn readme_yaml_examples_are_valid_files() {
     )
     .unwrap();
     assert_eq!(plan.tunings.len(), 3);
-    taut::sets::set::StringSet::from_text(blocks[3].to_string(), "README set", &own).unwrap();
+    taut::sets::set::StringSet::from_text(blocks[4].to_string(), "README set", &own).unwrap();
+    let layout =
+        taut::lengths::LayoutInput::from_text(blocks[5].to_string(), "README layout", stock)
+            .unwrap();
+    let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
+    assert_eq!(laid.string_count, 4);
 }

@@ -324,3 +324,32 @@ proptest! {
         }
     }
 }
+
+#[test]
+fn a_kind_in_caution_loses_to_a_later_kind_on_target() {
+    // D4 on 648 mm: music wire at 0.43 and nylon at 0.47 of their strength (DERIVED above).
+    // With caution at 0.45, nylon first in the list is only "with reservations".
+    let mut request = Request::new(D4, SCALE, 60.0);
+    request.checks.limits = StressLimits {
+        caution: 0.45,
+        danger: 0.80,
+    };
+    let (selection, best) = run(&request, &["nylon", "plain-steel"]);
+    let nylon = best[0].unwrap();
+    assert!(nylon.warnings.contains(Warnings::STRESS_CAUTION));
+    assert_eq!(
+        taut::strings::select::standing(&nylon, request.tolerance),
+        taut::strings::select::Standing::WithReservations
+    );
+    assert_eq!(selection.chosen.unwrap().kind, 1);
+    assert_eq!(
+        selection.standing,
+        taut::strings::select::Standing::OnTarget
+    );
+    // Alone, nylon is still chosen, and says so.
+    let (alone, _) = run(&request, &["nylon"]);
+    assert_eq!(
+        alone.standing,
+        taut::strings::select::Standing::WithReservations
+    );
+}

@@ -9,7 +9,7 @@ use comfy_table::Cell;
 use taut::error::{Error, Result};
 use taut::input::units::Length;
 use taut::instrument::{Instrument, Percent, TensionSpec};
-use taut::sets::convert::{self, Conversion, ConvertOptions};
+use taut::sets::convert::{self, Conversion, ConvertOptions, FeelRule};
 use taut::sets::set::StringSet;
 use taut::strings::feel;
 
@@ -39,6 +39,13 @@ pub struct ConvertArgs {
     /// The tuning to convert to (default: the same tuning, e.g. for a new scale length).
     #[arg(long, value_name = "TUNING")]
     pub to: Option<String>,
+    /// Transpose every course: semitones (`-5`), cents (`-498c`), a ratio (`3/4`) or EDO steps
+    /// (`-8\\19`); the new pitches are named in the report.
+    #[arg(long, value_name = "SHIFT", allow_hyphen_values = true)]
+    pub transpose: Option<String>,
+    /// What keeping the feel keeps: each string's tension, or the push its bend takes.
+    #[arg(long, value_enum, default_value = "tension", value_name = "RULE")]
+    pub keep_feel: KeepFeel,
     /// The instrument after conversion, when courses change (e.g. an added low course);
     /// courses are matched by number.
     #[arg(long, value_name = "INSTRUMENT")]
@@ -71,6 +78,15 @@ pub struct ConvertArgs {
     pub output: OutputArgs,
 }
 
+/// What `--keep-feel` keeps.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
+pub enum KeepFeel {
+    /// Each string aims for the tension it had.
+    Tension,
+    /// Each string aims for the tension at which its bend takes the same push as before.
+    Bend,
+}
+
 fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
     Ok(parse_flag::<Length>(text.as_deref(), flag)?.map(Length::si))
 }
@@ -100,7 +116,19 @@ pub fn run(args: ConvertArgs) -> Result<()> {
     if tolerance >= 1.0 {
         return Err(Error::input("the tolerance must be below 100%").in_origin("--tolerance"));
     }
+    if target.is_some() && args.keep_feel == KeepFeel::Bend {
+        return Err(
+            Error::input("--tension sets every target, so there is no old feel to keep")
+                .help("leave out --keep-feel, or leave out --tension")
+                .in_origin("--keep-feel"),
+        );
+    }
     let options = ConvertOptions {
+        transpose: parse_flag(args.transpose.as_deref(), "--transpose")?,
+        rule: match args.keep_feel {
+            KeepFeel::Tension => FeelRule::EqualTension,
+            KeepFeel::Bend => FeelRule::EqualBend,
+        },
         tolerance,
         target,
         scale_length: positive_length(&args.scale_length, "--scale-length")?,
@@ -222,11 +250,29 @@ impl Render for Conversion {
                 }
             }
         }
+        if let Some(shift) = &self.transpose {
+            out.push_str(&format!(
+                "Transposed by {}: the pitches after are named anew.\n",
+                shift.describe()
+            ));
+        }
+        out.push_str(
+            &self.rule.sentence(
+                self.courses
+                    .first()
+                    .and_then(|c| c.strings.first())
+                    .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents),
+            ),
+        );
+        out.push('\n');
         out.push_str(&format!(
             "{} string(s) replaced, {} kept.\n",
             self.strings_replaced,
             self.courses.iter().map(|c| c.strings.len()).sum::<usize>() - self.strings_replaced
         ));
+        for change in &self.kept_tension_changes {
+            out.push_str(&format!("  {}\n", change.message));
+        }
         if !self.removed_courses.is_empty() {
             out.push_str(&format!(
                 "Courses no longer on the instrument: {}.\n",

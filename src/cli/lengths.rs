@@ -6,7 +6,9 @@ use clap::Args;
 use comfy_table::Cell;
 
 use taut::error::{Error, Result};
+use taut::input::units::Force;
 use taut::instrument::{Percent, TensionSpec};
+use taut::lengths::JumpKind;
 use taut::lengths::{self, Layout, LayoutInput, LayoutOptions};
 use taut::strings::feel;
 
@@ -43,6 +45,10 @@ pub struct LengthsArgs {
     /// `15%`.
     #[arg(long, value_name = "PERCENT")]
     pub max_step: Option<String>,
+    /// The most total tension the frame is rated for, e.g. `2500N` (instead of the layout's
+    /// `rated_load`).
+    #[arg(long, value_name = "FORCE")]
+    pub rated_load: Option<String>,
     #[command(flatten)]
     pub stock: StockArgs,
     #[command(flatten)]
@@ -78,6 +84,8 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             tuning: args.tuning.clone(),
             tension,
             max_step,
+            rated_load: parse_flag::<Force>(args.rated_load.as_deref(), "--rated-load")?
+                .map(Force::si),
             feel: args.feel.options()?,
         },
     )?;
@@ -103,7 +111,11 @@ impl Render for Layout {
         ]);
         for course in &self.courses {
             let [b, partials, bend] = feel::cells(&course.feel);
-            let jumped = self.jumps.iter().any(|j| j.to_course == course.course);
+            let marked = |kind: JumpKind| {
+                self.jumps
+                    .iter()
+                    .any(|j| j.to_course == course.course && j.kind == kind)
+            };
             table.add_row(vec![
                 right(course.course.to_string()),
                 Cell::new(course_pitch_text(&course.pitch)),
@@ -111,7 +123,15 @@ impl Render for Layout {
                 Cell::new(&course.string),
                 right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
                 right(format!("{:.1}", course.tension_n)),
-                right(format!("{:.1}", course.length_m * 1000.0)),
+                right(format!(
+                    "{:.1}{}",
+                    course.length_m * 1000.0,
+                    if marked(JumpKind::FoldBack) {
+                        " ↶"
+                    } else {
+                        ""
+                    }
+                )),
                 right(format!(
                     "{:.2}",
                     course.length_m / taut::input::units::METRES_PER_INCH
@@ -119,19 +139,46 @@ impl Render for Layout {
                 right(format!(
                     "{}{}",
                     maybe(course.step_pct, |s| format!("{s:+.1}%")),
-                    if jumped { " !" } else { "" }
+                    if marked(JumpKind::Step) { " !" } else { "" }
                 )),
                 right(maybe(course.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
                 right(b),
                 right(partials),
                 right(bend),
             ]);
+            for other in &course.other_strings {
+                table.add_row(vec![
+                    right(String::new()),
+                    Cell::new(format!("  {}", other.interval)),
+                    right(format!("{:.2}", other.pitch_hz)),
+                    Cell::new(&other.string),
+                    right(maybe(other.diameter_mm, |d| format!("{d:.3} mm"))),
+                    right(format!("{:.1}", other.tension_n)),
+                    right(String::new()),
+                    right(String::new()),
+                    right(String::new()),
+                    right(maybe(other.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
+                    right(String::new()),
+                    right(String::new()),
+                    right(String::new()),
+                ]);
+            }
         }
         let mut out = format!("{} — tuning {}\n{table}\n", self.name, self.tuning);
         out.push_str(&format!(
-            "Total tension: {:.1} N over {} course(s). Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a jump).\n",
+            "Total tension: {:.1} N over {} string(s) on {} course(s)",
             self.total_tension_n,
+            self.string_count,
             self.courses.len(),
+        ));
+        if let Some(rated) = self.rated_load_n {
+            out.push_str(&format!(
+                " ({:.0}% of the rated {rated:.0} N)",
+                self.total_tension_n / rated * 100.0
+            ));
+        }
+        out.push_str(&format!(
+            ".\nStep: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a step over it). ↶ marks a fold-back: the length moves against the pitch.\n",
             self.max_step * 100.0
         ));
         if self.jumps.is_empty() {

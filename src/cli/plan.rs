@@ -102,6 +102,10 @@ pub struct PlanArgs {
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<PathBuf>,
+    /// Under the table, show why each string was chosen: its target, the next thinner and
+    /// thicker gauge, and the best string of each other allowed kind (JSON always has them).
+    #[arg(long)]
+    pub alternatives: bool,
     /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
     #[arg(long, value_name = "FILE")]
     pub save_set: Option<PathBuf>,
@@ -141,6 +145,11 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         },
     };
     let text = match args.format {
+        PlanFormat::Table if args.alternatives => {
+            let mut text = render::table(&plan, units);
+            text.push_str(&render::alternatives(&plan, units));
+            text
+        }
         PlanFormat::Table => render::table(&plan, units),
         PlanFormat::Json => render::json(&plan)?,
         PlanFormat::Csv => render::csv(&plan)?,

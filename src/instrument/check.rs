@@ -79,7 +79,18 @@ impl Instrument {
                 ));
             }
             self.check_kind_list(course.kinds.as_deref(), &at("kinds"))?;
+            self.check_fixed_string(
+                course.string.as_ref(),
+                course.kinds.is_some(),
+                &[PathStep::Key("courses"), PathStep::Index(index)],
+            )?;
             for (string_index, string) in course.strings.iter().enumerate() {
+                let path = [
+                    PathStep::Key("courses"),
+                    PathStep::Index(index),
+                    PathStep::Key("strings"),
+                    PathStep::Index(string_index),
+                ];
                 self.check_kind_list(
                     string.kinds.as_deref(),
                     &[
@@ -90,6 +101,7 @@ impl Instrument {
                         PathStep::Key("kinds"),
                     ],
                 )?;
+                self.check_fixed_string(string.string.as_ref(), string.kinds.is_some(), &path)?;
             }
         }
         numbers.sort_unstable();
@@ -115,6 +127,32 @@ impl Instrument {
             ));
         }
         Ok(())
+    }
+
+    /// A fixed string (`string:` under `parent`) must be complete enough to report, and is not
+    /// chosen, so `kinds` beside it would go unused.
+    fn check_fixed_string(
+        &self,
+        string: Option<&StringEntryFile>,
+        with_kinds: bool,
+        parent: &[PathStep<'_>],
+    ) -> Result<()> {
+        let Some(string) = string else {
+            return Ok(());
+        };
+        let mut path = parent.to_vec();
+        path.push(PathStep::Key("string"));
+        if with_kinds {
+            return Err(self.point(
+                Error::input("a fixed `string` is not chosen, so `kinds` beside it has no use")
+                    .help("leave out `kinds` here, or leave out `string` to let taut choose"),
+                &path,
+            ));
+        }
+        entry::check_fixed(string).map_err(|(err, key)| {
+            path.push(PathStep::Key(key));
+            self.point(err, &path)
+        })
     }
 
     pub(super) fn check_kind_list(

@@ -8,6 +8,7 @@
 //! [`crate::input::yaml::locate`].
 
 mod check;
+pub mod entry;
 pub mod frets;
 mod interval;
 mod quantities;
@@ -21,10 +22,11 @@ use std::str::FromStr;
 
 use serde::Deserialize;
 
+pub use entry::StringEntryFile;
 pub use frets::FretSettings;
 pub use interval::Interval;
 pub use quantities::{Percent, ScaleLength};
-pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
+pub use scalar_or_map::{optional_scalar, Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 pub use variants::{Variant, MAX_VARIANTS};
@@ -71,6 +73,9 @@ pub struct CourseString {
     pub interval: Interval,
     /// Kinds allowed for this string alone (e.g. a plain octave string in a wound course).
     pub kinds: Option<Vec<String>>,
+    /// The string named outright (`string: {kind: plain-steel, diameter: 0.012in}`): it is not
+    /// chosen, only checked.
+    pub string: Option<StringEntryFile>,
 }
 
 #[derive(Debug, Clone, Deserialize)]
@@ -78,6 +83,7 @@ pub struct CourseString {
 struct CourseStringDetail {
     interval: Interval,
     kinds: Option<Vec<String>>,
+    string: Option<StringEntryFile>,
 }
 
 impl Expecting for Interval {
@@ -94,10 +100,12 @@ impl<'de> Deserialize<'de> for CourseString {
                 ScalarOrMap::Scalar(interval) => CourseString {
                     interval,
                     kinds: None,
+                    string: None,
                 },
                 ScalarOrMap::Map(detail) => CourseString {
                     interval: detail.interval,
                     kinds: detail.kinds,
+                    string: detail.string,
                 },
             },
         )
@@ -108,6 +116,7 @@ fn one_unison() -> Vec<CourseString> {
     vec![CourseString {
         interval: Interval::unison(),
         kinds: None,
+        string: None,
     }]
 }
 
@@ -132,6 +141,9 @@ pub struct Course {
     /// The widest string this course's slot or hole takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
     pub max_diameter: Option<Length>,
+    /// The string named outright for every string of the course that does not name its own:
+    /// the player's own string, kept while the rest are solved.
+    pub string: Option<StringEntryFile>,
 }
 
 /// The file's contents, as written.
@@ -204,6 +216,18 @@ pub struct CourseInput<'a> {
     pub max_diameter_m: Option<f64>,
     /// The course's strings (at least one).
     pub strings: &'a [CourseString],
+    /// The string the course names outright for its strings without their own.
+    pub string: Option<&'a StringEntryFile>,
+}
+
+impl CourseInput<'_> {
+    /// The string fixed for the course's string at `index`: its own, else the course's.
+    pub fn fixed(&self, index: usize) -> Option<&StringEntryFile> {
+        self.strings
+            .get(index)
+            .and_then(|string| string.string.as_ref())
+            .or(self.string)
+    }
 }
 
 impl Instrument {
@@ -340,6 +364,7 @@ impl Instrument {
                 .or(self.defaults.max_diameter)
                 .map(Length::si),
             strings: &course.strings,
+            string: course.string.as_ref(),
         })
     }
 }

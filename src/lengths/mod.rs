@@ -11,11 +11,29 @@
 //! tuning: 12edo                        # optional; pitches are in its addressing
 //! tension: {first: 30N, last: 55N}     # a target, a window or a profile over the courses
 //! max_step: 15%                        # optional; see below
+//! rated_load: 2500N                   # optional: the most total tension the frame takes
 //! courses:
 //!   - pitch: G3
 //!     string: {kind: plain-steel, diameter: 0.018in}   # as in a string-set file
 //!     tension: 50N                                     # optional, this course only
+//!     strings: [unison, unison]                        # optional: a pair, as in instruments
+//!   - pitch: A3
+//!     string: {kind: plain-steel, diameter: 0.016in}
+//!     strings: [unison, {interval: octave, string: {kind: plain-steel, diameter: 0.009in}}]
 //! ```
+//!
+//! A course holds 1 to 3 strings on one length. The first string listed sets the length; the
+//! others (with `string:` of their own, or the course's) take whatever tension their pitch asks
+//! on it, and every string counts in the total.
+//!
+//! # The tension window
+//!
+//! A fixed target gives each course exactly that tension. A window (`{min, max}`, with or
+//! without a target or profile inside it) lets each course move within it to smooth the bridge
+//! line: the logarithms of the lengths are chosen to minimise the sum of squared second
+//! differences from course to course (a bridge line without kinks) plus a small pull towards
+//! each course's target (weight [`TARGET_PULL`]), inside each course's window (see
+//! [`smooth::smooth`]).
 //!
 //! # Impractical jumps
 //!
@@ -35,10 +53,11 @@ use std::path::Path;
 use serde::{Deserialize, Serialize};
 
 use crate::error::{Error, Result};
+use crate::input::units::Force;
 use crate::input::units::METRES_PER_INCH;
 use crate::input::yaml::{self, PathStep};
-use crate::instrument::{field_name, Percent, TensionSpec};
-use crate::plan::warning::{StringRef, Warning, WarningKind};
+use crate::instrument::{field_name, CourseString, Interval, Percent, TensionSpec};
+use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
 use crate::sets::matching::cautions_for;
 use crate::sets::set::{check_entry, SetString, StringEntryFile};
@@ -55,6 +74,7 @@ mod solve;
 #[allow(unused_imports)]
 use solve::*;
 pub use solve::*;
+pub mod smooth;
 
 /// Default largest change of the wave speed √(T/μ) between neighbouring courses: 15 % (see the
 /// module documentation).
@@ -64,6 +84,11 @@ pub const DEFAULT_MAX_STEP: f64 = 0.15;
 /// a bridge pin can sit a few millimetres off a smooth line.
 pub const FOLD_BACK_TOLERANCE: f64 = 0.01;
 
+/// Weight of the pull towards each course's target against the smoothness of the bridge line
+/// when a window lets the tension move (our own choice: small enough that a kink of a few per
+/// cent is smoothed, large enough that a course without a reason to move stays on target).
+pub const TARGET_PULL: f64 = 0.05;
+
 /// The tuning used when the layout names none.
 pub const DEFAULT_TUNING: &str = crate::plan::solve::DEFAULT_TUNING;
 
@@ -72,7 +97,8 @@ pub const DEFAULT_TUNING: &str = crate::plan::solve::DEFAULT_TUNING;
 struct LayoutCourseFile {
     course: Option<u32>,
     pitch: String,
-    string: StringEntryFile,
+    string: Option<StringEntryFile>,
+    strings: Option<Vec<CourseString>>,
     tension: Option<TensionSpec>,
 }
 
@@ -84,6 +110,8 @@ struct LayoutFile {
     tuning: Option<String>,
     tension: Option<TensionSpec>,
     max_step: Option<Percent>,
+    #[serde(default, deserialize_with = "crate::instrument::optional_scalar")]
+    rated_load: Option<Force>,
     courses: Vec<LayoutCourseFile>,
 }
 
@@ -94,8 +122,13 @@ pub struct LayoutCourseInput {
     pub course: u32,
     /// The pitch in the tuning's addressing.
     pub pitch: String,
-    /// The chosen string.
+    /// The first string, which sets the length.
     pub string: SetString,
+    /// The course's other strings on the same length (a pair, an octave string), with their
+    /// intervals from the course pitch; the first string's interval is `first_interval`.
+    pub others: Vec<(Interval, SetString)>,
+    /// The first string's interval from the course pitch (unison unless written otherwise).
+    pub first_interval: Interval,
     /// Its own tension, overriding the layout's.
     pub tension: Option<TensionSpec>,
 }
@@ -113,6 +146,8 @@ pub struct LayoutInput {
     pub tension: Option<TensionSpec>,
     /// Largest accepted step of √(T/μ) between neighbours, as a fraction.
     pub max_step: f64,
+    /// The most total tension the frame is rated for, N.
+    pub rated_load: Option<f64>,
     /// Courses in order.
     pub courses: Vec<LayoutCourseInput>,
     origin: String,
@@ -130,8 +165,12 @@ pub struct Layout {
     pub max_step: f64,
     /// One entry per course.
     pub courses: Vec<LayoutCourse>,
-    /// Sum of the tensions, N.
+    /// Sum of the tensions of every string, N.
     pub total_tension_n: f64,
+    /// Number of strings over all courses.
+    pub string_count: usize,
+    /// The rated load, N, when the layout or the command line gives one.
+    pub rated_load_n: Option<f64>,
     /// Impractical steps between neighbours.
     pub jumps: Vec<Jump>,
     /// Stress warnings.
@@ -157,8 +196,11 @@ pub struct LayoutCourse {
     pub diameter_in: Option<f64>,
     /// Linear density, kg/m.
     pub unit_mass_kg_per_m: f64,
-    /// Tension wanted, N.
+    /// Tension of the first string, N: its target, or where the window let it move to smooth
+    /// the bridge line.
     pub tension_n: f64,
+    /// The target before smoothing, N.
+    pub target_tension_n: f64,
     /// The vibrating length that gives it, m.
     pub length_m: f64,
     /// Stress over breaking strength at that length, if known.
@@ -169,6 +211,30 @@ pub struct LayoutCourse {
     pub step_pct: Option<f64>,
     /// Stiffness and feel at that length.
     pub feel: Feel,
+    /// The course's other strings on the same length.
+    pub other_strings: Vec<LayoutString>,
+}
+
+/// A further string of a course (a pair's second string, an octave string) on the length the
+/// first string set.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct LayoutString {
+    /// Interval from the course pitch, as written.
+    pub interval: String,
+    /// The string (kind id, or measured).
+    pub string: String,
+    /// Outer diameter, mm, if known.
+    pub diameter_mm: Option<f64>,
+    /// Linear density, kg/m.
+    pub unit_mass_kg_per_m: f64,
+    /// Its frequency, Hz.
+    pub pitch_hz: f64,
+    /// Its tension on the course's length, N.
+    pub tension_n: f64,
+    /// Stress over breaking strength, if known.
+    pub stress_ratio: Option<f64>,
+    /// Pitch at which it breaks on that length, Hz, if known.
+    pub break_pitch_hz: Option<f64>,
 }
 
 /// What kind of jump.
@@ -205,6 +271,8 @@ pub struct LayoutOptions {
     pub tension: Option<TensionSpec>,
     /// Step threshold instead of the file's.
     pub max_step: Option<f64>,
+    /// Rated load instead of the file's, N.
+    pub rated_load: Option<f64>,
     /// Inputs of the feel figures.
     pub feel: FeelOptions,
 }

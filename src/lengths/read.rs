@@ -21,6 +21,7 @@ impl LayoutInput {
             max_step: file
                 .max_step
                 .map_or(DEFAULT_MAX_STEP, |percent| percent.fraction()),
+            rated_load: file.rated_load.map(Force::si),
             courses: Vec::with_capacity(file.courses.len()),
             origin: origin.to_string(),
             text,
@@ -75,21 +76,76 @@ impl LayoutInput {
                     &at("tension"),
                 ));
             }
-            let string = check_entry(course.string, kinds, materials).map_err(|(err, key)| {
-                input.point(
-                    err,
-                    &[
-                        PathStep::Key("courses"),
-                        PathStep::Index(index),
-                        PathStep::Key("string"),
-                        PathStep::Key(key),
-                    ],
-                )
-            })?;
+            let check = |entry: StringEntryFile, path: &[PathStep<'_>]| {
+                check_entry(entry, kinds, materials).map_err(|(err, key)| {
+                    let mut at_key = path.to_vec();
+                    at_key.push(PathStep::Key(key));
+                    input.point(err, &at_key)
+                })
+            };
+            let course_path = [PathStep::Key("courses"), PathStep::Index(index)];
+            let shared = match course.string {
+                Some(entry) => {
+                    let mut path = course_path.to_vec();
+                    path.push(PathStep::Key("string"));
+                    Some(check(entry, &path)?)
+                }
+                None => None,
+            };
+            let layout_strings = course.strings.unwrap_or_else(|| {
+                vec![CourseString {
+                    interval: Interval::unison(),
+                    kinds: None,
+                    string: None,
+                }]
+            });
+            if layout_strings.is_empty()
+                || layout_strings.len() > crate::instrument::MAX_STRINGS_PER_COURSE
+            {
+                return Err(input.point(
+                    Error::input(format!(
+                        "course {number} lists {} strings; a course holds 1 to {}",
+                        layout_strings.len(),
+                        crate::instrument::MAX_STRINGS_PER_COURSE
+                    )),
+                    &at("strings"),
+                ));
+            }
+            let mut strings = Vec::with_capacity(layout_strings.len());
+            for (string_index, layout_string) in layout_strings.into_iter().enumerate() {
+                let mut path = course_path.to_vec();
+                path.extend([PathStep::Key("strings"), PathStep::Index(string_index)]);
+                if layout_string.kinds.is_some() {
+                    path.push(PathStep::Key("kinds"));
+                    return Err(input.point(
+                        Error::input("a layout names its strings, so `kinds` has no use here")
+                            .help("give the string with `string: {kind: …, diameter: …}`"),
+                        &path,
+                    ));
+                }
+                let string = match (layout_string.string, &shared) {
+                    (Some(entry), _) => {
+                        path.push(PathStep::Key("string"));
+                        check(entry, &path)?
+                    }
+                    (None, Some(shared)) => shared.clone(),
+                    (None, None) => {
+                        return Err(input.point(
+                            Error::input(format!("course {number} does not say its string"))
+                                .help("give the course a `string: {kind: plain-steel, diameter: 0.012in}`, or each of its strings one"),
+                            &course_path,
+                        ))
+                    }
+                };
+                strings.push((layout_string.interval, string));
+            }
+            let (first_interval, string) = strings.remove(0);
             input.courses.push(LayoutCourseInput {
                 course: number,
                 pitch: course.pitch.trim().to_string(),
                 string,
+                others: strings,
+                first_interval,
                 tension: course.tension,
             });
         }
@@ -121,10 +177,13 @@ impl LayoutInput {
             tuning: None,
             tension: Some(tension),
             max_step: DEFAULT_MAX_STEP,
+            rated_load: None,
             courses: vec![LayoutCourseInput {
                 course: 1,
                 pitch: pitch.trim().to_string(),
                 string,
+                others: Vec::new(),
+                first_interval: Interval::unison(),
                 tension: None,
             }],
             origin: "--pitch".to_string(),

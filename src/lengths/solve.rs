@@ -17,6 +17,9 @@ pub fn solve_layout(
     let mut courses: Vec<LayoutCourse> = Vec::with_capacity(count);
     let mut warnings = Vec::new();
     let mut jumps = Vec::new();
+    let mut previous_first_hz = 0.0;
+    // First pass: each course's pitch, its first string and its tension goal.
+    let mut prepared = Vec::with_capacity(count);
     for (index, course) in input.courses.iter().enumerate() {
         let at_key = |key: &'static str| {
             [
@@ -44,45 +47,98 @@ pub fn solve_layout(
                     &[PathStep::Key("courses"), PathStep::Index(index)],
                 )
             })?;
-        let tension_n = spec.goal_at(position).target_n;
+        let goal = spec.goal_at(position);
         let string = course
             .string
             .resolve(kinds, materials)
             .map_err(|err| input.point(err, &at_key("string")))?;
+        prepared.push((resolved, goal, string));
+    }
+    // The window lets each course move to smooth the bridge line (see `smooth`): in the
+    // logarithm of the length, ln L = ln √(T/μ) − ln 2f (L = √(T/μ)/(2f), REFERENCES §1.2).
+    let log_length = |tension: f64, index: usize| {
+        let (pitch, _, string) = &prepared[index];
+        let hz = pitch.hz * input.courses[index].first_interval.ratio();
+        0.5 * (tension / string.construction.unit_mass()).ln() - (2.0 * hz).ln()
+    };
+    let targets: Vec<f64> = (0..count)
+        .map(|i| log_length(prepared[i].1.target_n, i))
+        .collect();
+    let lows: Vec<f64> = (0..count)
+        .map(|i| {
+            prepared[i]
+                .1
+                .min_n
+                .map_or(targets[i], |min| log_length(min, i))
+        })
+        .collect();
+    let highs: Vec<f64> = (0..count)
+        .map(|i| {
+            prepared[i]
+                .1
+                .max_n
+                .map_or(targets[i], |max| log_length(max, i))
+        })
+        .collect();
+    let smoothed = smooth::smooth(&targets, &lows, &highs, TARGET_PULL);
+    for (index, (course, (resolved, goal, string))) in
+        input.courses.iter().zip(prepared).enumerate()
+    {
         let unit_mass = string.construction.unit_mass();
-        let length_m = physics::length_for_tension(tension_n, unit_mass, resolved.hz);
-        let evaluation = select::evaluate(
-            &string.construction,
-            resolved.hz,
-            length_m,
-            &Checks {
-                limits,
-                ..Checks::default()
-            },
-        );
+        let first_hz = resolved.hz * course.first_interval.ratio();
+        // T = μ·(2fL)² with L = e^x, kept inside the window against rounding.
+        let mut tension_n = unit_mass * (2.0 * first_hz * smoothed[index].exp()).powi(2);
+        if let Some(min) = goal.min_n {
+            tension_n = tension_n.max(min);
+        }
+        if let Some(max) = goal.max_n {
+            tension_n = tension_n.min(max);
+        }
+        if goal.min_n.is_none() && goal.max_n.is_none() {
+            tension_n = goal.target_n;
+        }
+        let length_m = physics::length_for_tension(tension_n, unit_mass, first_hz);
+        let stress_checks = Checks {
+            limits,
+            ..Checks::default()
+        };
+        let evaluation = select::evaluate(&string.construction, first_hz, length_m, &stress_checks);
         let at = StringRef {
             course: course.course,
             string: 1,
         };
-        if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency)
-        {
-            if evaluation.warnings.contains(Warnings::STRESS_DANGER) {
-                warnings.push(at.stress(
-                    WarningKind::StressDanger,
-                    ratio,
-                    limits.danger,
-                    break_hz,
-                    resolved.hz,
-                ));
-            } else if evaluation.warnings.contains(Warnings::STRESS_CAUTION) {
-                warnings.push(at.stress(
-                    WarningKind::StressCaution,
-                    ratio,
-                    limits.caution,
-                    break_hz,
-                    resolved.hz,
-                ));
-            }
+        stress_warning(&mut warnings, at, &evaluation, limits, first_hz);
+        let mut other_strings = Vec::with_capacity(course.others.len());
+        for (other_index, (interval, written)) in course.others.iter().enumerate() {
+            let other = written.resolve(kinds, materials).map_err(|err| {
+                input.point(
+                    err,
+                    &[
+                        PathStep::Key("courses"),
+                        PathStep::Index(index),
+                        PathStep::Key("strings"),
+                        PathStep::Index(other_index + 1),
+                    ],
+                )
+            })?;
+            let hz = resolved.hz * interval.ratio();
+            let other_evaluation =
+                select::evaluate(&other.construction, hz, length_m, &stress_checks);
+            let at = StringRef {
+                course: course.course,
+                string: other_index + 2,
+            };
+            stress_warning(&mut warnings, at, &other_evaluation, limits, hz);
+            other_strings.push(LayoutString {
+                interval: interval.written().to_string(),
+                string: written.label(),
+                diameter_mm: written.diameter().map(|d| d * 1000.0),
+                unit_mass_kg_per_m: other_evaluation.unit_mass,
+                pitch_hz: hz,
+                tension_n: other_evaluation.tension,
+                stress_ratio: other_evaluation.stress_ratio,
+                break_pitch_hz: other_evaluation.break_frequency,
+            });
         }
         // f·L = √(T/μ)/2: the step of the wave speed between neighbours.
         let speed = (tension_n / unit_mass).sqrt();
@@ -109,7 +165,7 @@ pub fn solve_layout(
                     ),
                 });
             }
-            let pitch_direction = resolved.hz - previous.pitch.hz;
+            let pitch_direction = first_hz - previous_first_hz;
             let length_direction = length_m - previous.length_m;
             if pitch_direction * length_direction > 0.0
                 && (length_m / previous.length_m - 1.0).abs() > FOLD_BACK_TOLERANCE
@@ -140,21 +196,61 @@ pub fn solve_layout(
             diameter_in: diameter.map(|d| d / METRES_PER_INCH),
             unit_mass_kg_per_m: unit_mass,
             tension_n,
+            target_tension_n: goal.target_n,
             length_m,
             stress_ratio: evaluation.stress_ratio,
             break_pitch_hz: evaluation.break_frequency,
             step_pct,
             feel: feel::feel(&string.construction, tension_n, length_m, &options.feel),
+            other_strings,
         });
+        previous_first_hz = first_hz;
     }
+    let total_tension_n: f64 = courses
+        .iter()
+        .map(|c| c.tension_n + c.other_strings.iter().map(|o| o.tension_n).sum::<f64>())
+        .sum();
+    let rated_load_n = options.rated_load.or(input.rated_load);
+    let warnings = with_load_check(&warnings, total_tension_n, rated_load_n);
     Ok(Layout {
         name: input.name.clone(),
         tuning: tuning.name().to_string(),
         max_step,
-        total_tension_n: courses.iter().map(|c| c.tension_n).sum(),
+        total_tension_n,
+        string_count: courses.iter().map(|c| 1 + c.other_strings.len()).sum(),
+        rated_load_n,
         cautions: cautions_for(&warnings),
         courses,
         jumps,
         warnings,
     })
+}
+
+/// Adds a stress caution or danger for one string, when its stress is known and high.
+fn stress_warning(
+    warnings: &mut Vec<Warning>,
+    at: StringRef,
+    evaluation: &select::Evaluation,
+    limits: StressLimits,
+    pitch_hz: f64,
+) {
+    if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency) {
+        if evaluation.warnings.contains(Warnings::STRESS_DANGER) {
+            warnings.push(at.stress(
+                WarningKind::StressDanger,
+                ratio,
+                limits.danger,
+                break_hz,
+                pitch_hz,
+            ));
+        } else if evaluation.warnings.contains(Warnings::STRESS_CAUTION) {
+            warnings.push(at.stress(
+                WarningKind::StressCaution,
+                ratio,
+                limits.caution,
+                break_hz,
+                pitch_hz,
+            ));
+        }
+    }
 }

@@ -72,6 +72,10 @@ pub struct StringPlan {
     /// afterlengths of [`crate::strings::feel::FeelOptions`].
     #[serde(default)]
     pub feel: Option<crate::strings::feel::Feel>,
+    /// The string as the instrument file fixed it (`string:`), so a saved set writes it back
+    /// as written; `None` for a chosen string.
+    #[serde(skip)]
+    pub fixed: Option<crate::instrument::entry::SetString>,
 }
 
 /// A catalog string at this string's pitch and length: what it is and how it behaves there.
@@ -99,6 +103,53 @@ pub struct StringChoice {
     pub break_pitch_hz: f64,
     /// Fletcher's inharmonicity coefficient B, when the kind gives a modulus.
     pub inharmonicity: Option<f64>,
+    /// How this string stands against the choice rule: why it was (or was not) chosen.
+    #[serde(default)]
+    pub standing: Standing,
+    /// The selector's flags for this string on this course (`stress_caution`,
+    /// `thicker_than_catalog`, …), in a fixed order; empty when nothing is amiss.
+    #[serde(default)]
+    pub flags: Vec<String>,
+}
+
+/// How a string stands against the choice rule (README, "How a string is chosen").
+/// Serialized in snake_case (`on_target`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Standing {
+    /// Within the tolerance and the window, fitting, below the caution stress, inside its
+    /// kind's catalog.
+    #[default]
+    OnTarget,
+    /// Acceptable, but in the caution zone, at the end of its catalog, or of unknown strength.
+    WithReservations,
+    /// Nothing allowed was acceptable: the string that goes wrong least.
+    Closest,
+    /// Named outright in the instrument file; not chosen.
+    Fixed,
+}
+
+impl Standing {
+    /// The standing in words, for tables.
+    pub fn words(self) -> &'static str {
+        match self {
+            Standing::OnTarget => "on target",
+            Standing::WithReservations => "with reservations",
+            Standing::Closest => "not acceptable",
+            Standing::Fixed => "fixed in the instrument file",
+        }
+    }
+}
+
+impl From<crate::strings::select::Standing> for Standing {
+    fn from(standing: crate::strings::select::Standing) -> Self {
+        use crate::strings::select::Standing as Rank;
+        match standing {
+            Rank::OnTarget => Standing::OnTarget,
+            Rank::WithReservations => Standing::WithReservations,
+            Rank::Closest => Standing::Closest,
+        }
+    }
 }
 
 /// The choices around the chosen string.

@@ -23,6 +23,7 @@ use crate::tuning::{self, Tuning};
 mod course;
 #[allow(unused_imports)]
 pub(crate) use course::*;
+mod fixed;
 
 /// The tuning used when neither the command line nor the instrument names one: 12 equal
 /// divisions of the octave at A4 = 440 Hz (ISO 16:1975).
@@ -44,7 +45,7 @@ pub struct SolveOptions {
 /// `stock` holds the string kinds to choose from ([`Stock::builtin`] for the shipped ones).
 pub fn plan(instrument: &Instrument, stock: &Stock, options: &SolveOptions) -> Result<Plan> {
     let tuning = tuning_for(instrument, options.tuning.as_deref(), "--tuning")?;
-    solve(instrument, &tuning, stock.kinds(), options.tension.as_ref())
+    solve(instrument, &tuning, stock, options.tension.as_ref())
 }
 
 /// The tuning to use for `instrument`: the one given on the command line as `flag` (errors
@@ -60,14 +61,16 @@ pub fn tuning_for(instrument: &Instrument, given: Option<&str>, flag: &str) -> R
     }
 }
 
-/// Solves every course of `instrument` in `tuning` with strings of `kinds`; `tension` replaces
-/// the file's tension settings when given.
+/// Solves every course of `instrument` in `tuning` with the string kinds and materials of
+/// `stock`; `tension` replaces the file's tension settings when given. Strings the file fixes
+/// (`string:`) are checked, not chosen.
 pub fn solve(
     instrument: &Instrument,
     tuning: &Tuning,
-    kinds: &StringKinds,
+    stock: &Stock,
     tension: Option<&TensionSpec>,
 ) -> Result<Plan> {
+    let kinds = stock.kinds();
     let limits = stress_limits(instrument)?;
     let tolerance = instrument
         .tolerance
@@ -86,6 +89,7 @@ pub fn solve(
             course,
             limits,
             tolerance,
+            stock,
         };
         let ranges = &lists.per_string[string_slot..string_slot + course.strings.len()];
         string_slot += course.strings.len();
@@ -148,9 +152,9 @@ pub(crate) fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
     Ok(limits)
 }
 
-/// The plan's description of one evaluated gauge.
-fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoice {
-    let (construction, material) = match &kind.build {
+/// A kind's construction (`plain`, `wound`, `measured`) and its materials in words.
+fn construction_words(kind: &StringKind) -> (&'static str, String) {
+    match &kind.build {
         KindBuild::Plain { material } => ("plain", material.id.as_str().to_string()),
         KindBuild::Wound {
             core_material,
@@ -175,7 +179,12 @@ fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoi
                 .as_ref()
                 .map_or_else(|| "unknown".to_string(), |m| m.id.as_str().to_string()),
         ),
-    };
+    }
+}
+
+/// The plan's description of one evaluated gauge.
+fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoice {
+    let (construction, material) = construction_words(kind);
     StringChoice {
         kind: kind.id.as_str().to_string(),
         construction: construction.to_string(),
@@ -190,7 +199,20 @@ fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoi
         inharmonicity: kind
             .construction(choice.diameter)
             .inharmonicity(choice.tension, request.length),
+        standing: select::standing(choice, request.tolerance).into(),
+        flags: {
+            let mut flags = flag_names(choice.warnings);
+            if choice.tension_error.abs() > request.tolerance {
+                flags.push("off_target".to_string());
+            }
+            flags
+        },
     }
+}
+
+/// The selector's flag names in the snake_case of the plan's other names.
+pub(crate) fn flag_names(flags: Warnings) -> Vec<String> {
+    flags.names().map(|name| name.replace('-', "_")).collect()
 }
 
 /// The way the trade writes this diameter: inches for gauges on the half-thousandth grid of

@@ -378,3 +378,39 @@ pub fn bend_force_for_rise(
     let displacement = bend_displacement_for_rise(geometry, stiffness, tension, rise_cents);
     bend_force(geometry, stiffness, tension, displacement)
 }
+
+/// Tension (N) at which a sideways push of `force` (N) at the midpoint raises the pitch by
+/// `rise_cents`: the inverse in T of [`bend_force_for_rise`], found by bisection. The force
+/// grows monotonically with the tension (both the raised tension T' and the displacement for a
+/// given rise grow with T), so the answer is unique. Used to keep the bend force of a string
+/// when it moves to another length or pitch.
+pub fn tension_for_bend_force(
+    geometry: BendGeometry,
+    stiffness: f64,
+    force: f64,
+    rise_cents: f64,
+) -> f64 {
+    if force <= 0.0 || stiffness <= 0.0 || rise_cents <= 0.0 {
+        return 0.0;
+    }
+    let at = |tension: f64| bend_force_for_rise(geometry, stiffness, tension, rise_cents);
+    let mut high = 1.0;
+    let mut guard = 0;
+    while at(high) < force && guard < 200 {
+        high *= 2.0;
+        guard += 1;
+    }
+    let mut low = 0.0;
+    for _ in 0..200 {
+        let mid = 0.5 * (low + high);
+        if mid <= low || mid >= high {
+            break;
+        }
+        if at(mid) < force {
+            low = mid;
+        } else {
+            high = mid;
+        }
+    }
+    0.5 * (low + high)
+}

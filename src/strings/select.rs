@@ -6,15 +6,27 @@
 //!
 //! # Choice rule
 //!
-//! 1. The linear density the course needs is μ = T/(2Lf)² (REFERENCES §1.2).
+//! 1. The linear density the course needs is μ = T/(2Lf)² (REFERENCES §1.2). A tension window
+//!    without a stated target aims at its middle (see [`crate::instrument::TensionGoal`]).
 //! 2. In each allowed kind the best gauge is the one whose tension is nearest the target, among
 //!    the gauges no wider than the slot (if none fits, the thinnest, flagged wider than the slot).
-//! 3. The chosen string is the best gauge of the *first kind in the caller's order of
-//!    preference* that is acceptable: tension within the tolerance of the target, inside the
-//!    tension window, not in the danger zone, and fitting the slot.
-//! 4. If no kind is acceptable, the chosen string is the kind's best that goes wrong least, ranked
-//!    by: not dangerous first, then fitting the slot, then inside the window, then the smallest
-//!    tension error.
+//! 3. Each kind's best then stands in one of three ranks ([`Standing`]):
+//!    - *on target*: tension within the tolerance of the target, inside the tension window,
+//!      fitting the slot, below the caution stress, of known strength, and the kind's catalog
+//!      reaches the linear density the course needs (neither thinner nor thicker than it has);
+//!    - *with reservations*: within the tolerance, inside the window, fitting and below the
+//!      danger stress, but above the caution stress, at the end of its catalog, or of unknown
+//!      strength;
+//!    - *closest*: anything else.
+//! 4. The chosen string is the best gauge of the *first kind in the caller's order of
+//!    preference* that is on target; failing that, the first with reservations. A kind that
+//!    needs a thicker (or thinner) gauge than its catalog has, or runs in the caution zone, so
+//!    never beats a later kind that is on target and safe: practitioners change construction
+//!    (plain to wound, nylon to wound) before they string at the end of a catalog or near the
+//!    elastic limit.
+//! 5. If no kind is within reach, the chosen string is the kind's best that goes wrong least,
+//!    ranked by: not dangerous first, then fitting the slot, then inside the window, then the
+//!    smallest tension error.
 //!
 //! # Stress limits
 //!
@@ -217,6 +229,49 @@ pub struct Selection {
     pub thicker: Option<Choice>,
     /// The chosen string's flags, plus [`Warnings::NONE_WITHIN_TOLERANCE`] when it applies.
     pub warnings: Warnings,
+    /// How the chosen string stands against the rule (why it was chosen).
+    pub standing: Standing,
+}
+
+/// How one kind's best gauge stands against the choice rule (see the module documentation);
+/// the order is the order of preference.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub enum Standing {
+    /// Within tolerance, inside the window, fitting, below the caution stress, of known strength,
+    /// and inside its kind's catalog.
+    OnTarget,
+    /// Within tolerance, inside the window, fitting and below the danger stress, but in the
+    /// caution zone, at the end of its catalog, or of unknown strength.
+    WithReservations,
+    /// Neither: the string that goes wrong least.
+    Closest,
+}
+
+impl Standing {
+    /// Stable name, e.g. `on-target`.
+    pub fn name(self) -> &'static str {
+        match self {
+            Standing::OnTarget => "on-target",
+            Standing::WithReservations => "with-reservations",
+            Standing::Closest => "closest",
+        }
+    }
+}
+
+/// Where `choice` stands against the rule for a request with `tolerance`.
+pub fn standing(choice: &Choice, tolerance: f64) -> Standing {
+    if !is_acceptable(choice, tolerance) {
+        Standing::Closest
+    } else if choice.warnings.intersects(
+        Warnings::STRESS_CAUTION
+            .union(Warnings::THINNER_THAN_CATALOG)
+            .union(Warnings::THICKER_THAN_CATALOG)
+            .union(Warnings::STRENGTH_UNKNOWN),
+    ) {
+        Standing::WithReservations
+    } else {
+        Standing::OnTarget
+    }
 }
 
 fn stress_flags(stress_ratio: f64, limits: StressLimits) -> Warnings {
@@ -262,15 +317,19 @@ fn evaluate_gauge(
         Some(gauge.diameter),
         &request.checks,
     ));
+    // A relative margin far below any catalog step, so a string whose own tension is the
+    // target (μ·x/x rounding to one unit in the last place off) does not read as off the
+    // catalog's end.
+    const EDGE: f64 = 1e-9;
     if gauges
         .first()
-        .is_some_and(|g| required_unit_mass < g.unit_mass)
+        .is_some_and(|g| required_unit_mass < g.unit_mass * (1.0 - EDGE))
     {
         warnings.insert(Warnings::THINNER_THAN_CATALOG);
     }
     if gauges
         .last()
-        .is_some_and(|g| required_unit_mass > g.unit_mass)
+        .is_some_and(|g| required_unit_mass > g.unit_mass * (1.0 + EDGE))
     {
         warnings.insert(Warnings::THICKER_THAN_CATALOG);
     }
@@ -349,7 +408,8 @@ pub fn select(
 ) -> Selection {
     let required =
         physics::unit_mass_for_tension(request.target_tension, request.length, request.frequency);
-    let mut first_acceptable: Option<Choice> = None;
+    let mut first_on_target: Option<Choice> = None;
+    let mut first_reserved: Option<Choice> = None;
     let mut fallback: Option<Choice> = None;
     let mut any_within_tolerance = false;
     for (kind_index, kind) in kinds.iter().enumerate() {
@@ -361,8 +421,10 @@ pub fn select(
         }
         let Some(best) = best else { continue };
         any_within_tolerance |= best.tension_error.abs() <= request.tolerance;
-        if first_acceptable.is_none() && is_acceptable(&best, request.tolerance) {
-            first_acceptable = Some(best);
+        match standing(&best, request.tolerance) {
+            Standing::OnTarget if first_on_target.is_none() => first_on_target = Some(best),
+            Standing::WithReservations if first_reserved.is_none() => first_reserved = Some(best),
+            _ => {}
         }
         let better = match &fallback {
             None => true,
@@ -374,10 +436,16 @@ pub fn select(
             fallback = Some(best);
         }
     }
+    let (chosen, standing) = match (first_on_target, first_reserved) {
+        (Some(choice), _) => (Some(choice), Standing::OnTarget),
+        (None, Some(choice)) => (Some(choice), Standing::WithReservations),
+        (None, None) => (fallback, Standing::Closest),
+    };
     finish(
         request,
         kinds,
-        first_acceptable.or(fallback),
+        chosen,
+        standing,
         required,
         any_within_tolerance,
     )
@@ -389,6 +457,7 @@ fn finish(
     request: &Request,
     kinds: &[&StringKind],
     chosen: Option<Choice>,
+    standing: Standing,
     required: f64,
     any_within_tolerance: bool,
 ) -> Selection {
@@ -409,6 +478,7 @@ fn finish(
         thinner: neighbour(-1),
         thicker: neighbour(1),
         warnings,
+        standing,
     }
 }
 

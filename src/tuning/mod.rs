@@ -26,6 +26,7 @@ pub mod pitch;
 pub mod reference;
 mod resolve;
 pub mod shape;
+pub mod transpose;
 
 use num_rational::Ratio;
 use num_traits::CheckedMul;

@@ -4,7 +4,7 @@
 use criterion::{criterion_group, criterion_main, Criterion};
 use taut::instrument::Instrument;
 use taut::plan::solve;
-use taut::strings::kind::StringKinds;
+use taut::strings::stock::Stock;
 
 fn two_hundred_courses() -> String {
     let mut text = String::from(
@@ -30,18 +30,18 @@ fn bench_plan(c: &mut Criterion) {
         Ok(tuning) => tuning,
         Err(err) => panic!("{err}"),
     };
-    let kinds = match StringKinds::builtin() {
-        Ok(kinds) => kinds,
+    let stock = match Stock::builtin() {
+        Ok(stock) => stock,
         Err(err) => panic!("{err}"),
     };
     c.bench_function("solve 200 courses", |b| {
-        b.iter(|| solve::solve(&instrument, &tuning, kinds, None))
+        b.iter(|| solve::solve(&instrument, &tuning, stock, None))
     });
     c.bench_function("read and solve 200 courses", |b| {
         let text = two_hundred_courses();
         b.iter(|| {
             Instrument::from_text(text.clone(), "bench.yaml")
-                .and_then(|instrument| solve::solve(&instrument, &tuning, kinds, None))
+                .and_then(|instrument| solve::solve(&instrument, &tuning, stock, None))
         })
     });
 }

@@ -7,7 +7,7 @@ use serde::Serialize;
 use taut::error::{Error, Result};
 use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
 use taut::plan::warning::{Severity, SAFETY_CAUTIONS};
-use taut::plan::{CoursePlan, Plan};
+use taut::plan::{CoursePlan, Plan, Standing, StringChoice};
 
 use crate::cli::text::{course_pitch_text, new_table, right, severity_flag, warnings_and_cautions};
 
@@ -52,7 +52,8 @@ pub(super) fn worst_severity(course: &CoursePlan, string_number: usize) -> Optio
 /// cautions.
 pub fn table(plan: &Plan, units: DisplayUnits) -> String {
     let mut table = new_table(vec![
-        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Tension", "Stress", "",
+        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Target", "Tension",
+        "Stress", "",
     ]);
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
@@ -76,10 +77,15 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
                 } else {
                     String::new()
                 }),
-                Cell::new(&string.choice.kind),
+                Cell::new(if string.choice.standing == Standing::Fixed {
+                    format!("{} (fixed)", string.choice.kind)
+                } else {
+                    string.choice.kind.clone()
+                }),
                 right(format!("{:.4}", string.choice.diameter_in)),
                 right(format!("{:.3}", string.choice.diameter_mm)),
                 right(format!("{:.4}", string.choice.unit_mass_kg_per_m * 1000.0)),
+                right(format!("{:.1} N", string.target_tension_n)),
                 right(tension_text(string.choice.tension_n, units.force)),
                 right(format!("{:.0}%", string.choice.stress_ratio * 100.0)),
                 Cell::new(worst_severity(course, number).map_or("", severity_flag)),
@@ -106,6 +112,79 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
         &[]
     };
     out.push_str(&warnings_and_cautions(&plan.warnings, cautions));
+    out
+}
+
+fn flags_text(choice: &StringChoice) -> String {
+    choice.flags.join(", ").replace('_', " ")
+}
+
+fn choice_text(choice: &StringChoice, units: DisplayUnits) -> String {
+    let mut text = format!(
+        "{} {} {}",
+        choice.kind,
+        choice.gauge,
+        tension_text(choice.tension_n, units.force)
+    );
+    if choice.standing != Standing::OnTarget {
+        text.push_str(&format!(" ({}", choice.standing.words()));
+        if !choice.flags.is_empty() {
+            text.push_str(&format!(": {}", flags_text(choice)));
+        }
+        text.push(')');
+    }
+    text
+}
+
+/// The detail view (`--alternatives`): for every string, the target, the chosen string and why,
+/// the next thinner and thicker gauge of its kind and the best of each other allowed kind.
+pub fn alternatives(plan: &Plan, units: DisplayUnits) -> String {
+    let mut out = String::from(
+        "\nChoices (target; chosen; next thinner and thicker gauge; best of each other allowed kind):\n",
+    );
+    for course in &plan.courses {
+        for (index, string) in course.strings.iter().enumerate() {
+            let label = if course.strings.len() > 1 {
+                format!("Course {} string {}", course.course, index + 1)
+            } else {
+                format!("Course {}", course.course)
+            };
+            let chosen = &string.choice;
+            let mut why = match chosen.standing {
+                Standing::Closest => "the closest: no allowed kind is acceptable",
+                other => other.words(),
+            }
+            .to_string();
+            if !chosen.flags.is_empty() {
+                why.push_str(&format!(" ({})", flags_text(chosen)));
+            }
+            out.push_str(&format!(
+                "  {label}, target {}: {} {} {}, {why}\n",
+                tension_text(string.target_tension_n, units.force),
+                chosen.kind,
+                chosen.gauge,
+                tension_text(chosen.tension_n, units.force),
+            ));
+            let alternatives = &string.alternatives;
+            let neighbours: Vec<String> = [
+                ("thinner", &alternatives.thinner),
+                ("thicker", &alternatives.thicker),
+            ]
+            .into_iter()
+            .filter_map(|(name, choice)| {
+                choice
+                    .as_ref()
+                    .map(|c| format!("{name} {}", choice_text(c, units)))
+            })
+            .collect();
+            if !neighbours.is_empty() {
+                out.push_str(&format!("      {}\n", neighbours.join("; ")));
+            }
+            for other in &alternatives.other_kinds {
+                out.push_str(&format!("      or {}\n", choice_text(other, units)));
+            }
+        }
+    }
     out
 }
 

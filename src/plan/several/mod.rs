@@ -14,6 +14,7 @@ pub mod variants;
 use serde::Serialize;
 
 use crate::error::{Error, Result};
+use crate::input::yaml::PathStep;
 use crate::instrument::{Instrument, TensionSpec};
 use crate::plan::solve::{finish_plan, stress_limits, CourseContext, KindLists};
 use crate::plan::warning::{Severity, SAFETY_CAUTIONS};
@@ -158,6 +159,7 @@ pub fn solve(
                 course,
                 limits,
                 tolerance,
+                stock,
             };
             pitches.push(variant.instrument.course_pitch(&course, &variant.tuning)?);
             contexts.push(context);
@@ -173,6 +175,18 @@ pub fn solve(
         let mut warnings = vec![Vec::new(); list.len()];
         let mut shared_strings = Vec::with_capacity(count);
         for (string_index, range) in ranges.iter().enumerate() {
+            if first.course.fixed(string_index).is_some() {
+                return Err(first.instrument.point(
+                    Error::input(format!(
+                        "course {number}: a fixed string (`string:`) cannot be planned for several tunings yet"
+                    ))
+                    .help("plan each tuning on its own, or let taut choose this string"),
+                    &[
+                        PathStep::Key("courses"),
+                        PathStep::Index(first.course.index),
+                    ],
+                ));
+            }
             let kinds = &lists.arena[range.clone()];
             requests.clear();
             for (context, pitch) in contexts.iter().zip(&pitches) {

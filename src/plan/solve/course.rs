@@ -42,6 +42,11 @@ impl<'k> KindLists<'k> {
                 None => defaults.clone(),
             };
             for (string_index, string) in course.strings.iter().enumerate() {
+                if string.string.is_some() || course.string.is_some() {
+                    // A fixed string is checked, not chosen: it needs no kinds.
+                    lists.per_string.push(0..0);
+                    continue;
+                }
                 let range = match &string.kinds {
                     Some(ids) => Some(lists.push(
                         instrument,
@@ -118,6 +123,7 @@ pub(crate) struct CourseContext<'a> {
     pub(crate) course: CourseInput<'a>,
     pub(crate) limits: StressLimits,
     pub(crate) tolerance: f64,
+    pub(crate) stock: &'a Stock,
 }
 
 impl CourseContext<'_> {
@@ -141,6 +147,21 @@ impl CourseContext<'_> {
         for (string_index, range) in ranges.iter().enumerate() {
             let kinds = &arena[range.clone()];
             let request = self.request(&resolved, string_index)?;
+            if let Some(entry) = self.course.fixed(string_index) {
+                let at = StringRef {
+                    course: self.course.number,
+                    string: string_index + 1,
+                };
+                let plan = self.fixed(entry, string_index, &request, at, &mut warnings)?;
+                strings.push(StringPlan {
+                    interval: self.course.strings[string_index]
+                        .interval
+                        .written()
+                        .to_string(),
+                    ..plan
+                });
+                continue;
+            }
             let scratch = &mut best_per_kind[..kinds.len()];
             let selection = select::select(&request, kinds, scratch);
             strings.push(self.string_plan(
@@ -241,6 +262,7 @@ impl CourseContext<'_> {
                     .collect(),
             },
             feel: Some(feel),
+            fixed: None,
         })
     }
 

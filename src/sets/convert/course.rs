@@ -60,16 +60,61 @@ pub(super) fn convert_course(
                 )
             })?,
         };
+        // With the bend rule, the target depends on the string: the tension at which it takes
+        // the old string's push for the same bend on the new length.
+        let feel_before = match (old, before, &before_side) {
+            (Some((_, construction, _)), Some(place), Some(side)) => Some(feel::feel(
+                construction,
+                side.tension_n,
+                place.length_m,
+                &options.feel,
+            )),
+            _ => None,
+        };
+        let bend_goal = match (options.rule, &options.target) {
+            (FeelRule::EqualBend, None) => feel_before.and_then(|feel| feel.bend_force_n),
+            _ => None,
+        };
+        let geometry = BendGeometry {
+            vibrating_length: placed.length_m,
+            nut_afterlength: options.feel.nut_afterlength,
+            bridge_afterlength: options.feel.bridge_afterlength,
+        };
+        // The bend target stays inside the instrument's window, with the tolerance's room to
+        // spare at either edge: a push matched above the window's `max` would trade one problem
+        // for another, and a target right at an edge lets the nearest catalog gauge fall outside.
+        let (low, high) = (
+            goal.and_then(|g| g.min_n).unwrap_or(0.0),
+            goal.and_then(|g| g.max_n).unwrap_or(f64::INFINITY),
+        );
+        let room = 1.0 + options.tolerance;
+        let window = if low * room <= high / room {
+            (low * room, high / room)
+        } else {
+            (low, high)
+        };
+        let target_for = |construction: &Construction<'_>| -> f64 {
+            match (bend_goal, construction.axial_stiffness()) {
+                (Some(force), Some(stiffness)) => physics::tension_for_bend_force(
+                    geometry,
+                    stiffness,
+                    force,
+                    options.feel.bend_cents,
+                )
+                .clamp(window.0, window.1.max(window.0)),
+                _ => target_tension_n,
+            }
+        };
         let checks = Checks {
             min_tension: goal.and_then(|g| g.min_n),
             max_tension: goal.and_then(|g| g.max_n),
             widest: slot_stated,
             limits: limits.after,
         };
-        let request = Request {
+        let mut request = Request {
             frequency: pitch_hz,
             length: placed.length_m,
-            target_tension: target_tension_n,
+            target_tension: old.map_or(target_tension_n, |(_, c, _)| target_for(c)),
             tolerance: options.tolerance,
             checks,
         };
@@ -77,7 +122,7 @@ pub(super) fn convert_course(
             Some((written, construction, _)) if !options.reselect_all => {
                 let evaluation = select::evaluate(construction, pitch_hz, placed.length_m, &checks);
                 let close =
-                    (evaluation.tension / target_tension_n - 1.0).abs() <= options.tolerance;
+                    (evaluation.tension / request.target_tension - 1.0).abs() <= options.tolerance;
                 let blocked = evaluation.warnings.intersects(
                     Warnings::STRESS_DANGER
                         .union(Warnings::BELOW_WINDOW)
@@ -98,7 +143,20 @@ pub(super) fn convert_course(
             None => {
                 let allowed = allowed_kinds(after, index, course, string_index, old, kinds)?;
                 let mut scratch = vec![None; allowed.len()];
-                let selection = select::select(&request, &allowed, &mut scratch);
+                let mut selection = select::select(&request, &allowed, &mut scratch);
+                // The bend rule's target moves with the string chosen: settle it in a few
+                // rounds (the gauge steps are coarse, so it stops moving at once or after one).
+                for _ in 0..4 {
+                    let Some(chosen) = selection.chosen else {
+                        break;
+                    };
+                    let next = target_for(&allowed[chosen.kind].construction(chosen.diameter));
+                    if (next / request.target_tension - 1.0).abs() < 1e-3 {
+                        break;
+                    }
+                    request.target_tension = next;
+                    selection = select::select(&request, &allowed, &mut scratch);
+                }
                 let chosen = selection.chosen.ok_or_else(|| {
                     after.point(
                         Error::input(format!(
@@ -132,6 +190,7 @@ pub(super) fn convert_course(
                 )
             }
         };
+        let target_tension_n = request.target_tension;
         let kept = old.is_some_and(|(written, _, _)| *written == set_string);
         let after_side = side(&set_string, &evaluation, pitch_hz);
         flag_common(
@@ -189,6 +248,7 @@ pub(super) fn convert_course(
             kept,
             target_tension_n,
             slot,
+            feel_before,
             feel_after: feel::feel(
                 &construction,
                 evaluation.tension,
@@ -201,7 +261,7 @@ pub(super) fn convert_course(
     Ok(ConvertCourse {
         course: course.number,
         pitch_before: before.map(|b| b.course.pitch.to_string()),
-        pitch_after: course.pitch.to_string(),
+        pitch_after: placed.pitch.written.clone(),
         pitch_label: placed.pitch.label.clone(),
         note_name: placed.pitch.note_name.clone(),
         note_offset_cents: placed.pitch.note_offset_cents,

@@ -52,9 +52,10 @@ use crate::strings::construction::Construction;
 use crate::strings::feel::{self, Feel, FeelOptions};
 use crate::strings::kind::{StringKind, StringKinds};
 use crate::strings::material::Materials;
-use crate::strings::physics;
+use crate::strings::physics::{self, BendGeometry};
 use crate::strings::select::{self, Checks, Request, StressLimits, Warnings};
 use crate::strings::stock::Stock;
+use crate::tuning::transpose::Shift;
 use crate::tuning::Tuning;
 
 mod course;
@@ -63,6 +64,9 @@ use course::*;
 mod strings;
 #[allow(unused_imports)]
 use strings::*;
+mod rule;
+use rule::kept_changes;
+pub use rule::{FeelRule, KeptChange, TargetRule};
 
 /// A total-load change larger than this fraction (either way) comes with the setup caution.
 pub const DEFAULT_LOAD_CHANGE: f64 = 0.10;
@@ -73,6 +77,10 @@ pub const SETUP_CAUTION: &str = "A change this large in total string load moves 
 /// Choices for a conversion.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ConvertOptions {
+    /// A shift of every course's pitch (a baritone conversion a fourth down: `-5`).
+    pub transpose: Option<Shift>,
+    /// What keeping the feel keeps, when no new target is given.
+    pub rule: FeelRule,
     /// Accepted relative distance from the target tension.
     pub tolerance: f64,
     /// A new tension target (or window, or profile) instead of each string's old tension.
@@ -92,6 +100,8 @@ pub struct ConvertOptions {
 impl Default for ConvertOptions {
     fn default() -> Self {
         ConvertOptions {
+            transpose: None,
+            rule: FeelRule::default(),
             tolerance: select::DEFAULT_TOLERANCE,
             target: None,
             scale_length: None,
@@ -116,6 +126,12 @@ pub struct Conversion {
     pub tuning_before: String,
     /// The tuning after.
     pub tuning_after: String,
+    /// The shift applied to every course, when transposed; the pitches after are named anew.
+    pub transpose: Option<Shift>,
+    /// Where each string's target tension came from.
+    pub rule: TargetRule,
+    /// The tolerance used, as a fraction.
+    pub tolerance: f64,
     /// One entry per course of the instrument after.
     pub courses: Vec<ConvertCourse>,
     /// Courses of the set that the instrument after no longer has.
@@ -132,6 +148,8 @@ pub struct Conversion {
     pub rated_load_n: Option<f64>,
     /// Number of strings replaced.
     pub strings_replaced: usize,
+    /// Kept strings whose tension changes by more than the tolerance.
+    pub kept_tension_changes: Vec<KeptChange>,
     /// Every warning, course by course, then the instrument's.
     pub warnings: Vec<Warning>,
     /// Safety cautions, present when a caution, a danger or a large load change came up.
@@ -224,6 +242,8 @@ pub struct ConvertString {
     pub slot: Option<SlotFit>,
     /// Stiffness and feel after.
     pub feel_after: Feel,
+    /// Stiffness and feel before, on the old pitch and length (absent on a new course).
+    pub feel_before: Option<Feel>,
     /// The string after as a set entry.
     #[serde(skip)]
     pub set_string: SetString,
@@ -303,6 +323,10 @@ pub fn convert(
             .course_input(index, options.target.as_ref())
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
         let pitch = after.course_pitch(&course, tuning_after)?;
+        let pitch = match &options.transpose {
+            Some(shift) => shift.apply(&pitch, tuning_after),
+            None => pitch,
+        };
         let placed_after = Placed {
             length_m: options.scale_length.unwrap_or(course.length_m),
             course,
@@ -382,6 +406,7 @@ pub fn convert(
         total_after_n,
         rated_load_n,
     );
+    let kept_tension_changes = kept_changes(&courses, options.tolerance);
     let mut cautions = cautions_for(&warnings);
     if cautions.is_empty() && load_caution.is_some() {
         cautions = SAFETY_CAUTIONS.iter().map(|s| s.to_string()).collect();
@@ -392,6 +417,14 @@ pub fn convert(
         set: set.name.clone(),
         tuning_before: tuning_before.name().to_string(),
         tuning_after: tuning_after.name().to_string(),
+        transpose: options.transpose.clone(),
+        rule: match (&options.target, options.rule) {
+            (Some(_), _) => TargetRule::GivenTension,
+            (None, FeelRule::EqualTension) => TargetRule::EqualTension,
+            (None, FeelRule::EqualBend) => TargetRule::EqualBend,
+        },
+        tolerance: options.tolerance,
+        kept_tension_changes,
         strings_replaced: courses
             .iter()
             .flat_map(|c| &c.strings)

@@ -31,72 +31,23 @@
 use std::fmt::Write as _;
 use std::path::Path;
 
-use serde::{Deserialize, Deserializer};
+use serde::Deserialize;
 
 use crate::error::{Error, Result};
-use crate::input::units::{Length, Mass, UnitMass, METRES_PER_INCH};
 use crate::input::yaml::{self, PathStep};
-use crate::instrument::{Expecting, NoDetail, ScalarOrMap};
 use crate::plan::Plan;
-use crate::strings::construction::{Construction, Measured, WoundRecipe};
-use crate::strings::kind::{KindBuild, StringKind, StringKinds};
-use crate::strings::material::{Material, Materials};
 use crate::strings::stock::Stock;
 
 mod read;
+pub(crate) use crate::instrument::entry::{check_entry, StringEntryFile};
+pub use crate::instrument::entry::{length_text, ResolvedString, SetString};
 #[allow(unused_imports)]
 use read::*;
-mod string;
-#[allow(unused_imports)]
-use string::*;
-pub use string::*;
-mod check;
-pub(crate) use check::check_entry;
-#[allow(unused_imports)]
-use check::*;
 #[cfg(test)]
 mod tests;
 
 /// The most courses a set may list (the same bound as instruments).
 pub const MAX_SET_COURSES: usize = crate::instrument::MAX_COURSES;
-
-impl Expecting for UnitMass {
-    const EXPECTING: &'static str = "a mass per length such as `0.4g/m`";
-}
-
-impl Expecting for Mass {
-    const EXPECTING: &'static str = "a mass such as `1.2g`";
-}
-
-/// A quantity read through the located scalar reader, so a bad value names its line.
-#[derive(Debug, Clone, Copy, PartialEq)]
-struct Located<S>(S);
-
-impl<'de, S> Deserialize<'de> for Located<S>
-where
-    S: std::str::FromStr<Err = Error> + Expecting,
-{
-    fn deserialize<D: Deserializer<'de>>(deserializer: D) -> std::result::Result<Self, D::Error> {
-        match ScalarOrMap::<S, NoDetail>::deserialize(deserializer)? {
-            ScalarOrMap::Scalar(value) => Ok(Located(value)),
-            ScalarOrMap::Map(never) => match never {},
-        }
-    }
-}
-
-/// One string as written: every key optional here, the valid combinations checked in
-/// [`StringSet::from_text`] where the line can still be found.
-#[derive(Debug, Clone, Deserialize)]
-#[serde(deny_unknown_fields)]
-pub(crate) struct StringEntryFile {
-    kind: Option<String>,
-    diameter: Option<Located<Length>>,
-    core_diameter: Option<Located<Length>>,
-    unit_mass: Option<Located<UnitMass>>,
-    mass: Option<Located<Mass>>,
-    length: Option<Located<Length>>,
-    material: Option<String>,
-}
 
 #[derive(Debug, Clone, Deserialize)]
 #[serde(deny_unknown_fields)]
@@ -113,31 +64,6 @@ struct SetFile {
     instrument: Option<String>,
     tuning: Option<String>,
     courses: Vec<SetCourseFile>,
-}
-
-/// One installed string, checked.
-#[derive(Debug, Clone, PartialEq)]
-pub enum SetString {
-    /// A string of a named kind at an outer diameter.
-    Kind {
-        /// The kind's id.
-        kind: String,
-        /// Outer diameter, m.
-        diameter: f64,
-        /// Core diameter, m, when stated (wound kinds only).
-        core_diameter: Option<f64>,
-    },
-    /// A string known by its linear density.
-    Measured {
-        /// Linear density, kg/m.
-        unit_mass: f64,
-        /// Outer diameter, m, if known.
-        diameter: Option<f64>,
-        /// Id of the load-bearing material, if known.
-        material: Option<String>,
-        /// The weighing it came from, (mass kg, length m), if it was weighed.
-        weighed: Option<(f64, f64)>,
-    },
 }
 
 /// One course of a set.
@@ -172,13 +98,4 @@ impl PartialEq for StringSet {
     fn eq(&self, other: &Self) -> bool {
         self.courses == other.courses
     }
-}
-
-/// A set string resolved to a concrete construction.
-#[derive(Debug, Clone, Copy)]
-pub struct ResolvedString<'k> {
-    /// The physical string.
-    pub construction: Construction<'k>,
-    /// Its kind, when it was given by kind.
-    pub kind: Option<&'k StringKind>,
 }

@@ -165,10 +165,12 @@ impl StringSet {
                 strings: course
                     .strings
                     .iter()
-                    .map(|string| SetString::Kind {
-                        kind: string.choice.kind.clone(),
-                        diameter: string.choice.diameter_mm / 1000.0,
-                        core_diameter: None,
+                    .map(|string| {
+                        string.fixed.clone().unwrap_or_else(|| SetString::Kind {
+                            kind: string.choice.kind.clone(),
+                            diameter: string.choice.diameter_mm / 1000.0,
+                            core_diameter: None,
+                        })
                     })
                     .collect(),
             })

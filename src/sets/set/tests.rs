@@ -1,4 +1,8 @@
 use super::*;
+use crate::input::units::METRES_PER_INCH;
+use crate::strings::construction::Construction;
+use crate::strings::kind::StringKinds;
+use crate::strings::material::Materials;
 
 fn parse(text: &str) -> Result<StringSet> {
     StringSet::from_text(text.to_string(), "s.yaml", Stock::builtin().unwrap())

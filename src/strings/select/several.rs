@@ -9,9 +9,13 @@
 //! tolerance of the target tension (the selector's "acceptable").
 //!
 //! 1. **On target everywhere.** The first kind, in the caller's order of preference, with a
-//!    gauge on target in every tuning; of its gauges on target everywhere, the one the
-//!    [`Balance`] rule scores best.
-//! 2. **Otherwise, least wrong.** Over every gauge of every kind, the smallest of the ranking
+//!    gauge that stands [`Standing::OnTarget`] in every tuning (the selector's rule: within
+//!    tolerance and the window, fitting, below the caution stress, inside its catalog); of its
+//!    gauges on target everywhere, the one the [`Balance`] rule scores best.
+//! 2. **Otherwise, with reservations.** The same for the first kind whose gauge is at worst
+//!    [`Standing::WithReservations`] in every tuning (in caution, at its catalog's end, or of
+//!    unknown strength, but within tolerance, inside the window and below danger).
+//! 3. **Otherwise, least wrong.** Over every gauge of every kind, the smallest of the ranking
 //!    (danger in any tuning, wider than the slot, outside the window in any tuning, score): a
 //!    gauge that serves every tuning wins over one that does not, and among those the best
 //!    score wins. When even this gauge does not serve every tuning, the tunings *conflict* on
@@ -43,7 +47,7 @@
 use serde::Serialize;
 
 use super::{
-    evaluate_gauge, finish, is_acceptable, nearest_gauge, Choice, Request, Selection, Warnings,
+    evaluate_gauge, finish, nearest_gauge, standing, Choice, Request, Selection, Standing, Warnings,
 };
 use crate::strings::kind::{Gauge, StringKind};
 use crate::strings::physics;
@@ -104,7 +108,8 @@ pub struct Shared {
 /// One gauge judged over every tuning.
 #[derive(Debug, Clone, Copy)]
 struct Judged {
-    on_target: bool,
+    /// The worst of the gauge's standings over the tunings ([`Standing`]).
+    standing: Standing,
     /// (danger somewhere, wider than the slot, outside the window somewhere, score): smaller is
     /// better; the selector's fallback ranking when there is one tuning.
     key: (bool, bool, bool, f64),
@@ -134,12 +139,12 @@ fn judge(
     balance: Balance,
 ) -> Judged {
     let mut judged = Judged {
-        on_target: true,
+        standing: Standing::OnTarget,
         key: (false, false, false, f64::MIN),
     };
     for request in requests {
         let choice = evaluate_gauge(request, kind, gauges, gauge, required_unit_mass(request));
-        judged.on_target &= is_acceptable(&choice, request.tolerance);
+        judged.standing = judged.standing.max(standing(&choice, request.tolerance));
         judged.key.0 |= choice.warnings.contains(Warnings::STRESS_DANGER);
         judged.key.1 |= choice.warnings.contains(Warnings::WIDER_THAN_SLOT);
         judged.key.2 |= choice
@@ -180,11 +185,13 @@ pub fn choose(
         return None;
     }
     let mut first_on_target: Option<Shared> = None;
+    let mut first_reserved: Option<Shared> = None;
     let mut least_wrong: Option<(Shared, (bool, bool, bool, f64))> = None;
     for (kind, string_kind) in kinds.iter().enumerate() {
         let gauges = string_kind.gauges();
         let mut best_here: Option<(usize, f64)> = None;
         let mut on_target_here: Option<(usize, f64)> = None;
+        let mut reserved_here: Option<(usize, f64)> = None;
         for gauge in candidates(requests, gauges) {
             let judged = judge(requests, kind, gauges, gauge, balance);
             let score = judged.key.3;
@@ -192,8 +199,15 @@ pub fn choose(
             if fits && best_here.is_none_or(|(_, best)| score < best) {
                 best_here = Some((gauge, score));
             }
-            if judged.on_target && on_target_here.is_none_or(|(_, best)| score < best) {
-                on_target_here = Some((gauge, score));
+            let better = |here: Option<(usize, f64)>| here.is_none_or(|(_, best)| score < best);
+            match judged.standing {
+                Standing::OnTarget if better(on_target_here) => {
+                    on_target_here = Some((gauge, score));
+                }
+                Standing::WithReservations if better(reserved_here) => {
+                    reserved_here = Some((gauge, score));
+                }
+                _ => {}
             }
             if least_wrong.is_none_or(|(_, key)| is_less(judged.key, key)) {
                 let agreement = if judged.serves() {
@@ -214,15 +228,21 @@ pub fn choose(
         if let Some(slot) = best_per_kind.get_mut(kind) {
             *slot = best_here.map(|(gauge, _)| gauge);
         }
+        let on_target = |(gauge, _): (usize, f64)| Shared {
+            kind,
+            gauge,
+            agreement: Agreement::OnTarget,
+        };
         if first_on_target.is_none() {
-            first_on_target = on_target_here.map(|(gauge, _)| Shared {
-                kind,
-                gauge,
-                agreement: Agreement::OnTarget,
-            });
+            first_on_target = on_target_here.map(on_target);
+        }
+        if first_reserved.is_none() {
+            first_reserved = reserved_here.map(on_target);
         }
     }
-    first_on_target.or(least_wrong.map(|(shared, _)| shared))
+    first_on_target
+        .or(first_reserved)
+        .or(least_wrong.map(|(shared, _)| shared))
 }
 
 /// Whether any gauge of any of `kinds` serves every one of `requests` (in danger nowhere,
@@ -274,5 +294,15 @@ pub fn selection_in(
     let chosen = kinds
         .get(shared.kind)
         .map(|kind| evaluate_gauge(request, shared.kind, kind.gauges(), shared.gauge, required));
-    finish(request, kinds, chosen, required, any_within_tolerance)
+    let standing = chosen.map_or(Standing::Closest, |choice| {
+        standing(&choice, request.tolerance)
+    });
+    finish(
+        request,
+        kinds,
+        chosen,
+        standing,
+        required,
+        any_within_tolerance,
+    )
 }

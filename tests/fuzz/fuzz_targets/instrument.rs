@@ -4,7 +4,7 @@
 
 use libfuzzer_sys::fuzz_target;
 use taut::instrument::Instrument;
-use taut::strings::kind::StringKinds;
+use taut::strings::stock::Stock;
 use taut::tuning::library;
 
 fuzz_target!(|text: &str| {
@@ -18,10 +18,10 @@ fuzz_target!(|text: &str| {
     let Some(Ok(tuning)) = library::load("12edo") else {
         panic!("the shipped 12edo must load");
     };
-    let Ok(kinds) = StringKinds::builtin() else {
-        panic!("the shipped kinds must load");
+    let Ok(stock) = Stock::builtin() else {
+        panic!("the shipped stock must load");
     };
-    match taut::plan::solve::solve(&instrument, &tuning, kinds, None) {
+    match taut::plan::solve::solve(&instrument, &tuning, stock, None) {
         Ok(plan) => {
             assert!(plan.total_tension_n.is_finite(), "total {}", plan.total_tension_n);
             for course in &plan.courses {
