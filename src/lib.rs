@@ -11,6 +11,7 @@
 //! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]) and warnings ([`plan::warning`]) |
 //! | 6. sets | [`sets`] | string-set files, auditing a set, converting a set to a new tuning or scale |
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
+//! | 7. survey | [`survey`] | search tunings, offsets and course patterns for stringable settings, ranked |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -26,6 +27,7 @@ pub mod lengths;
 pub mod plan;
 pub mod sets;
 pub mod strings;
+pub mod survey;
 pub mod tuning;
 
 pub use error::{Error, Result};

@@ -7,6 +7,7 @@ mod lengths;
 mod output;
 mod plan;
 mod stock;
+mod survey;
 mod text;
 mod tuning;
 
@@ -34,6 +35,8 @@ enum Command {
     Convert(convert::ConvertArgs),
     /// Solve vibrating lengths from pitch, string and tension, for builders.
     Lengths(lengths::LengthsArgs),
+    /// Search tunings, offsets and course patterns for stringable settings, ranked.
+    Survey(survey::SurveyArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -55,6 +58,7 @@ pub fn main() -> ExitCode {
         Command::Audit(args) => audit::run(args),
         Command::Convert(args) => convert::run(args),
         Command::Lengths(args) => lengths::run(args),
+        Command::Survey(args) => survey::run(&args),
     };
     output::finish(result)
 }

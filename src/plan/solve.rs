@@ -110,7 +110,8 @@ pub fn solve(
     })
 }
 
-fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
+/// The stress limits `instrument` sets (its own `stress_limits` over the defaults), checked.
+pub fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
     let mut limits = StressLimits::default();
     if let Some(own) = instrument.stress_limits {
         if let Some(caution) = own.caution {
