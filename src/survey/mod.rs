@@ -230,6 +230,9 @@ pub enum Verdict {
 pub struct Ranked {
     /// 1 for the best.
     pub rank: usize,
+    /// The candidate's number in the order they are generated (tuning, then pattern, then
+    /// offset), from 0.
+    pub candidate: u64,
     /// The tuning's name.
     pub tuning: String,
     /// Offset of course 1 from the settings' `course_1`, cents.
@@ -275,6 +278,9 @@ pub struct Report {
     pub results: Vec<Ranked>,
     /// The full plan of the best candidate, from the plain plan solver.
     pub best_plan: Option<Plan>,
+    /// The best candidate's number (for [`Survey::candidate_plan`]).
+    #[serde(skip)]
+    pub best_candidate: Option<u64>,
 }
 
 impl<'a> Survey<'a> {

@@ -218,9 +218,19 @@ impl Found {
 }
 
 impl Survey<'_> {
-    /// Checks every candidate and ranks the stringable ones; `progress` is told how many
-    /// candidates each finished chunk held. Runs on the current rayon pool.
+    /// Checks every candidate, ranks the stringable ones and solves the best with the plain
+    /// plan solver; `progress` is told how many candidates each finished chunk held. Runs on the
+    /// current rayon pool.
     pub fn run(&self, progress: &(dyn Fn(u64) + Sync)) -> crate::error::Result<Report> {
+        let mut report = self.search(progress);
+        if let Some(best) = report.best_candidate {
+            report.best_plan = Some(self.candidate_plan(best)?);
+        }
+        Ok(report)
+    }
+
+    /// [`Survey::run`] without the best candidate's plan: the sweep and the ranking only.
+    pub fn search(&self, progress: &(dyn Fn(u64) + Sync)) -> Report {
         let started = Instant::now();
         let rule = self.settings.rank_by;
         let top = self.settings.top;
@@ -281,11 +291,8 @@ impl Survey<'_> {
             .enumerate()
             .map(|(rank, entry)| self.ranked(rank + 1, entry))
             .collect();
-        let best_plan = match found.best.first() {
-            Some(best) => Some(self.candidate_plan(best.index)?),
-            None => None,
-        };
-        Ok(Report {
+        Report {
+            best_candidate: found.best.first().map(|best| best.index),
             instrument: self.instrument.name.clone(),
             rank_by: rule,
             ranking_rule: rule.statement().to_string(),
@@ -295,8 +302,8 @@ impl Survey<'_> {
             rejected: found.rejected,
             elapsed_s,
             results,
-            best_plan,
-        })
+            best_plan: None,
+        }
     }
 
     fn ranked(&self, rank: usize, entry: &Entry) -> Ranked {
@@ -305,6 +312,7 @@ impl Survey<'_> {
         let metrics = entry.metrics;
         Ranked {
             rank,
+            candidate: entry.index,
             tuning: pair.tuning_name.clone(),
             offset_cents: self.settings.offsets.cents(offset as u64),
             course_1_hz: self.course_1_hz(entry.index),

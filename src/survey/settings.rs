@@ -217,7 +217,7 @@ impl Settings {
                 if edos.to.0 < edos.from.0 {
                     return Err(settings.point(
                         Error::input(format!(
-                            "the range of EDOs is empty: `to` ({}) is below `from` ({})",
+                            "the range of EDOs is empty: `to` ({}) is below `from` ({}), so the survey would try 0 candidates",
                             edos.to.0, edos.from.0
                         )),
                         &[PathStep::Key("tunings"), PathStep::Key("edos")],
@@ -251,7 +251,10 @@ impl Settings {
             settings.offsets =
                 CentsRange::new(range.from.0, range.to.0, range.step.0).map_err(|err| {
                     settings.point(
-                        Error::input(err.message),
+                        Error::input(format!(
+                            "{}; the survey would try no candidates",
+                            err.message
+                        )),
                         &[PathStep::Key("offset_cents"), PathStep::Key(err.field)],
                     )
                 })?;
