@@ -141,10 +141,14 @@ pub(super) fn evaluate(
         let outcome = &slot.table.outcomes[*segment];
         let tension = outcome.unit_mass * s;
         total += tension;
-        lowest = lowest.min(tension);
-        highest = highest.max(tension);
-        stress = stress.max(outcome.unit_mass_over_break * s);
-        target = target.max((outcome.unit_mass_over_target * s - 1.0).abs());
+        // Plain comparisons compile to single min/max instructions, where f64::min and max
+        // spend several on NaN; a NaN stress (strength unknown) is refused by its flag anyway.
+        lowest = if tension < lowest { tension } else { lowest };
+        highest = if tension > highest { tension } else { highest };
+        let string_stress = outcome.unit_mass_over_break * s;
+        stress = if string_stress > stress { string_stress } else { stress };
+        let error = (outcome.unit_mass_over_target * s - 1.0).abs();
+        target = if error > target { error } else { target };
         flags |= outcome.flags;
     }
     Metrics {
