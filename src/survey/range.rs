@@ -33,7 +33,7 @@ pub struct RangeError {
 impl CentsRange {
     /// One offset only.
     pub fn single(cents: f64) -> Result<CentsRange> {
-        let value = to_nanocents(cents).map_err(|message| Error::input(message))?;
+        let value = to_nanocents(cents).map_err(Error::input)?;
         Ok(CentsRange {
             from: value,
             step: SCALE,

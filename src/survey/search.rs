@@ -146,7 +146,11 @@ pub(super) fn evaluate(
         lowest = if tension < lowest { tension } else { lowest };
         highest = if tension > highest { tension } else { highest };
         let string_stress = outcome.unit_mass_over_break * s;
-        stress = if string_stress > stress { string_stress } else { stress };
+        stress = if string_stress > stress {
+            string_stress
+        } else {
+            stress
+        };
         let error = (outcome.unit_mass_over_target * s - 1.0).abs();
         target = if error > target { error } else { target };
         flags |= outcome.flags;
