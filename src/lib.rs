@@ -12,6 +12,7 @@
 //! | 6. sets | [`sets`] | string-set files, auditing a set (in one tuning or several, [`sets::several`]), converting a set to a new tuning or scale |
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
 //! | 6. frets | [`frets`] | fret positions for any tuning, straight or fanned, per course; the board drawing |
+//! | 7. survey | [`survey`] | search tunings, offsets and course patterns for stringable settings, ranked |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -28,6 +29,7 @@ pub mod lengths;
 pub mod plan;
 pub mod sets;
 pub mod strings;
+pub mod survey;
 pub mod tuning;
 
 pub use error::{Error, Result};

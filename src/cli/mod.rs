@@ -8,6 +8,7 @@ mod lengths;
 mod output;
 mod plan;
 mod stock;
+mod survey;
 mod text;
 mod tuning;
 
@@ -37,6 +38,8 @@ enum Command {
     Lengths(lengths::LengthsArgs),
     /// Lay out frets for any tuning, straight or fanned, per course; table, JSON, CSV or SVG.
     Frets(frets::FretsArgs),
+    /// Search tunings, offsets and course patterns for stringable settings, ranked.
+    Survey(survey::SurveyArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -59,6 +62,7 @@ pub fn main() -> ExitCode {
         Command::Convert(args) => convert::run(args),
         Command::Lengths(args) => lengths::run(args),
         Command::Frets(args) => frets::run(&args),
+        Command::Survey(args) => survey::run(&args),
     };
     output::finish(result)
 }

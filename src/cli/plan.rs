@@ -1,6 +1,6 @@
 //! `taut plan`: solve a string for every course of an instrument in a tuning.
 
-mod render;
+pub(crate) mod render;
 mod several;
 
 use std::path::PathBuf;

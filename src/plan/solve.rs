@@ -129,7 +129,8 @@ pub(crate) fn finish_plan(
     }
 }
 
-pub(crate) fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
+/// The stress limits `instrument` sets (its own `stress_limits` over the defaults), checked.
+pub fn stress_limits(instrument: &Instrument) -> Result<StressLimits> {
     let mut limits = StressLimits::default();
     if let Some(own) = instrument.stress_limits {
         if let Some(caution) = own.caution {

@@ -1,0 +1,220 @@
+//! `taut survey`: search tunings, offsets and course patterns for stringable settings.
+
+use std::io::IsTerminal;
+use std::path::PathBuf;
+
+use clap::{Args, ValueEnum};
+use indicatif::{ProgressBar, ProgressStyle};
+use serde::Serialize;
+
+use taut::error::{Error, Result};
+use taut::input::units::{ForceUnit, LengthUnit};
+use taut::instrument::Instrument;
+use taut::plan::warning::SAFETY_REMINDER;
+use taut::survey::{RankRule, Report, Settings, Survey, Verdict};
+
+use super::output::{self, OutputArgs, Render};
+use super::plan::{render, DisplayUnits};
+use super::stock::StockArgs;
+use super::text::{new_table, right};
+
+/// Ranking rules as the command line names them.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum RankChoice {
+    /// Smallest tension spread, then worst stress, then total load.
+    Spread,
+    /// Lowest worst stress ratio, then spread, then total load.
+    Stress,
+    /// Lowest total load, then spread, then worst stress.
+    Load,
+    /// Smallest worst distance from the target tension, then spread, then worst stress.
+    Target,
+}
+
+/// Arguments of `taut survey`.
+#[derive(Debug, Args)]
+#[command(
+    about = "Search tunings, pitch offsets and course patterns for the settings an instrument can be strung in, ranked",
+    after_help = "SETTINGS is a YAML file naming the tunings (`edos: {from: 5, to: 72}` or `list: [...]`), course 1's pitch (`course_1: E2`), the offsets to sweep (`offset_cents: {from: -600, to: 600, step: 0.1}`) and the course pattern (`nearest_to: 4/3`, `steps: [...]` or `modes_of: [...]`); README has the details.\n\nThe instrument's own tuning and course pitches are replaced by each candidate's; its lengths, kinds, tensions and limits apply.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+)]
+pub struct SurveyArgs {
+    /// Instrument definition (a YAML file) or the name of a built-in template.
+    #[arg(value_name = "INSTRUMENT")]
+    pub instrument: String,
+    /// Survey settings (a YAML file).
+    #[arg(value_name = "SETTINGS")]
+    pub settings: PathBuf,
+    /// List this many results instead of the settings' `top`.
+    #[arg(long, value_name = "N")]
+    pub top: Option<usize>,
+    /// Rank by this rule instead of the settings' `rank_by`.
+    #[arg(long, value_enum, value_name = "RULE")]
+    pub rank_by: Option<RankChoice>,
+    /// Use this many threads (default: one per core).
+    #[arg(long, value_name = "N")]
+    pub threads: Option<usize>,
+    #[command(flatten)]
+    pub stock: StockArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
+}
+
+/// Runs `taut survey`.
+pub fn run(args: &SurveyArgs) -> Result<()> {
+    let instrument = Instrument::load(&args.instrument)?;
+    let mut settings = Settings::load(&args.settings)?;
+    if let Some(top) = args.top {
+        if top == 0 || top > taut::survey::settings::MAX_TOP {
+            return Err(Error::input(format!(
+                "--top lists 1 to {} results",
+                taut::survey::settings::MAX_TOP
+            ))
+            .in_origin("--top"));
+        }
+        settings.top = top;
+    }
+    if let Some(rule) = args.rank_by {
+        settings.rank_by = match rule {
+            RankChoice::Spread => RankRule::Spread,
+            RankChoice::Stress => RankRule::Stress,
+            RankChoice::Load => RankRule::Load,
+            RankChoice::Target => RankRule::Target,
+        };
+    }
+    let stock = args.stock.load()?;
+    let survey = Survey::prepare(&instrument, &settings, &stock)?;
+    let report = match args.threads {
+        Some(threads) => {
+            if threads == 0 {
+                return Err(Error::input("--threads must be at least 1").in_origin("--threads"));
+            }
+            let pool = rayon::ThreadPoolBuilder::new()
+                .num_threads(threads)
+                .build()
+                .map_err(|err| Error::input(format!("cannot start {threads} threads: {err}")))?;
+            pool.install(|| search_with_progress(&survey))?
+        }
+        None => search_with_progress(&survey)?,
+    };
+    output::emit(&SurveyOutput { report: &report }, &args.output)
+}
+
+/// Course checks above which a progress bar is worth drawing.
+const PROGRESS_FROM_CHECKS: u64 = 50_000_000;
+
+fn search_with_progress(survey: &Survey<'_>) -> Result<Report> {
+    let size = survey.size();
+    let bar = if std::io::stderr().is_terminal() && size.course_checks >= PROGRESS_FROM_CHECKS {
+        let bar = ProgressBar::new(size.candidates);
+        if let Ok(style) = ProgressStyle::with_template(
+            "{bar:40} {percent:>3}% {pos}/{len} candidates, {eta} left",
+        ) {
+            bar.set_style(style);
+        }
+        bar
+    } else {
+        ProgressBar::hidden()
+    };
+    let report = survey.run(&|done| bar.inc(done));
+    bar.finish_and_clear();
+    report
+}
+
+/// A report as the shared writer takes it: JSON is the report itself.
+#[derive(Serialize)]
+#[serde(transparent)]
+struct SurveyOutput<'a> {
+    report: &'a Report,
+}
+
+impl Render for SurveyOutput<'_> {
+    fn table(&self) -> String {
+        let report = self.report;
+        let mut out = format!(
+            "Survey of {}: {} candidates, {} course checks in {:.3} s; {} stringable.\nRanked by {}.\n",
+            report.instrument,
+            report.candidates,
+            report.course_checks,
+            report.elapsed_s,
+            report.stringable,
+            report.ranking_rule
+        );
+        let rejected = report.rejected;
+        let reasons: Vec<String> = [
+            (rejected.stress_danger, "a string in danger"),
+            (rejected.outside_catalog, "a string outside its catalog"),
+            (rejected.outside_window, "a tension outside the window"),
+            (rejected.wider_than_slot, "a string wider than its slot"),
+            (rejected.strength_unknown, "a string of unknown strength"),
+            (rejected.over_rated_load, "total load above the rated load"),
+        ]
+        .iter()
+        .filter(|(count, _)| *count > 0)
+        .map(|(count, reason)| format!("{count} with {reason}"))
+        .collect();
+        if !reasons.is_empty() {
+            out.push_str(&format!("Refused: {}.\n", reasons.join(", ")));
+        }
+        if report.results.is_empty() {
+            out.push_str("\nNo candidate is stringable.\n");
+            out.push_str(SAFETY_REMINDER);
+            out.push('\n');
+            return out;
+        }
+        let mut table = new_table(vec![
+            "Rank",
+            "Tuning",
+            "Offset",
+            "Course 1",
+            "Pattern",
+            "Steps",
+            "Spread",
+            "Worst stress",
+            "Load",
+            "Off target",
+            "Verdict",
+        ]);
+        for result in &report.results {
+            let steps: Vec<String> = result
+                .course_pattern
+                .steps
+                .iter()
+                .map(i64::to_string)
+                .collect();
+            table.add_row(vec![
+                right(result.rank.to_string()),
+                result.tuning.clone().into(),
+                right(format!("{:+}c", result.offset_cents)),
+                right(format!("{:.2} Hz", result.course_1_hz)),
+                result.course_pattern.rule.clone().into(),
+                steps.join(" ").into(),
+                right(format!("{:.1} N", result.tension_spread_n)),
+                right(format!("{:.0}%", result.worst_stress_ratio * 100.0)),
+                right(format!("{:.0} N", result.total_load_n)),
+                right(format!("{:.1}%", result.worst_target_error * 100.0)),
+                match result.verdict {
+                    Verdict::Stringable => "stringable",
+                    Verdict::StringableWithCaution => "stringable, caution",
+                }
+                .into(),
+            ]);
+        }
+        out.push('\n');
+        out.push_str(&table.to_string());
+        out.push('\n');
+        if let (Some(best), Some(plan)) = (report.results.first(), &report.best_plan) {
+            out.push_str(&format!(
+                "\nThe best candidate in full: {} with course 1 at {:+} cents ({:.2} Hz)\n",
+                best.tuning, best.offset_cents, best.course_1_hz
+            ));
+            out.push_str(&render::table(
+                plan,
+                DisplayUnits {
+                    force: ForceUnit::Lbf,
+                    length: LengthUnit::Mm,
+                },
+            ));
+        }
+        out
+    }
+}
