@@ -11,6 +11,7 @@
 //! | 5. plan | [`plan`] | the plan model, the per-course solve ([`plan::solve`]) and warnings ([`plan::warning`]) |
 //! | 6. sets | [`sets`] | string-set files, auditing a set, converting a set to a new tuning or scale |
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
+//! | 7. charts | [`charts`] | pictures and exports of any result: chart data, SVG/PNG drawing, the builder's string chart, flat CSV records |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -19,6 +20,7 @@
     deny(clippy::unwrap_used, clippy::expect_used, clippy::panic)
 )]
 
+pub mod charts;
 pub mod error;
 pub mod input;
 pub mod instrument;

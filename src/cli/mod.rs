@@ -5,6 +5,7 @@ mod audit;
 mod convert;
 mod lengths;
 mod output;
+mod pictures;
 mod plan;
 mod stock;
 mod text;
