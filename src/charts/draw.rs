@@ -263,6 +263,30 @@ fn trim_number(value: f64) -> String {
 }
 
 type Area<DB> = DrawingArea<DB, Shift>;
+
+/// The title and its pixel size: smaller type for a long title, then cut with `…` if still too
+/// wide, so it never runs off the picture.
+fn fitted_title<DB: DrawingBackend>(area: &Area<DB>, title: &str, room: u32) -> (String, u32) {
+    let fits = |text: &str, px: u32| {
+        area.estimate_text_size(text, &font(px))
+            .is_ok_and(|(width, _)| width <= room)
+    };
+    for px in (TITLE_PX - 6..=TITLE_PX).rev().step_by(2) {
+        if fits(title, px) {
+            return (title.to_string(), px);
+        }
+    }
+    let px = TITLE_PX - 6;
+    let mut chars: Vec<char> = title.chars().collect();
+    while chars.len() > 8 {
+        chars.pop();
+        let cut = format!("{}…", chars.iter().collect::<String>().trim_end());
+        if fits(&cut, px) {
+            return (cut, px);
+        }
+    }
+    (title.to_string(), px)
+}
 type DrawResult<DB> =
     std::result::Result<(), DrawingAreaErrorKind<<DB as DrawingBackend>::ErrorType>>;
 
@@ -297,9 +321,11 @@ fn paint<DB: DrawingBackend>(root: &Area<DB>, chart: &Chart, nudge: i32) -> Draw
         );
         (axis, range)
     });
+    let (width, _) = plot_area.dim_in_pixel();
+    let title = fitted_title(&plot_area, &chart.title, width.saturating_sub(40));
     let mut builder = ChartBuilder::on(&plot_area);
     builder
-        .caption(&chart.title, font(TITLE_PX))
+        .caption(&title.0, font(title.1))
         .margin_top(12)
         .margin_left(16)
         .margin_right(if secondary_axis.is_some() { 16 } else { 32 })
@@ -309,9 +335,46 @@ fn paint<DB: DrawingBackend>(root: &Area<DB>, chart: &Chart, nudge: i32) -> Draw
         builder.right_y_label_area_size(86);
     }
     let x = x_coord(chart);
-    let mut context = builder.build_cartesian_2d(x, y_range.clone())?;
-    let grid = colour(palette::GRID);
-    let ink = colour(palette::INK);
+    let context = builder.build_cartesian_2d(x, y_range.clone())?;
+    match secondary_axis {
+        Some((axis, range)) => {
+            let (from, to) = (range.clone(), y_range);
+            let rescale = move |y: f64| {
+                to.start + (y - from.start) / (from.end - from.start) * (to.end - to.start)
+            };
+            let x = x_coord(chart);
+            // The primary mesh is drawn only now: before this, it would also label the right
+            // axis, which belongs to the secondary scale.
+            let mut dual = context.set_secondary_coord(x, range);
+            mesh(&mut dual, chart, nudge)?;
+            let y_formatter = |y: &f64| trim_number(*y);
+            dual.configure_secondary_axes()
+                .y_desc(axis.label.as_str())
+                .axis_desc_style(font(AXIS_PX))
+                .label_style(font(TICK_PX))
+                .y_label_formatter(&y_formatter)
+                .y_labels(8)
+                .y_label_offset(nudge)
+                .axis_style(colour(palette::INK).stroke_width(1))
+                .draw()?;
+            draw_data(&mut dual, chart, &rescale)?;
+        }
+        None => {
+            let mut context = context;
+            mesh(&mut context, chart, nudge)?;
+            draw_data(&mut context, chart, &|y| y)?;
+        }
+    }
+    draw_legend(&legend_area, chart, nudge)
+}
+
+type Coord = Cartesian2d<Ticked, RangedCoordf64>;
+
+fn mesh<DB: DrawingBackend>(
+    context: &mut ChartContext<'_, DB, Coord>,
+    chart: &Chart,
+    nudge: i32,
+) -> DrawResult<DB> {
     let formatter = |x: &f64| tick_text(chart, *x);
     let y_formatter = |y: &f64| trim_number(*y);
     context
@@ -324,40 +387,11 @@ fn paint<DB: DrawingBackend>(root: &Area<DB>, chart: &Chart, nudge: i32) -> Draw
         .y_label_formatter(&y_formatter)
         .y_labels(8)
         .y_label_offset(nudge)
-        .bold_line_style(grid.stroke_width(1))
+        .bold_line_style(colour(palette::GRID).stroke_width(1))
         .light_line_style(TRANSPARENT)
-        .axis_style(ink.stroke_width(1))
-        .draw()?;
-    let rescale: Box<dyn Fn(f64) -> f64> = match &secondary_axis {
-        Some((_, range)) => {
-            let (from, to) = (range.clone(), y_range.clone());
-            Box::new(move |y| {
-                to.start + (y - from.start) / (from.end - from.start) * (to.end - to.start)
-            })
-        }
-        None => Box::new(|y| y),
-    };
-    match secondary_axis {
-        Some((axis, range)) => {
-            let x = x_coord(chart);
-            let mut dual = context.set_secondary_coord(x, range);
-            dual.configure_secondary_axes()
-                .y_desc(axis.label.as_str())
-                .axis_desc_style(font(AXIS_PX))
-                .label_style(font(TICK_PX))
-                .y_label_formatter(&y_formatter)
-                .y_labels(8)
-                .y_label_offset(nudge)
-                .axis_style(ink.stroke_width(1))
-                .draw()?;
-            draw_data(&mut dual, chart, &*rescale)?;
-        }
-        None => draw_data(&mut context, chart, &*rescale)?,
-    }
-    draw_legend(&legend_area, chart, nudge)
+        .axis_style(colour(palette::INK).stroke_width(1))
+        .draw()
 }
-
-type Coord = Cartesian2d<Ticked, RangedCoordf64>;
 
 fn draw_data<DB: DrawingBackend>(
     context: &mut ChartContext<'_, DB, Coord>,
@@ -366,9 +400,11 @@ fn draw_data<DB: DrawingBackend>(
 ) -> DrawResult<DB> {
     let band_fill = colour(palette::BAND).filled();
     for band in &chart.bands {
-        context.draw_series(band.edges.iter().map(|&(x, low, high)| {
-            Rectangle::new([(x - 0.42, low), (x + 0.42, high)], band_fill)
-        }))?;
+        context.draw_series(
+            band.edges.iter().map(|&(x, low, high)| {
+                Rectangle::new([(x - 0.5, low), (x + 0.5, high)], band_fill)
+            }),
+        )?;
     }
     let (x_low, x_high) = {
         let range = context.x_range();
