@@ -142,8 +142,10 @@ body { font-family: "DejaVu Sans", Verdana, sans-serif; color: var(--ink); margi
 h1 { font-size: 1.5rem; margin: 0 0 4px; }
 h2 { font-size: 1.15rem; margin: 24px 0 8px; border-bottom: 2px solid var(--ink); }
 p.summary { margin: 0 0 12px; }
-table { border-collapse: collapse; width: 100%; font-size: 0.9rem; font-variant-numeric: tabular-nums; }
-th, td { padding: 4px 6px; border-bottom: 1px solid var(--rule); text-align: right; white-space: nowrap; }
+table { border-collapse: collapse; width: 100%; font-size: 0.85rem; font-variant-numeric: tabular-nums; }
+th, td { padding: 4px 5px; border-bottom: 1px solid var(--rule); text-align: right; white-space: nowrap; }
+th { white-space: normal; }
+td.kind { white-space: normal; overflow-wrap: break-word; }
 th { background: var(--band); border-bottom: 2px solid var(--ink); vertical-align: bottom; }
 th.text, td.text { text-align: left; }
 tr.first td { border-top: 1px solid var(--ink); }
@@ -166,7 +168,8 @@ footer { font-size: 0.8rem; margin-top: 24px; color: #555; }
   thead { display: table-header-group; }
   tr { break-inside: avoid; page-break-inside: avoid; }
   section.charts { break-before: page; page-break-before: always; }
-  figure svg { border: none; }
+  figure svg { border: none; max-height: 105mm; }
+  figure { margin: 6mm 0; }
   th { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
 }
 "#;
@@ -218,7 +221,7 @@ pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
             "<figure id=\"chart-{}\">\n{}<figcaption>{}</figcaption>\n</figure>\n",
             named.name,
             &svg[start..],
-            escape(&named.chart.title)
+            escape(caption(named.name))
         ));
     }
     out.push_str("</section>\n");
@@ -249,6 +252,16 @@ pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
     );
     out.push_str("</body>\n</html>\n");
     Ok(out)
+}
+
+/// What to read in each chart of a plan.
+fn caption(name: &str) -> &'static str {
+    match name {
+        "tension" => "Tension of each string at pitch. Shaded: the course's tension window, where the instrument states one; dashed: the target; rings: strings with a caution (thin) or danger (thick).",
+        "stress" => "Stress in each string as a share of its breaking strength. Above the dashed line: caution; above the solid line: danger of breaking while tuning up.",
+        "diameter" => "Outer diameter of each string, one mark shape per construction: check that the nut slots and bridge holes take them.",
+        _ => "",
+    }
 }
 
 fn table(plan: &Plan) -> String {
@@ -286,7 +299,7 @@ fn table(plan: &Plan) -> String {
             classes.push(format!("flag-{}", row.flag));
         }
         out.push_str(&format!(
-            "<tr class=\"{}\"><td>{}</td><td>{}</td><td class=\"text\">{}</td><td class=\"text\">{}</td><td>{:.2}</td><td>{:.1}</td><td class=\"text\">{}</td><td class=\"text\">{}</td><td>{:.3}</td><td>{:.4}</td><td>{:.1}</td><td>{:.1}</td><td>{:.0}</td><td class=\"flag\">{}</td></tr>\n",
+            "<tr class=\"{}\"><td>{}</td><td>{}</td><td class=\"text\">{}</td><td class=\"text\">{}</td><td>{:.2}</td><td>{:.1}</td><td class=\"text kind\">{}</td><td class=\"text\">{}</td><td>{:.3}</td><td>{:.4}</td><td>{:.1}</td><td>{:.1}</td><td>{:.0}</td><td class=\"flag\">{}</td></tr>\n",
             classes.join(" "),
             row.course,
             row.string,

@@ -3,6 +3,7 @@
 
 mod audit;
 mod convert;
+mod generate;
 mod lengths;
 mod output;
 mod pictures;
@@ -35,6 +36,8 @@ enum Command {
     Convert(convert::ConvertArgs),
     /// Solve vibrating lengths from pitch, string and tension, for builders.
     Lengths(lengths::LengthsArgs),
+    /// Make shell completions or the manual pages from this command line.
+    Generate(generate::GenerateArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -56,6 +59,7 @@ pub fn main() -> ExitCode {
         Command::Audit(args) => audit::run(args),
         Command::Convert(args) => convert::run(args),
         Command::Lengths(args) => lengths::run(args),
+        Command::Generate(args) => generate::run(args),
     };
     output::finish(result)
 }
