@@ -36,8 +36,16 @@ fn same_strings(left: &StringSet, right: &StringSet) -> bool {
                 && a.strings.len() == b.strings.len()
                 && a.strings.iter().zip(&b.strings).all(|pair| match pair {
                     (
-                        SetString::Kind { kind: k1, diameter: d1, core_diameter: c1 },
-                        SetString::Kind { kind: k2, diameter: d2, core_diameter: c2 },
+                        SetString::Kind {
+                            kind: k1,
+                            diameter: d1,
+                            core_diameter: c1,
+                        },
+                        SetString::Kind {
+                            kind: k2,
+                            diameter: d2,
+                            core_diameter: c2,
+                        },
                     ) => k1 == k2 && (d1 - d2).abs() < 1e-9 && c1 == c2,
                     _ => false,
                 })
@@ -58,7 +66,8 @@ fn same_document(left: &serde_json::Value, right: &serde_json::Value) -> bool {
         }
         (Value::Object(a), Value::Object(b)) => {
             a.len() == b.len()
-                && a.iter().all(|(k, v)| b.get(k).is_some_and(|w| same_document(v, w)))
+                && a.iter()
+                    .all(|(k, v)| b.get(k).is_some_and(|w| same_document(v, w)))
         }
         (a, b) => a == b,
     }
@@ -92,22 +101,45 @@ fn the_string_chart_page_is_complete_and_self_contained() {
     assert_eq!(select(&page, "html[lang=en]").len(), 1);
     assert_eq!(select(&page, "meta[charset=utf-8]").len(), 1);
     let title = select(&page, "title")[0].text().collect::<String>();
-    assert!(title.contains(plan["instrument"].as_str().unwrap()), "{title}");
+    assert!(
+        title.contains(plan["instrument"].as_str().unwrap()),
+        "{title}"
+    );
     // One table row per string, and the columns a builder needs.
-    assert_eq!(select(&page, "section.strings table tbody tr").len(), strings);
+    assert_eq!(
+        select(&page, "section.strings table tbody tr").len(),
+        strings
+    );
     let heads: Vec<String> = select(&page, "thead th")
         .iter()
         .map(|th| th.text().collect())
         .collect();
-    for column in ["Pitch", "Length mm", "Kind", "Gauge", "⌀ mm", "Tension N", "Stress %"] {
-        assert!(heads.iter().any(|h| h == column), "no {column} in {heads:?}");
+    for column in [
+        "Pitch",
+        "Length mm",
+        "Kind",
+        "Gauge",
+        "⌀ mm",
+        "Tension N",
+        "Stress %",
+    ] {
+        assert!(
+            heads.iter().any(|h| h == column),
+            "no {column} in {heads:?}"
+        );
     }
     // The three plan charts, inline, each a figure with a caption.
     for name in ["tension", "stress", "diameter"] {
         let figure = select(&page, &format!("figure#chart-{name}"));
         assert_eq!(figure.len(), 1, "{name}");
-        assert_eq!(select(&page, &format!("figure#chart-{name} > svg")).len(), 1);
-        assert_eq!(select(&page, &format!("figure#chart-{name} > figcaption")).len(), 1);
+        assert_eq!(
+            select(&page, &format!("figure#chart-{name} > svg")).len(),
+            1
+        );
+        assert_eq!(
+            select(&page, &format!("figure#chart-{name} > figcaption")).len(),
+            1
+        );
     }
     // The safety cautions are there, and nothing is loaded from anywhere.
     assert!(select(&page, "section.cautions li").len() >= 3);
@@ -115,7 +147,11 @@ fn the_string_chart_page_is_complete_and_self_contained() {
     for element in select(&page, "[src], [href]") {
         panic!("external reference: {}", element.html());
     }
-    assert!(!text.contains("http://") || text.matches("http://").count() == text.matches("http://www.w3.org/2000/svg").count());
+    assert!(
+        !text.contains("http://")
+            || text.matches("http://").count()
+                == text.matches("http://www.w3.org/2000/svg").count()
+    );
     assert!(!text.contains("https://"));
     assert!(!text.contains("@import") && !text.contains("url("));
     // Print styles for A4 and Letter: page margins, no fixed paper size, header rows repeat.
@@ -132,7 +168,12 @@ fn the_string_chart_page_is_complete_and_self_contained() {
 fn the_string_chart_csv_has_one_row_per_string() {
     let folder = tempfile::tempdir().unwrap();
     let path = folder.path().join("chart.csv");
-    run_ok(&["plan", "guitar-19edo", "--string-chart", path.to_str().unwrap()]);
+    run_ok(&[
+        "plan",
+        "guitar-19edo",
+        "--string-chart",
+        path.to_str().unwrap(),
+    ]);
     let text = fs::read_to_string(&path).unwrap();
     let lines: Vec<&str> = text.lines().collect();
     assert_eq!(
@@ -154,13 +195,26 @@ fn a_plan_exported_as_json_or_yaml_reads_back_as_the_same_string_set() {
     let set_path = folder.path().join("set.yaml");
     let stock = Stock::builtin().unwrap();
     for example in ["guitar-19edo", "fanned-8-just", "lever-harp-34"] {
-        let json_text = run_ok(&["plan", example, "--format", "json", "--save-set", set_path.to_str().unwrap()]);
+        let json_text = run_ok(&[
+            "plan",
+            example,
+            "--format",
+            "json",
+            "--save-set",
+            set_path.to_str().unwrap(),
+        ]);
         let saved = StringSet::load(&set_path, stock).unwrap();
         let from_json: Plan = serde_json::from_slice(&json_text).unwrap();
-        assert!(same_strings(&StringSet::from_plan(&from_json), &saved), "{example} (JSON)");
+        assert!(
+            same_strings(&StringSet::from_plan(&from_json), &saved),
+            "{example} (JSON)"
+        );
         let yaml_text = String::from_utf8(run_ok(&["plan", example, "--format", "yaml"])).unwrap();
         let from_yaml: Plan = taut::input::yaml::parse(&yaml_text, "export.yaml").unwrap();
-        assert!(same_strings(&StringSet::from_plan(&from_yaml), &saved), "{example} (YAML)");
+        assert!(
+            same_strings(&StringSet::from_plan(&from_yaml), &saved),
+            "{example} (YAML)"
+        );
         // And the two exports say the same thing.
         assert!(same_document(
             &serde_json::to_value(&from_yaml).unwrap(),
@@ -173,13 +227,64 @@ fn a_plan_exported_as_json_or_yaml_reads_back_as_the_same_string_set() {
 #[test]
 fn every_report_exports_as_csv_and_yaml_with_the_json_field_names() {
     let reports: [(&[&str], &str, &[&str]); 8] = [
-        (&["audit", "examples/guitar-22edo-mode.yaml", "--set", "examples/steel-guitar-set.yaml"], "courses", &["course", "pitch_hz", "verdict", "string.tension_n", "string.feel.bend_cents"]),
-        (&["convert", "examples/steel-guitar-12edo.yaml", "--set", "examples/steel-guitar-set.yaml", "--to-instrument", "examples/baritone-guitar.yaml"], "courses", &["course", "pitch_after", "string.after.tension_n", "string.before.tension_n"]),
-        (&["lengths", "examples/psaltery-layout.yaml"], "courses", &["course", "length_m", "tension_n", "feel.inharmonicity_b"]),
-        (&["tuning", "show", "19edo", "--to", "4"], "rows", &["degree", "cents_from_reference", "hz"]),
-        (&["tuning", "fit", "12edo", "--limit", "5"], "intervals", &["interval", "just_cents", "error_cents"]),
-        (&["tuning", "compare", "12edo", "just-5-limit", "--to", "4"], "rows", &["left_degree", "difference_cents"]),
-        (&["tuning", "find", "31edo", "A4", "5/4"], "pitches", &["written", "nearest_note"]),
+        (
+            &[
+                "audit",
+                "examples/guitar-22edo-mode.yaml",
+                "--set",
+                "examples/steel-guitar-set.yaml",
+            ],
+            "courses",
+            &[
+                "course",
+                "pitch_hz",
+                "verdict",
+                "string.tension_n",
+                "string.feel.bend_cents",
+            ],
+        ),
+        (
+            &[
+                "convert",
+                "examples/steel-guitar-12edo.yaml",
+                "--set",
+                "examples/steel-guitar-set.yaml",
+                "--to-instrument",
+                "examples/baritone-guitar.yaml",
+            ],
+            "courses",
+            &[
+                "course",
+                "pitch_after",
+                "string.after.tension_n",
+                "string.before.tension_n",
+            ],
+        ),
+        (
+            &["lengths", "examples/psaltery-layout.yaml"],
+            "courses",
+            &["course", "length_m", "tension_n", "feel.inharmonicity_b"],
+        ),
+        (
+            &["tuning", "show", "19edo", "--to", "4"],
+            "rows",
+            &["degree", "cents_from_reference", "hz"],
+        ),
+        (
+            &["tuning", "fit", "12edo", "--limit", "5"],
+            "intervals",
+            &["interval", "just_cents", "error_cents"],
+        ),
+        (
+            &["tuning", "compare", "12edo", "just-5-limit", "--to", "4"],
+            "rows",
+            &["left_degree", "difference_cents"],
+        ),
+        (
+            &["tuning", "find", "31edo", "A4", "5/4"],
+            "pitches",
+            &["written", "nearest_note"],
+        ),
         (&["tuning", "list"], "tunings", &["name", "description"]),
     ];
     for (args, list, columns) in reports {
@@ -193,9 +298,17 @@ fn every_report_exports_as_csv_and_yaml_with_the_json_field_names() {
         csv_args.extend(["--format", "csv"]);
         let csv_text = String::from_utf8(run_ok(&csv_args)).unwrap();
         let mut reader = csv::Reader::from_reader(csv_text.as_bytes());
-        let header: Vec<String> = reader.headers().unwrap().iter().map(str::to_string).collect();
+        let header: Vec<String> = reader
+            .headers()
+            .unwrap()
+            .iter()
+            .map(str::to_string)
+            .collect();
         for column in columns {
-            assert!(header.iter().any(|h| h == column), "{args:?}: no {column} in {header:?}");
+            assert!(
+                header.iter().any(|h| h == column),
+                "{args:?}: no {column} in {header:?}"
+            );
         }
         let items = from_json[list].as_array().unwrap();
         let per_item: usize = items
@@ -203,7 +316,10 @@ fn every_report_exports_as_csv_and_yaml_with_the_json_field_names() {
             .map(|item| item["strings"].as_array().map_or(1, Vec::len))
             .sum();
         assert_eq!(reader.records().count(), per_item, "{args:?}");
-        assert!(!csv_text.contains("NaN") && !csv_text.contains("inf") && !csv_text.contains("null"), "{args:?}");
+        assert!(
+            !csv_text.contains("NaN") && !csv_text.contains("inf") && !csv_text.contains("null"),
+            "{args:?}"
+        );
     }
 }
 
@@ -218,11 +334,20 @@ fn output_files_are_replaced_whole_and_left_alone_on_refusal() {
     // Overwriting needs no --force: a file is replaced whole, and no temporary file stays.
     taut()
         .current_dir(dir)
-        .args(["plan", "guitar-19edo", "--plot", "tension.png", "--string-chart", "chart.html"])
+        .args([
+            "plan",
+            "guitar-19edo",
+            "--plot",
+            "tension.png",
+            "--string-chart",
+            "chart.html",
+        ])
         .assert()
         .success();
     assert!(fs::read(&png).unwrap().starts_with(b"\x89PNG"));
-    assert!(fs::read_to_string(&html).unwrap().starts_with("<!DOCTYPE html>"));
+    assert!(fs::read_to_string(&html)
+        .unwrap()
+        .starts_with("<!DOCTYPE html>"));
     assert_eq!(names_in(dir), ["chart.html", "tension.png"]);
     // A refused option (bad chart name, bad extension, bad size) writes nothing at all.
     for bad in [

@@ -70,7 +70,11 @@ fn plan_charts_show_tension_stress_and_diameter() {
     }
     assert_eq!(main_discs(&tension), n + 1);
     let stress = render(folder.path(), &args, "stress", (800, 500));
-    for label in ["stress (% of breaking strength)", "caution (65 %)", "danger (85 %)"] {
+    for label in [
+        "stress (% of breaking strength)",
+        "caution (65 %)",
+        "danger (85 %)",
+    ] {
         assert!(stress.contains(label), "stress chart lacks {label}");
     }
     assert_eq!(main_discs(&stress), n + 1);
@@ -153,7 +157,11 @@ fn lengths_and_tuning_fit_charts() {
     let layout = ["lengths", "examples/psaltery-layout.yaml"];
     let n = courses(&json(&layout));
     let svg = render(folder.path(), &layout, "lengths", (1000, 600));
-    for label in ["vibrating length (mm)", "tension (N)", "tension profile (right axis)"] {
+    for label in [
+        "vibrating length (mm)",
+        "tension (N)",
+        "tension profile (right axis)",
+    ] {
         assert!(svg.contains(label), "lengths chart lacks {label}");
     }
     assert_eq!(main_discs(&svg), n + 1);
@@ -162,7 +170,12 @@ fn lengths_and_tuning_fit_charts() {
     let report = json(&fit);
     let intervals = report["intervals"].as_array().unwrap();
     let svg = render(folder.path(), &fit, "errors", (1000, 600));
-    for label in ["just interval (cents)", "tuning minus just (cents)", "5/4", "3/2"] {
+    for label in [
+        "just interval (cents)",
+        "tuning minus just (cents)",
+        "5/4",
+        "3/2",
+    ] {
         assert!(svg.contains(label), "fit chart lacks {label}");
     }
     assert_eq!(main_discs(&svg), intervals.len() + 1);
@@ -178,4 +191,47 @@ fn a_plot_without_a_chart_name_draws_the_first_chart() {
         .assert()
         .success();
     assert!(fs::read_to_string(&path).unwrap().contains("tension (N)"));
+}
+
+#[test]
+fn the_pictures_in_readme_are_current() {
+    // README shows docs/*.png; they are made by the commands README lists. Drawing is
+    // deterministic, so a changed chart shows here: rerun those commands inside docs/.
+    let folder = tempfile::tempdir().unwrap();
+    let root = Path::new(env!("CARGO_MANIFEST_DIR"));
+    let example = |name: &str| root.join("examples").join(name).display().to_string();
+    let cases = [
+        (
+            vec![
+                "audit".to_string(),
+                example("guitar-22edo-mode.yaml"),
+                "--set".to_string(),
+                example("steel-guitar-set.yaml"),
+                "--from-instrument".to_string(),
+                example("steel-guitar-12edo.yaml"),
+                "--plot".to_string(),
+                "stress=audit-stress.png".to_string(),
+            ],
+            "audit-stress.png",
+        ),
+        (
+            vec![
+                "lengths".to_string(),
+                example("psaltery-layout.yaml"),
+                "--plot".to_string(),
+                "bridge-line.png".to_string(),
+            ],
+            "bridge-line.png",
+        ),
+    ];
+    for (args, name) in cases {
+        taut()
+            .current_dir(folder.path())
+            .args(&args)
+            .assert()
+            .success();
+        let fresh = fs::read(folder.path().join(name)).unwrap();
+        let shipped = fs::read(root.join("docs").join(name)).unwrap();
+        assert!(fresh == shipped, "docs/{name} is out of date");
+    }
 }

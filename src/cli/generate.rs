@@ -92,7 +92,10 @@ pub fn run(args: GenerateArgs) -> Result<()> {
                     .help("create the folder first"));
             }
             output::write_atomically(&dir.join("taut.1"), &roff(command.clone(), "taut")?)?;
-            for sub in command.get_subcommands().filter(|sub| sub.get_name() != "help") {
+            for sub in command
+                .get_subcommands()
+                .filter(|sub| sub.get_name() != "help")
+            {
                 let title = format!("taut-{}", sub.get_name());
                 let page = sub.clone().bin_name(format!("taut {}", sub.get_name()));
                 output::write_atomically(&dir.join(format!("{title}.1")), &roff(page, &title)?)?;
