@@ -11,6 +11,7 @@ pub mod build;
 pub mod draw;
 pub mod palette;
 pub mod records;
+mod scale;
 pub mod sheet;
 
 use serde::Serialize;
