@@ -13,6 +13,7 @@
 //! | 6. lengths | [`lengths`] | vibrating lengths for builders from a tension profile |
 //! | 6. frets | [`frets`] | fret positions for any tuning, straight or fanned, per course; the board drawing |
 //! | 7. survey | [`survey`] | search tunings, offsets and course patterns for stringable settings, ranked |
+//! | 8. charts | [`charts`] | pictures and exports of any result: chart data, SVG/PNG drawing, the builder's string chart, flat CSV records |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -21,6 +22,7 @@
     deny(clippy::unwrap_used, clippy::expect_used, clippy::panic)
 )]
 
+pub mod charts;
 pub mod error;
 pub mod frets;
 pub mod input;

@@ -18,6 +18,7 @@ use taut::tuning;
 
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
+use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
 use taut::plan::solve::tuning_for;
@@ -85,7 +86,7 @@ impl FeelArgs {
 #[derive(Debug, Args)]
 #[command(
     about = "Check an installed string set under a tuning: tension, stress, feel and a yes or no per course",
-    after_help = "SET is a string-set file (write one with `taut plan … --save-set FILE`).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+    after_help = "SET is a string-set file (write one with `taut plan … --save-set FILE`).\n\nCharts for --plot CHART=FILE: tension (the instrument's windows shaded, warnings ringed), stress (caution and danger lines).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
 )]
 pub struct AuditArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
@@ -115,10 +116,13 @@ pub struct AuditArgs {
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
+    #[command(flatten)]
+    pub plots: PlotArgs,
 }
 
 /// Runs `taut audit`.
 pub fn run(args: AuditArgs) -> Result<()> {
+    let (plots, size) = args.plots.requests(&["tension", "stress"])?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let set = StringSet::load(&args.set, &stock)?;
@@ -149,12 +153,26 @@ pub fn run(args: AuditArgs) -> Result<()> {
         feel: args.feel.options()?,
     };
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
+        if !plots.is_empty() {
+            return Err(taut::Error::input(
+                "--plot draws one tuning; it does not take several tunings yet",
+            )
+            .in_origin("--plot")
+            .help("audit one tuning at a time for its pictures (`--tuning NAME` once)"));
+        }
         let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
         let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;
         return output::emit(&report, &args.output);
     }
     let tuning = tuning_for(&instrument, given.map(String::as_str), "--tuning")?;
     let report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
+    if !plots.is_empty() {
+        pictures::write(
+            &plots,
+            size,
+            &taut::charts::build::audit(&report, &instrument),
+        )?;
+    }
     output::emit(&report, &args.output)
 }
 

@@ -16,6 +16,7 @@ use taut::strings::feel;
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
+use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
 use taut::plan::solve::tuning_for;
@@ -24,7 +25,7 @@ use taut::plan::solve::tuning_for;
 #[derive(Debug, Args)]
 #[command(
     about = "Plan the strings for a new tuning or scale length from the set installed now: keep each string's feel, check the nut slots and the total load",
-    after_help = "Strings break and necks move under a changed load: wear eye protection, change one course at a time and bring tension up gradually, respect the maker's load rating, and leave truss-rod and setup work to a qualified person."
+    after_help = "Charts for --plot CHART=FILE: tension and stress, before and after on one chart each.\n\nStrings break and necks move under a changed load: wear eye protection, change one course at a time and bring tension up gradually, respect the maker's load rating, and leave truss-rod and setup work to a qualified person."
 )]
 pub struct ConvertArgs {
     /// The instrument as it is now (a YAML file or a built-in template).
@@ -76,6 +77,8 @@ pub struct ConvertArgs {
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
+    #[command(flatten)]
+    pub plots: PlotArgs,
 }
 
 /// What `--keep-feel` keeps.
@@ -93,6 +96,7 @@ fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
 
 /// Runs `taut convert`.
 pub fn run(args: ConvertArgs) -> Result<()> {
+    let (plots, size) = args.plots.requests(&["tension", "stress"])?;
     let before = Instrument::load(&args.instrument)?;
     let after = match &args.to_instrument {
         Some(spec) => Instrument::load(spec).map_err(|err| err.in_origin("--to-instrument"))?,
@@ -148,6 +152,10 @@ pub fn run(args: ConvertArgs) -> Result<()> {
     )?;
     if let Some(path) = &args.save_set {
         output::write_atomically(path, conversion.new_set().to_yaml().as_bytes())?;
+    }
+    if !plots.is_empty() {
+        let charts = taut::charts::build::conversion(&conversion, &after);
+        pictures::write(&plots, size, &charts)?;
     }
     output::emit(&conversion, &args.output)
 }

@@ -15,6 +15,7 @@ use taut::strings::feel;
 use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
+use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
 
@@ -22,7 +23,7 @@ use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warni
 #[derive(Debug, Args)]
 #[command(
     about = "Solve vibrating lengths from pitch, string and tension: one course, or a whole layout with a smooth tension profile",
-    after_help = "Either give a LAYOUT file, or one course with --pitch, --string and --tension, e.g.\n  taut lengths --pitch A3 --string '{kind: plain-steel, diameter: 0.016in}' --tension 60N\n\nStrings break: wear eye protection, bring tension up gradually and keep within the maker's load rating."
+    after_help = "Either give a LAYOUT file, or one course with --pitch, --string and --tension, e.g.\n  taut lengths --pitch A3 --string '{kind: plain-steel, diameter: 0.016in}' --tension 60N\n\nChart for --plot: lengths (the bridge line, with the tension profile on the right axis).\n\nStrings break: wear eye protection, bring tension up gradually and keep within the maker's load rating."
 )]
 pub struct LengthsArgs {
     /// A layout file: courses with pitch, string and tension.
@@ -55,10 +56,13 @@ pub struct LengthsArgs {
     pub feel: FeelArgs,
     #[command(flatten)]
     pub output: OutputArgs,
+    #[command(flatten)]
+    pub plots: PlotArgs,
 }
 
 /// Runs `taut lengths`.
 pub fn run(args: LengthsArgs) -> Result<()> {
+    let (plots, size) = args.plots.requests(&["lengths"])?;
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let stock = args.stock.load()?;
     let input = match (&args.layout, &args.pitch, &args.string) {
@@ -89,6 +93,9 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             feel: args.feel.options()?,
         },
     )?;
+    if !plots.is_empty() {
+        pictures::write(&plots, size, &taut::charts::build::layout(&report))?;
+    }
     output::emit(&report, &args.output)
 }
 

@@ -4,8 +4,10 @@
 mod audit;
 mod convert;
 mod frets;
+mod generate;
 mod lengths;
 mod output;
+mod pictures;
 mod plan;
 mod stock;
 mod survey;
@@ -40,6 +42,8 @@ enum Command {
     Frets(frets::FretsArgs),
     /// Search tunings, offsets and course patterns for stringable settings, ranked.
     Survey(survey::SurveyArgs),
+    /// Make shell completions or the manual pages from this command line.
+    Generate(generate::GenerateArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -63,6 +67,7 @@ pub fn main() -> ExitCode {
         Command::Lengths(args) => lengths::run(args),
         Command::Frets(args) => frets::run(&args),
         Command::Survey(args) => survey::run(&args),
+        Command::Generate(args) => generate::run(args),
     };
     output::finish(result)
 }

@@ -18,6 +18,10 @@ pub enum Format {
     Table,
     /// JSON for other programs (numbers unrounded, exact ratios as "p/q" text).
     Json,
+    /// CSV: one row per item of the report's main list, columns named as the JSON fields.
+    Csv,
+    /// The JSON document's fields as YAML.
+    Yaml,
 }
 
 /// The output options every report-writing subcommand takes.
@@ -56,9 +60,14 @@ pub fn emit<R: Render>(report: &R, args: &OutputArgs) -> Result<()> {
             text.push('\n');
             text
         }
+        Format::Csv => taut::charts::records::csv(report)?,
+        Format::Yaml => taut::input::yaml::to_text(report)?,
     };
     match &args.output {
         Some(path) => write_atomically(path, text.as_bytes()),
+        None if args.format == Format::Table => {
+            write_stdout(super::text::for_terminal(text).as_bytes())
+        }
         None => write_stdout(text.as_bytes()),
     }
 }

@@ -16,8 +16,12 @@ use taut::strings::select::several::Balance;
 
 pub use render::DisplayUnits;
 
+use taut::charts::build;
+use taut::charts::draw::DEFAULT_SIZE;
+
 use super::output;
 use super::parse_flag;
+use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 
 /// Output formats of a plan.
@@ -68,7 +72,7 @@ pub enum LengthChoice {
 #[derive(Debug, Args)]
 #[command(
     about = "Choose a string for every course of an instrument in a tuning, with tension, stress and warnings",
-    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nCourse pitches are written in the tuning's own addressing: a note (`E2`, `F#3`), the nearest degree to a note (`~E2`), a degree (`deg7`, `deg3p1`), cents (`386.3c`), a ratio (`3/2`) or a frequency (`82.41hz`); `taut tuning --help` has the details and the tuning forms.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nCourse pitches are written in the tuning's own addressing: a note (`E2`, `F#3`), the nearest degree to a note (`~E2`), a degree (`deg7`, `deg3p1`), cents (`386.3c`), a ratio (`3/2`) or a frequency (`82.41hz`); `taut tuning --help` has the details and the tuning forms.\n\nCharts for --plot CHART=FILE: tension (window shaded, warnings ringed), stress (caution and danger lines), diameter (by construction).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
 )]
 pub struct PlanArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
@@ -109,11 +113,22 @@ pub struct PlanArgs {
     /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
     #[arg(long, value_name = "FILE")]
     pub save_set: Option<PathBuf>,
+    /// Also write the builder's string chart: a printable table per string with the charts,
+    /// as a self-contained `.html` page or a `.csv` table.
+    #[arg(long, value_name = "FILE")]
+    pub string_chart: Option<PathBuf>,
+    #[command(flatten)]
+    pub plots: PlotArgs,
 }
+
+/// The charts of a plan, for `--plot CHART=FILE`.
+pub const PLAN_CHARTS: [&str; 3] = ["tension", "stress", "diameter"];
 
 /// Runs `taut plan`.
 pub fn run(args: &PlanArgs) -> Result<()> {
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
+    let (plots, size) = args.plots.requests(&PLAN_CHARTS)?;
+    let sheet = args.string_chart.as_deref().map(sheet_format).transpose()?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let force = match args.force_unit {
@@ -122,6 +137,13 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         ForceChoice::Kgf => ForceUnit::Kgf,
     };
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
+        if !plots.is_empty() || sheet.is_some() {
+            return Err(taut::Error::input(
+                "--plot and --string-chart draw one tuning; they do not take several tunings yet",
+            )
+            .in_origin("--plot")
+            .help("plan one tuning at a time for its pictures (`--tuning NAME` once)"));
+        }
         return run_several(args, &instrument, &stock, tension, force);
     }
     let plan = solve::plan(
@@ -129,12 +151,24 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         &stock,
         &SolveOptions {
             tuning: args.tuning.first().cloned(),
-            tension,
+            tension: tension.clone(),
         },
     )?;
     if let Some(path) = &args.save_set {
         let set = taut::sets::set::StringSet::from_plan(&plan).to_yaml();
         output::write_atomically(path, set.as_bytes())?;
+    }
+    if !plots.is_empty() || sheet == Some(SheetFormat::Html) {
+        let windows = build::tension_windows(&instrument, tension.as_ref());
+        let charts = build::plan(&plan, &windows);
+        pictures::write(&plots, size, &charts)?;
+        if let (Some(path), Some(SheetFormat::Html)) = (&args.string_chart, sheet) {
+            let page = taut::charts::sheet::html(&plan, &charts, DEFAULT_SIZE)?;
+            output::write_atomically(path, page.as_bytes())?;
+        }
+    }
+    if let (Some(path), Some(SheetFormat::Csv)) = (&args.string_chart, sheet) {
+        output::write_atomically(path, taut::charts::sheet::csv(&plan)?.as_bytes())?;
     }
     let units = DisplayUnits {
         force,
@@ -162,6 +196,9 @@ pub fn run(args: &PlanArgs) -> Result<()> {
 fn write(args: &PlanArgs, text: &str) -> Result<()> {
     match &args.output {
         Some(path) => output::write_atomically(path, text.as_bytes()),
+        None if args.format == PlanFormat::Table => {
+            output::write_stdout(super::text::for_terminal(text.to_string()).as_bytes())
+        }
         None => output::write_stdout(text.as_bytes()),
     }
 }
@@ -206,4 +243,29 @@ fn run_several(
         PlanFormat::Yaml => several::yaml(&plan)?,
     };
     write(args, &text)
+}
+
+/// What `--string-chart` writes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum SheetFormat {
+    Html,
+    Csv,
+}
+
+fn sheet_format(path: &std::path::Path) -> Result<SheetFormat> {
+    match path
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(str::to_ascii_lowercase)
+        .as_deref()
+    {
+        Some("html" | "htm") => Ok(SheetFormat::Html),
+        Some("csv") => Ok(SheetFormat::Csv),
+        _ => Err(taut::Error::input(format!(
+            "`{}` names neither an HTML page nor a CSV table",
+            path.display()
+        ))
+        .in_origin("--string-chart")
+        .help("end the file name in `.html` or `.csv`")),
+    }
 }

@@ -1,5 +1,5 @@
 //! Pieces of terminal output shared by every command: the table style, aligned cells, pitch
-//! labels, the warnings list and the safety cautions.
+//! labels, the warnings list, the safety cautions, and the colours of status marks.
 
 use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
 
@@ -84,6 +84,78 @@ pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>])
     out
 }
 
+/// taut's palette for status marks on a terminal (256-colour codes). The words differ on their
+/// own (`DANGER` in capitals, `caution`, `note`; `no`, `yes, with care`, `yes`), so nothing is
+/// lost without colour; danger is bold as well.
+const MARK_COLOURS: [(&str, &str); 6] = [
+    ("DANGER", "1;38;5;160"),
+    ("caution", "38;5;172"),
+    ("note", "38;5;67"),
+    ("yes, with care", "38;5;172"),
+    ("yes", "38;5;71"),
+    ("no", "1;38;5;160"),
+];
+
+/// Whether standard output gets colours: a terminal, and `NO_COLOR` unset or empty
+/// (the convention at no-color.org).
+pub fn colour_wanted() -> bool {
+    use std::io::IsTerminal;
+    std::env::var_os("NO_COLOR").is_none_or(|value| value.is_empty())
+        && std::io::stdout().is_terminal()
+}
+
+/// A report for standard output: status marks coloured when [`colour_wanted`].
+pub fn for_terminal(text: String) -> String {
+    if colour_wanted() {
+        colour_marks(&text)
+    } else {
+        text
+    }
+}
+
+fn paint(mark: &str, code: &str) -> String {
+    format!("\x1b[{code}m{mark}\x1b[0m")
+}
+
+/// Colours the status marks of a report: the last cell of a table row (`… DANGER │`) and the
+/// flag that opens a warnings-list line (`  caution stress_caution: …`). Colour codes take no
+/// room on a terminal, so the table stays aligned.
+pub fn colour_marks(text: &str) -> String {
+    let mut out = String::with_capacity(text.len() + 64);
+    for line in text.split_inclusive('\n') {
+        out.push_str(&colour_line(line));
+    }
+    out
+}
+
+fn colour_line(line: &str) -> String {
+    let body = line.trim_end_matches('\n');
+    let ending = &line[body.len()..];
+    if let Some(inner) = body.strip_suffix('│') {
+        let cell = inner.trim_end();
+        for (mark, code) in MARK_COLOURS {
+            if let Some(before) = cell.strip_suffix(mark) {
+                if before.ends_with("  ") {
+                    return format!(
+                        "{before}{}{}│{ending}",
+                        paint(mark, code),
+                        &inner[cell.len()..]
+                    );
+                }
+            }
+        }
+        return line.to_string();
+    }
+    for (mark, code) in MARK_COLOURS.iter().take(3) {
+        if let Some(rest) = body.strip_prefix("  ").and_then(|b| b.strip_prefix(mark)) {
+            if rest.starts_with(' ') {
+                return format!("  {}{rest}{ending}", paint(mark, code));
+            }
+        }
+    }
+    line.to_string()
+}
+
 /// The footnote explaining the stiffness and feel columns.
 pub fn feel_legend(bend_cents: f64) -> String {
     format!(
@@ -163,6 +235,32 @@ pub fn lettered_warnings<'a>(per_tuning: impl Iterator<Item = &'a Vec<Warning>>)
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn status_marks_are_coloured_only_where_they_are_marks() {
+        let table =
+            "│ 1   E4   53%   DANGER  │\n│ 2   B3   31%           │\n│ 3  no  yes, with care │\n";
+        let coloured = colour_marks(table);
+        assert!(
+            coloured.contains("\x1b[1;38;5;160mDANGER\x1b[0m  │"),
+            "{coloured}"
+        );
+        assert!(
+            coloured.contains("\x1b[38;5;172myes, with care\x1b[0m │"),
+            "{coloured}"
+        );
+        assert!(!coloured.contains("mno"), "{coloured}");
+        let plain: String = coloured
+            .replace("\x1b[1;38;5;160m", "")
+            .replace("\x1b[38;5;172m", "")
+            .replace("\x1b[0m", "");
+        assert_eq!(plain, table);
+        let list = "  caution stress_caution: Course 1 …\nNo warnings.\n  note    x: y\n";
+        let coloured = colour_marks(list);
+        assert!(coloured.starts_with("  \x1b[38;5;172mcaution\x1b[0m stress_caution"));
+        assert!(coloured.contains("No warnings.\n"));
+        assert!(coloured.contains("\x1b[38;5;67mnote\x1b[0m    x"));
+    }
 
     #[test]
     fn pitch_labels_show_the_note_only_when_it_adds_something() {

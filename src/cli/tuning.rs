@@ -6,6 +6,7 @@ use comfy_table::{presets, CellAlignment, Table};
 use serde::Serialize;
 
 use super::output::{emit, OutputArgs, Render};
+use super::pictures::{self, PlotArgs};
 use taut::error::Result;
 use taut::tuning::analysis::{fit, FitReport};
 use taut::tuning::compare::{compare, Comparison};
@@ -55,7 +56,8 @@ enum TuningCommand {
     /// List degrees: cents, step, exact ratio, Hz and the nearest 12-tone note.
     #[command(after_long_help = TUNING_HELP)]
     Show(ShowArgs),
-    /// Measure how closely a tuning approximates the just intervals of an odd limit.
+    /// Measure how closely a tuning approximates the just intervals of an odd limit
+    /// (`--plot errors=FILE` draws each interval's error in cents).
     #[command(after_long_help = TUNING_HELP)]
     Fit(FitArgs),
     /// Set two tunings side by side: each degree of the first against the nearest of the second.
@@ -91,6 +93,8 @@ struct FitArgs {
     limit: u32,
     #[command(flatten)]
     output: OutputArgs,
+    #[command(flatten)]
+    plots: PlotArgs,
 }
 
 #[derive(Debug, Args)]
@@ -143,8 +147,13 @@ pub fn run(args: TuningArgs) -> Result<()> {
             emit(&list(&tuning, from, to)?, &args.output)
         }
         TuningCommand::Fit(args) => {
+            let (plots, size) = args.plots.requests(&["errors"])?;
             let tuning = load(&args.tuning)?;
-            emit(&fit(&tuning, args.limit)?, &args.output)
+            let report = fit(&tuning, args.limit)?;
+            if !plots.is_empty() {
+                pictures::write(&plots, size, &taut::charts::build::fit(&report))?;
+            }
+            emit(&report, &args.output)
         }
         TuningCommand::Compare(args) => {
             let first = load(&args.first)?;
