@@ -3,7 +3,6 @@
 use std::path::PathBuf;
 
 use clap::Args;
-use comfy_table::Cell;
 
 use taut::error::{Error, Result};
 use taut::instrument::{Percent, TensionSpec};
@@ -14,7 +13,9 @@ use super::audit::FeelArgs;
 use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::stock::StockArgs;
-use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
+use super::text::{
+    cell, course_pitch_text, feel_legend, maybe, new_table, right, user, warnings_and_cautions,
+};
 
 /// Arguments of `taut lengths`.
 #[derive(Debug, Args)]
@@ -81,7 +82,18 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             feel: args.feel.options()?,
         },
     )?;
-    output::emit(&report, &args.output)
+    let mut inputs = output::Inputs::new();
+    inputs.maybe_spec(args.tuning.as_deref());
+    if let Some(layout) = &args.layout {
+        inputs.file(layout);
+    }
+    if let Some(spec) = &input.tuning {
+        inputs.spec(spec);
+    }
+    for file in &args.stock.files {
+        inputs.file(file);
+    }
+    output::emit(&report, &args.output, &inputs)
 }
 
 impl Render for Layout {
@@ -106,9 +118,9 @@ impl Render for Layout {
             let jumped = self.jumps.iter().any(|j| j.to_course == course.course);
             table.add_row(vec![
                 right(course.course.to_string()),
-                Cell::new(course_pitch_text(&course.pitch)),
+                cell(course_pitch_text(&course.pitch)),
                 right(format!("{:.2}", course.pitch.hz)),
-                Cell::new(&course.string),
+                cell(&course.string),
                 right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
                 right(format!("{:.1}", course.tension_n)),
                 right(format!("{:.1}", course.length_m * 1000.0)),
@@ -127,7 +139,11 @@ impl Render for Layout {
                 right(bend),
             ]);
         }
-        let mut out = format!("{} — tuning {}\n{table}\n", self.name, self.tuning);
+        let mut out = format!(
+            "{} — tuning {}\n{table}\n",
+            user(&self.name),
+            user(&self.tuning)
+        );
         out.push_str(&format!(
             "Total tension: {:.1} N over {} course(s). Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a jump).\n",
             self.total_tension_n,
@@ -139,7 +155,7 @@ impl Render for Layout {
         } else {
             out.push_str(&format!("\nImpractical jumps ({}):\n", self.jumps.len()));
             for jump in &self.jumps {
-                out.push_str(&format!("  {}\n", jump.message));
+                out.push_str(&format!("  {}\n", user(&jump.message)));
             }
         }
         out.push_str(&feel_legend(

@@ -2,8 +2,6 @@
 
 mod render;
 
-use std::path::PathBuf;
-
 use clap::{Args, ValueEnum};
 
 use taut::error::Result;
@@ -81,12 +79,14 @@ pub struct PlanArgs {
     /// Output format (plans add CSV and YAML to the shared table and JSON).
     #[arg(long, value_enum, default_value = "table")]
     pub format: PlanFormat,
-    /// Write to this file instead of standard output (written whole, or not at all).
+    /// Write to this file instead of standard output (`-` is standard output; a file is written
+    /// whole or not at all, never over one of the command's inputs).
     #[arg(long, short = 'o', value_name = "FILE")]
-    pub output: Option<PathBuf>,
-    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
+    pub output: Option<output::Target>,
+    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`
+    /// (written together with the report: both or neither).
     #[arg(long, value_name = "FILE")]
-    pub save_set: Option<PathBuf>,
+    pub save_set: Option<output::Target>,
 }
 
 /// Runs `taut plan`.
@@ -102,10 +102,15 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             tension,
         },
     )?;
-    if let Some(path) = &args.save_set {
-        let set = taut::sets::set::StringSet::from_plan(&plan).to_yaml();
-        output::write_atomically(path, set.as_bytes())?;
+    let mut inputs = output::Inputs::new();
+    inputs
+        .spec(&args.instrument)
+        .maybe_spec(args.tuning.as_deref())
+        .maybe_spec(instrument.tuning.as_deref());
+    for file in &args.stock.files {
+        inputs.file(file);
     }
+    output::check_finite(&plan)?;
     let units = DisplayUnits {
         force: match args.force_unit {
             ForceChoice::N => ForceUnit::N,
@@ -124,9 +129,29 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         PlanFormat::Csv => render::csv(&plan)?,
         PlanFormat::Yaml => render::yaml(&plan)?,
     };
-    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
-    match &args.output {
-        Some(path) => output::write_atomically(path, text.as_bytes()),
-        None => output::write_stdout(text.as_bytes()),
+    let text = match args.format {
+        PlanFormat::Table => output::terminal_text(text),
+        _ => text,
+    };
+    // The shared writer: both files or neither, never over an input, a closed pipe ends
+    // quietly, a file appears whole or not at all.
+    let mut outputs = output::Outputs::new(&inputs);
+    if let Some(target) = &args.save_set {
+        let mut set = taut::sets::set::StringSet::from_plan(&plan);
+        // The spec that loaded, so `audit` and `convert` can load it back (a file tuning's
+        // display name would not load).
+        set.tuning = Some(
+            args.tuning
+                .clone()
+                .or_else(|| instrument.tuning.clone())
+                .unwrap_or_else(|| solve::DEFAULT_TUNING.to_string()),
+        );
+        outputs.add(
+            "--save-set",
+            Some(target.clone()),
+            set.to_yaml().into_bytes(),
+        );
     }
+    outputs.add("--output", args.output.clone(), text.into_bytes());
+    outputs.write()
 }

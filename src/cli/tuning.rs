@@ -5,8 +5,8 @@ use clap::{Args, Subcommand};
 use comfy_table::{presets, CellAlignment, Table};
 use serde::Serialize;
 
-use super::output::{emit, OutputArgs, Render};
-use taut::error::Result;
+use super::output::{emit, Inputs, OutputArgs, Render};
+use taut::error::{shown, Result};
 use taut::tuning::analysis::{fit, FitReport};
 use taut::tuning::compare::{compare, Comparison};
 use taut::tuning::listing::{default_range, list, DegreeListing};
@@ -127,6 +127,15 @@ struct ListArgs {
     output: OutputArgs,
 }
 
+/// The tuning specs a command reads, as inputs no output may overwrite.
+fn inputs(specs: &[&str]) -> Inputs {
+    let mut inputs = Inputs::new();
+    for spec in specs {
+        inputs.spec(spec);
+    }
+    inputs
+}
+
 /// Runs `taut tuning …`.
 pub fn run(args: TuningArgs) -> Result<()> {
     match args.command {
@@ -140,11 +149,19 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 }
                 _ => default_to,
             });
-            emit(&list(&tuning, from, to)?, &args.output)
+            emit(
+                &list(&tuning, from, to)?,
+                &args.output,
+                &inputs(&[&args.tuning]),
+            )
         }
         TuningCommand::Fit(args) => {
             let tuning = load(&args.tuning)?;
-            emit(&fit(&tuning, args.limit)?, &args.output)
+            emit(
+                &fit(&tuning, args.limit)?,
+                &args.output,
+                &inputs(&[&args.tuning]),
+            )
         }
         TuningCommand::Compare(args) => {
             let first = load(&args.first)?;
@@ -157,7 +174,11 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 }
                 _ => default_to,
             });
-            emit(&compare(&first, &second, from, to)?, &args.output)
+            emit(
+                &compare(&first, &second, from, to)?,
+                &args.output,
+                &inputs(&[&args.first, &args.second]),
+            )
         }
         TuningCommand::Find(args) => {
             let tuning = load(&args.tuning)?;
@@ -181,14 +202,14 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 tuning: tuning.summary(),
                 pitches,
             };
-            emit(&report, &args.output)
+            emit(&report, &args.output, &inputs(&[&args.tuning]))
         }
         TuningCommand::List(args) => {
             let mut tunings = Vec::new();
             for (_, loaded) in library::load_all() {
                 tunings.push(loaded?.summary());
             }
-            emit(&ShippedTunings { tunings }, &args.output)
+            emit(&ShippedTunings { tunings }, &args.output, &Inputs::new())
         }
     }
 }
@@ -231,9 +252,13 @@ fn align_right(table: &mut Table, columns: &[usize]) {
 }
 
 fn heading(summary: &TuningSummary) -> String {
-    let mut text = format!("{}: {}\n", summary.name, summary.description);
+    let mut text = format!(
+        "{}: {}\n",
+        shown(&summary.name),
+        shown(&summary.description)
+    );
     if let Some(source) = &summary.source {
-        text.push_str(&format!("source: {source}\n"));
+        text.push_str(&format!("source: {}\n", shown(source)));
     }
     let reference = &summary.reference;
     text.push_str(&format!(

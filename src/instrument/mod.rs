@@ -200,9 +200,9 @@ impl Instrument {
     /// name (see [`TEMPLATES`]).
     pub fn load(spec: &str) -> Result<Self> {
         let path = Path::new(spec);
-        if path.exists() {
+        if path.exists() || spec == "-" {
             let text = yaml::read_text(path)?;
-            return Instrument::from_text(text, spec);
+            return Instrument::from_text(text, &yaml::origin_of(path));
         }
         if let Some(text) = template(spec) {
             return Instrument::from_text(text.to_string(), &format!("template `{spec}`"));

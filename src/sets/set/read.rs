@@ -7,7 +7,7 @@ impl StringSet {
     /// Reads a set file.
     pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
         let text = yaml::read_text(path)?;
-        StringSet::from_text(text, &path.display().to_string(), stock)
+        StringSet::from_text(text, &yaml::origin_of(path), stock)
     }
 
     /// Parses and checks a set; `origin` names it in messages. Kind and material ids are checked
