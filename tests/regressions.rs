@@ -18,9 +18,14 @@ fn quantity_overflowing_on_conversion_is_refused() {
         assert_eq!(err.exit_code(), EXIT_BAD_INPUT);
         assert!(err.to_string().contains("too large"), "{err}");
     }
-    // The largest finite values still convert.
-    assert!("1e300kN".parse::<Force>().is_ok());
-    assert!("1e-300mm".parse::<Length>().is_ok());
+    // Finite values that convert are now refused too, by their plausible range (issue 8).
+    for (text, refused) in [
+        ("1e300kN", "1e300kN".parse::<Force>().err()),
+        ("1e-300mm", "1e-300mm".parse::<Length>().err()),
+    ] {
+        let err = refused.unwrap_or_else(|| panic!("{text} was accepted"));
+        assert!(err.to_string().contains("outside the range"), "{err}");
+    }
 }
 
 /// Found by measuring the reader: a document of unclosed `[` (2 million of them, under the

@@ -6,7 +6,7 @@ use std::path::PathBuf;
 use clap::Args;
 
 use taut::error::{Error, Result};
-use taut::input::units::Length;
+use taut::input::units::{Diameter, Length};
 use taut::instrument::{Instrument, Percent, TensionSpec};
 use taut::sets::convert::{self, Conversion, ConvertOptions};
 use taut::sets::set::StringSet;
@@ -112,7 +112,7 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         tolerance,
         target,
         scale_length: positive_length(&args.scale_length, "--scale-length")?,
-        slot_width: positive_length(&args.slot, "--slot")?,
+        slot_width: parse_flag::<Diameter>(args.slot.as_deref(), "--slot")?.map(Diameter::si),
         reselect_all: args.reselect_all,
         feel: args.feel.options()?,
         ..ConvertOptions::default()

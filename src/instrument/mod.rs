@@ -26,7 +26,7 @@ pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 
 use crate::error::{did_you_mean, Error, Result};
-use crate::input::units::{Force, Length};
+use crate::input::units::{Diameter, Force, Length};
 use crate::input::yaml::{self, PathStep};
 use crate::tuning::course_pitch::CoursePitch;
 use crate::tuning::Tuning;
@@ -57,7 +57,7 @@ pub struct CourseSettings {
     pub tension: Option<TensionSpec>,
     /// The widest string the nut slot, bridge hole or tuner takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
-    pub max_diameter: Option<Length>,
+    pub max_diameter: Option<Diameter>,
 }
 
 /// One string of a course.
@@ -127,7 +127,7 @@ pub struct Course {
     pub tension: Option<TensionSpec>,
     /// The widest string this course's slot or hole takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
-    pub max_diameter: Option<Length>,
+    pub max_diameter: Option<Diameter>,
 }
 
 /// The file's contents, as written.
@@ -324,7 +324,7 @@ impl Instrument {
             max_diameter_m: course
                 .max_diameter
                 .or(self.defaults.max_diameter)
-                .map(Length::si),
+                .map(Diameter::si),
             strings: &course.strings,
         })
     }

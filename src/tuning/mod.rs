@@ -424,13 +424,22 @@ impl Tuning {
             PitchSpec::Hz { hz } => Ok(self.free_pitch(*hz, None, label)),
         }
         .and_then(|resolved: ResolvedPitch| {
-            if resolved.hz.is_finite() && resolved.hz > 0.0 {
-                Ok(resolved)
-            } else {
+            let bounds = crate::input::units::FREQUENCY_BOUNDS;
+            if !(resolved.hz.is_finite() && resolved.hz > 0.0) {
                 Err(Error::input(format!(
                     "`{}` is out of range: its frequency is not a finite number",
                     resolved.label
                 )))
+            } else if !bounds.contains(resolved.hz) {
+                Err(Error::input(format!(
+                    "`{}` is at {} Hz, outside the range taut accepts for a pitch: {}",
+                    resolved.label,
+                    crate::input::units::short_number(resolved.hz),
+                    bounds.shown
+                ))
+                .help("no string sounds there; check the octave, the cents or the frequency"))
+            } else {
+                Ok(resolved)
             }
         })
     }

@@ -34,7 +34,7 @@ use std::path::Path;
 use serde::{Deserialize, Deserializer};
 
 use crate::error::{Error, Result};
-use crate::input::units::{Length, Mass, UnitMass, METRES_PER_INCH};
+use crate::input::units::{Diameter, Length, Mass, UnitMass, METRES_PER_INCH};
 use crate::input::yaml::{self, PathStep};
 use crate::instrument::{Expecting, NoDetail, ScalarOrMap};
 use crate::plan::Plan;
@@ -90,8 +90,8 @@ where
 #[serde(deny_unknown_fields)]
 pub(crate) struct StringEntryFile {
     kind: Option<String>,
-    diameter: Option<Located<Length>>,
-    core_diameter: Option<Located<Length>>,
+    diameter: Option<Located<Diameter>>,
+    core_diameter: Option<Located<Diameter>>,
     unit_mass: Option<Located<UnitMass>>,
     mass: Option<Located<Mass>>,
     length: Option<Located<Length>>,
@@ -158,7 +158,8 @@ pub struct StringSet {
     pub about: Option<String>,
     /// The instrument it was planned for, if recorded.
     pub instrument: Option<String>,
-    /// The tuning it was planned for, if recorded.
+    /// The tuning the strings are in (a tuning spec, checked to load): `audit` and `convert`
+    /// take it as the strings' current tuning when no option names one.
     pub tuning: Option<String>,
     /// The courses, in file order.
     pub courses: Vec<SetCourse>,
