@@ -150,13 +150,13 @@ pub const DIAMETER_BOUNDS: Bounds = Bounds {
     unit: "m",
 };
 
-/// Forces (tensions, loads, pushes): 1 mN to 1 MN. A slack nylon string holds a few newtons,
+/// Forces (tensions, loads, pushes): 0.001 N to 1000 kN. A slack nylon string holds a few newtons,
 /// a concert grand's frame about 200 kN in all (common practice, from memory).
 pub const FORCE_BOUNDS: Bounds = Bounds {
     min: 0.001,
     max: 1e6,
     what: "a force",
-    shown: "0.001 N to 1 MN",
+    shown: "0.001 N to 1000 kN",
     unit: "N",
 };
 
