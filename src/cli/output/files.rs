@@ -529,11 +529,11 @@ fn write_through(path: &Path, bytes: &[u8]) -> Result<()> {
 pub fn write_bytes(
     flag: &'static str,
     target: Option<&Target>,
-    bytes: &[u8],
+    bytes: Vec<u8>,
     inputs: &Inputs,
 ) -> Result<()> {
     let mut outputs = Outputs::new(inputs);
-    outputs.add(flag, target.cloned(), bytes.to_vec());
+    outputs.add(flag, target.cloned(), bytes);
     outputs.write()
 }
 
@@ -550,7 +550,13 @@ mod tests {
         let folder = tempfile::tempdir().unwrap();
         let path = folder.path().join("report.json");
         fs::write(&path, "old").unwrap();
-        write_bytes("-o", Some(&to(&path)), b"new contents", &Inputs::new()).unwrap();
+        write_bytes(
+            "-o",
+            Some(&to(&path)),
+            b"new contents".to_vec(),
+            &Inputs::new(),
+        )
+        .unwrap();
         assert_eq!(fs::read_to_string(&path).unwrap(), "new contents");
         assert_eq!(fs::read_dir(folder.path()).unwrap().count(), 1);
     }
@@ -558,9 +564,16 @@ mod tests {
     #[test]
     fn refuses_a_folder_and_a_missing_folder_without_leaving_anything() {
         let folder = tempfile::tempdir().unwrap();
-        assert!(write_bytes("-o", Some(&to(folder.path())), b"x", &Inputs::new()).is_err());
+        assert!(write_bytes(
+            "-o",
+            Some(&to(folder.path())),
+            b"x".to_vec(),
+            &Inputs::new()
+        )
+        .is_err());
         let missing = folder.path().join("no/such/folder/out.txt");
-        let err = write_bytes("-o", Some(&to(&missing)), b"x", &Inputs::new()).unwrap_err();
+        let err =
+            write_bytes("-o", Some(&to(&missing)), b"x".to_vec(), &Inputs::new()).unwrap_err();
         assert_eq!(err.exit_code(), taut::error::EXIT_FAILURE);
         assert_eq!(fs::read_dir(folder.path()).unwrap().count(), 0);
     }

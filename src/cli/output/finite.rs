@@ -59,7 +59,7 @@ impl Checker {
 
 type Done = Result<(), NotFinite>;
 
-impl<'a> ser::Serializer for &'a mut Checker {
+impl ser::Serializer for &mut Checker {
     type Ok = ();
     type Error = NotFinite;
     type SerializeSeq = Self;
@@ -176,7 +176,7 @@ impl<'a> ser::Serializer for &'a mut Checker {
 
 macro_rules! elements {
     ($($trait:ident :: $method:ident),*) => {$(
-        impl<'a> ser::$trait for &'a mut Checker {
+        impl ser::$trait for &mut Checker {
             type Ok = ();
             type Error = NotFinite;
             fn $method<T: Serialize + ?Sized>(&mut self, value: &T) -> Done {
@@ -196,7 +196,7 @@ elements!(
     SerializeTupleVariant::serialize_field
 );
 
-impl<'a> ser::SerializeMap for &'a mut Checker {
+impl ser::SerializeMap for &mut Checker {
     type Ok = ();
     type Error = NotFinite;
     fn serialize_key<T: Serialize + ?Sized>(&mut self, key: &T) -> Done {
@@ -212,7 +212,7 @@ impl<'a> ser::SerializeMap for &'a mut Checker {
 
 macro_rules! fields {
     ($($trait:ident),*) => {$(
-        impl<'a> ser::$trait for &'a mut Checker {
+        impl ser::$trait for &mut Checker {
             type Ok = ();
             type Error = NotFinite;
             fn serialize_field<T: Serialize + ?Sized>(&mut self, key: &'static str, value: &T) -> Done {
