@@ -72,7 +72,7 @@ pub enum Error {
         help: Option<String>,
     },
     /// An input file could not be read.
-    #[error("cannot read {}: {source}", path.display())]
+    #[error("cannot read {}: {source}", shown(&path.display().to_string()))]
     Read {
         /// The path as given.
         path: PathBuf,
@@ -81,7 +81,7 @@ pub enum Error {
         source: std::io::Error,
     },
     /// An output file could not be written; nothing of it was left behind.
-    #[error("cannot write {}: {source}", path.display())]
+    #[error("cannot write {}: {source}", shown(&path.display().to_string()))]
     Write {
         /// The path as given.
         path: PathBuf,
@@ -92,17 +92,45 @@ pub enum Error {
 }
 
 fn render_input(location: &Location, message: &str, help: Option<&str>) -> String {
-    let place = location.to_string();
+    // Each part is escaped on its own: the line break before `help:` is ours, any other control
+    // character came from the user's text.
+    let place = shown(&location.to_string()).into_owned();
+    let message = shown(message);
     let mut out = if place.is_empty() {
-        message.to_string()
+        message.into_owned()
     } else {
         format!("{place}: {message}")
     };
     if let Some(help) = help {
         out.push_str("\n  help: ");
-        out.push_str(help);
+        out.push_str(&shown(help));
     }
     clip_long_words(&out)
+}
+
+/// The user's text made safe to print on a terminal: control characters (C0, DEL, C1) and the
+/// invisible bidirectional overrides are written as escapes (`\n`, `\t`, `\r`, `\u{1b}`), so a
+/// name holding `ESC ] 0 ; … BEL` or `ESC [ 31 m` cannot retitle the window, recolour the
+/// screen or fake a line of the report. Every renderer of user text and every error message
+/// goes through this one function. Text without such characters is returned as it is.
+pub fn shown(text: &str) -> std::borrow::Cow<'_, str> {
+    fn needs_escape(c: char) -> bool {
+        c.is_control() || matches!(c, '\u{202a}'..='\u{202e}' | '\u{2066}'..='\u{2069}')
+    }
+    if !text.chars().any(needs_escape) {
+        return std::borrow::Cow::Borrowed(text);
+    }
+    let mut out = String::with_capacity(text.len() + 8);
+    for c in text.chars() {
+        match c {
+            '\n' => out.push_str("\\n"),
+            '\r' => out.push_str("\\r"),
+            '\t' => out.push_str("\\t"),
+            c if needs_escape(c) => out.push_str(&format!("\\u{{{:x}}}", u32::from(c))),
+            c => out.push(c),
+        }
+    }
+    std::borrow::Cow::Owned(out)
 }
 
 /// Longest run of non-blank characters a message repeats whole, and the longest message. A
@@ -282,6 +310,22 @@ mod tests {
             .in_origin("a")
             .in_origin("b");
         assert_eq!(err.to_string(), "a:3:1: bad");
+    }
+
+    #[test]
+    fn control_characters_are_shown_escaped() {
+        assert_eq!(shown("Probe"), "Probe");
+        assert_eq!(
+            shown("a\u{1b}]0;pwned\u{7}b\u{1b}[31mc\nd\u{202e}"),
+            "a\\u{1b}]0;pwned\\u{7}b\\u{1b}[31mc\\nd\\u{202e}"
+        );
+        let err = Error::input("name `x\u{1b}[2Jy` is odd")
+            .in_origin("a\nb.yaml")
+            .help("no \u{7}bell");
+        assert_eq!(
+            err.to_string(),
+            "a\\nb.yaml: name `x\\u{1b}[2Jy` is odd\n  help: no \\u{7}bell"
+        );
     }
 
     #[test]

@@ -1103,3 +1103,490 @@ fn several_tunings_beside_the_files_variants() {
     );
     assert!(stderr.contains("--tuning"), "{stderr}");
 }
+
+// ---------------------------------------------------------------------------------------------
+// Quantities outside what a real instrument can have (each names the range it breaks)
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn lengths_outside_their_range() {
+    for length in ["1e300m", "1e-300mm", "0.5mm", "101m"] {
+        let stderr = plan_refuses_at(&base_with("648mm", length), 3, "scale_length");
+        assert!(stderr.contains("1 mm to 100 m"), "{stderr}");
+    }
+}
+
+#[test]
+fn tensions_and_loads_outside_their_range() {
+    let stderr = plan_refuses_at(
+        &base_with("tension: 70N", "tension: 1e300N"),
+        6,
+        "defaults.tension",
+    );
+    assert!(stderr.contains("0.001 N to 1000 kN"), "{stderr}");
+    let stderr = plan_refuses_at(
+        &base_with(
+            "scale_length: 648mm",
+            "scale_length: 648mm\nrated_load: 1e-9N",
+        ),
+        4,
+        "rated_load",
+    );
+    assert!(stderr.contains("outside the range"), "{stderr}");
+}
+
+#[test]
+fn pitches_outside_the_range_of_any_string() {
+    for pitch in ["1e6c", "-1e6c", "1e30hz", "0.001hz", "C-9", "3000000/1"] {
+        let stderr = plan_refuses_at(
+            &base_with("pitch: E4", &format!("pitch: {pitch}")),
+            9,
+            "courses[0].pitch",
+        );
+        assert!(
+            stderr.contains("1 Hz to 30 kHz") || stderr.contains("out of"),
+            "{pitch}: {stderr}"
+        );
+    }
+    let stderr = pitch_refuses("12edo", "1e6c");
+    assert!(stderr.contains("1 Hz to 30 kHz"), "{stderr}");
+}
+
+#[test]
+fn references_outside_the_range_of_any_string() {
+    for tuning in ["12edo@A4=1e30", "12edo@A4=1e-30", "12edo@C-10=440"] {
+        let stderr = plan_refuses_at(
+            &base_with("tuning: 12edo", &format!("tuning: {tuning}")),
+            2,
+            "tuning",
+        );
+        assert!(stderr.contains("1 Hz to 30 kHz"), "{tuning}: {stderr}");
+        let stderr = inline_tuning_refuses(tuning);
+        assert!(stderr.contains("1 Hz to 30 kHz"), "{tuning}: {stderr}");
+    }
+}
+
+#[test]
+fn tuning_frequencies_and_periods_outside_their_range() {
+    let stderr = tuning_file_refuses("name: x\ndescription: y\nhertz: [98, 110, 1e30]\n");
+    assert!(
+        stderr.contains("hertz[2]") && stderr.contains("1 Hz to 30 kHz"),
+        "{stderr}"
+    );
+    let stderr = inline_tuning_refuses("2ed1e300c");
+    assert!(stderr.contains("ten octaves"), "{stderr}");
+}
+
+/// `taut plan guitar.yaml --stock stock.yaml -o report.txt` on a stock file holding `stock`.
+fn stock_refuses(stock: &str) -> String {
+    let stderr = with_guitar_refuses(
+        &[("stock.yaml", stock)],
+        &[
+            "plan",
+            "guitar.yaml",
+            "--stock",
+            "stock.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(stderr.starts_with("error: stock.yaml:"), "{stderr}");
+    stderr
+}
+
+#[test]
+fn stock_catalog_diameters_outside_their_range() {
+    for diameter in ["1e300m", "1e-300mm"] {
+        let stock = format!(
+            "catalogs:\n  - id: shelf\n    name: Shelf\n    diameters: [0.5mm, {diameter}]\n    source: demo\n"
+        );
+        let stderr = stock_refuses(&stock);
+        assert!(
+            stderr.contains("catalogs[0].diameters") && stderr.contains("0.01 mm to 25 mm"),
+            "{stderr}"
+        );
+    }
+}
+
+#[test]
+fn stock_densities_and_strengths_outside_their_range() {
+    for (density, strength) in [
+        ("1e300kg/m3", "2000MPa"),
+        ("1e-300kg/m3", "2000MPa"),
+        ("7850kg/m3", "1e300MPa"),
+    ] {
+        let stock = format!(
+            "materials:\n  - id: shelf-wire\n    name: Shelf wire\n    density: {density}\n    elastic_modulus: 200GPa\n    breaking_strength: {strength}\n    source: demo\n"
+        );
+        let stderr = stock_refuses(&stock);
+        assert!(stderr.contains("outside the range"), "{stderr}");
+    }
+}
+
+#[test]
+fn stock_core_ratio_outside_its_range() {
+    let stock = "kinds:\n  - id: odd-wound\n    name: Odd\n    wound:\n      core: {material: music-wire, shape: round, ratio: 1e-300}\n      wraps: [phosphor-bronze]\n    catalog: wound-inch\n    source: demo\n";
+    let stderr = stock_refuses(stock);
+    assert!(
+        stderr.contains("kinds[0].wound.core.ratio") && stderr.contains("0.05 to 0.95"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn stock_measured_string_implying_an_impossible_density() {
+    // 1 mm across and 77.8 g/m: 99,000 kg/m³ through, four times the densest metal.
+    let stock = "kinds:\n  - id: drawer\n    name: Drawer\n    measured:\n      material: nylon\n      strings:\n        - {diameter: 1.00mm, unit_mass: 77.8g/m}\n    source: demo\n";
+    let stderr = stock_refuses(stock);
+    assert!(
+        stderr.contains("kinds[0].measured.strings[0]") && stderr.contains("kg/m3 through"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn set_file_diameters_and_measured_strings_outside_their_range() {
+    for (from, to, field) in [
+        ("diameter: 0.016in", "diameter: 1e-300mm", "diameter"),
+        ("diameter: 0.016in", "diameter: 1e300m", "diameter"),
+        (
+            "{kind: plain-steel, diameter: 0.016in}",
+            "{unit_mass: 77.8g/m, diameter: 1mm}",
+            "unit_mass",
+        ),
+        (
+            "{kind: plain-steel, diameter: 0.016in}",
+            "{mass: 1e-300g, length: 900mm}",
+            "mass",
+        ),
+    ] {
+        let set = changed(GUITAR_SET, from, to);
+        let stderr = with_guitar_refuses(
+            &[("set.yaml", &set)],
+            &[
+                "audit",
+                "guitar.yaml",
+                "--set",
+                "set.yaml",
+                "-o",
+                "report.txt",
+            ],
+        );
+        assert!(
+            stderr.starts_with("error: set.yaml:13:")
+                && stderr.contains(&format!("courses[1].strings[0].{field}")),
+            "{to}: {stderr}"
+        );
+    }
+}
+
+#[test]
+fn set_file_tuning_that_does_not_load() {
+    let set = changed(GUITAR_SET, "tuning: 12edo", "tuning: 1e9edo");
+    for command in ["audit", "convert"] {
+        let stderr = with_guitar_refuses(
+            &[("set.yaml", &set)],
+            &[
+                command,
+                "guitar.yaml",
+                "--set",
+                "set.yaml",
+                "-o",
+                "report.txt",
+            ],
+        );
+        assert!(
+            stderr.starts_with("error: set.yaml:8:") && stderr.contains("field `tuning`"),
+            "{stderr}"
+        );
+    }
+}
+
+#[test]
+fn command_line_quantities_outside_their_range() {
+    let stderr = with_guitar_refuses(
+        &[("set.yaml", GUITAR_SET)],
+        &[
+            "convert",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--scale-length",
+            "1e300m",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("--scale-length") && stderr.contains("1 mm to 100 m"),
+        "{stderr}"
+    );
+    let stderr = with_guitar_refuses(
+        &[],
+        &[
+            "lengths",
+            "--pitch",
+            "E4",
+            "--string",
+            "{kind: plain-steel, diameter: 1e-300mm}",
+            "--tension",
+            "70N",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("--string") && stderr.contains("0.01 mm to 25 mm"),
+        "{stderr}"
+    );
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--tension",
+        "1e300N",
+        "-o",
+        "report.txt",
+    ]);
+    assert!(stderr.contains("--tension"), "{stderr}");
+}
+
+#[test]
+fn laid_out_length_outside_its_range() {
+    // A thick wound string at a high pitch and a light tension would need a 0.1 mm length.
+    let stderr = with_guitar_refuses(
+        &[],
+        &[
+            "lengths",
+            "--pitch",
+            "C8",
+            "--string",
+            "{kind: phosphor-bronze-wound, diameter: 0.056in}",
+            "--tension",
+            "0.01N",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(stderr.contains("1 mm to 100 m"), "{stderr}");
+}
+
+// ---------------------------------------------------------------------------------------------
+// YAML edge cases
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn merge_keys_are_named() {
+    let text = base_with(
+        "courses:\n  - course: 1\n",
+        "courses:\n  - <<: {pitch: E4}\n    course: 1\n",
+    );
+    let stderr = plan_refuses(text);
+    assert!(
+        stderr.contains("merge keys (`<<:`) are not supported"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn four_megabytes_of_nested_block_sequences() {
+    let text = format!("{}x\n", "- ".repeat(2_000_000));
+    let stderr = plan_refuses(text);
+    assert!(
+        stderr.starts_with("error: probe.yaml:1:257:") && stderr.contains("more than 128 levels"),
+        "{stderr}"
+    );
+}
+
+#[test]
+fn control_characters_in_error_messages_are_escaped() {
+    let stderr = plan_refuses(base_with(
+        "pitch: B3",
+        "pitch: \"B3\\e]0;owned\\a\\e[31m\\nerror: fake\"",
+    ));
+    assert!(
+        !stderr.contains('\u{1b}') && !stderr.contains('\u{7}'),
+        "{stderr:?}"
+    );
+    assert!(stderr.contains("\\u{1b}]0;owned\\u{7}"), "{stderr}");
+    assert_eq!(
+        stderr.lines().filter(|l| l.starts_with("error:")).count(),
+        1
+    );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Outputs that would destroy an input or lose a file
+// ---------------------------------------------------------------------------------------------
+
+#[test]
+fn output_onto_the_instrument_file_itself() {
+    for target in ["probe.yaml", "./probe.yaml", "../probe-dir/probe.yaml"] {
+        let dir = tempfile::tempdir().expect("a scratch folder");
+        let inner = dir.path().join("probe-dir");
+        std::fs::create_dir(&inner).expect("a folder");
+        std::fs::write(inner.join("probe.yaml"), BASE).expect("the instrument");
+        std::fs::write(inner.join("report.txt"), EARLIER_REPORT).expect("the report");
+        let stderr = refused_with_code(&inner, &["plan", "probe.yaml", "-o", target], 2);
+        assert!(
+            stderr.contains("--output") && stderr.contains("one of this command's inputs"),
+            "{stderr}"
+        );
+    }
+}
+
+#[test]
+fn output_onto_an_input_through_a_symlink() {
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    std::os::unix::fs::symlink("probe.yaml", dir.path().join("link.yaml")).expect("a link");
+    refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "link.yaml"], 2);
+    refused_with_code(dir.path(), &["plan", "link.yaml", "-o", "probe.yaml"], 2);
+}
+
+#[test]
+fn output_onto_every_kind_of_input() {
+    let stock = "materials:\n  - id: shelf-wire\n    name: Shelf wire\n    density: 7850kg/m3\n    elastic_modulus: 200GPa\n    breaking_strength: 2000MPa\n    source: demo\n";
+    let scale = "name: x\ndescription: y\ndivisions: 12\n";
+    let layout = LAYOUT.replace("tuning: 12edo", "tuning: scale.yaml");
+    let files: &[(&str, &str)] = &[
+        ("set.yaml", GUITAR_SET),
+        ("stock.yaml", stock),
+        ("scale.yaml", scale),
+        ("layout.yaml", &layout),
+    ];
+    let audit = |target: &'static str, flag: &'static str| {
+        let mut args = vec![
+            "audit",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--stock",
+            "stock.yaml",
+            "--tuning",
+            "scale.yaml@A4=440",
+        ];
+        args.extend([flag, target]);
+        args
+    };
+    for target in ["guitar.yaml", "set.yaml", "stock.yaml", "scale.yaml"] {
+        let stderr = with_guitar_refuses(files, &audit(target, "-o"));
+        assert!(stderr.contains("one of this command's inputs"), "{stderr}");
+    }
+    for args in [
+        vec!["lengths", "layout.yaml", "-o", "layout.yaml"],
+        vec!["lengths", "layout.yaml", "-o", "scale.yaml"],
+        vec!["tuning", "show", "scale.yaml", "-o", "scale.yaml"],
+        vec!["plan", "guitar.yaml", "--save-set", "guitar.yaml"],
+        vec![
+            "convert",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--save-set",
+            "set.yaml",
+            "-o",
+            "report.txt",
+        ],
+    ] {
+        let stderr = with_guitar_refuses(files, &args);
+        assert!(stderr.contains("one of this command's inputs"), "{stderr}");
+    }
+}
+
+#[test]
+fn save_set_and_output_onto_the_same_file() {
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--save-set",
+        "report.txt",
+        "-o",
+        "./report.txt",
+    ]);
+    assert!(stderr.contains("name the same place"), "{stderr}");
+    let stderr = cli_refuses(&[
+        "plan",
+        "probe.yaml",
+        "--save-set",
+        "new.yaml",
+        "-o",
+        "new.yaml",
+    ]);
+    assert!(stderr.contains("name the same place"), "{stderr}");
+}
+
+#[test]
+fn output_onto_a_read_only_file() {
+    use std::os::unix::fs::PermissionsExt;
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    let report = dir.path().join("report.txt");
+    std::fs::set_permissions(&report, std::fs::Permissions::from_mode(0o444)).expect("chmod");
+    // Refused even when run as root, who could write it: the mode bits say read-only.
+    let stderr = refused_with_code(dir.path(), &["plan", "probe.yaml", "-o", "report.txt"], 1);
+    assert!(stderr.contains("read-only (mode 0444)"), "{stderr}");
+}
+
+#[test]
+fn save_set_is_not_written_when_the_report_cannot_be() {
+    // The report's folder is missing: neither file appears.
+    let stderr = cli_refuses_with_code(
+        &[
+            "plan",
+            "probe.yaml",
+            "--save-set",
+            "set.yaml",
+            "-o",
+            "no-such-folder/report.txt",
+        ],
+        1,
+    );
+    assert!(stderr.contains("no-such-folder/report.txt"), "{stderr}");
+    // The report is read-only: the set is not written either.
+    use std::os::unix::fs::PermissionsExt;
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    std::fs::set_permissions(
+        dir.path().join("report.txt"),
+        std::fs::Permissions::from_mode(0o400),
+    )
+    .expect("chmod");
+    refused_with_code(
+        dir.path(),
+        &[
+            "plan",
+            "probe.yaml",
+            "--save-set",
+            "set.yaml",
+            "-o",
+            "report.txt",
+        ],
+        1,
+    );
+}
+
+/// Like [`cli_refuses`] with another exit code.
+fn cli_refuses_with_code(args: &[&str], code: i32) -> String {
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    refused_with_code(dir.path(), args, code)
+}
+
+#[test]
+fn closed_standard_output() {
+    // `taut plan probe.yaml >&-`: the report has nowhere to go, and the set is not written.
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    let before = snapshot(dir.path());
+    let output = std::process::Command::new("sh")
+        .current_dir(dir.path())
+        .arg("-c")
+        .arg(format!(
+            "'{}' plan probe.yaml --save-set set.yaml >&-",
+            env!("CARGO_BIN_EXE_taut")
+        ))
+        .output()
+        .expect("run sh");
+    let stderr = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(1), "{stderr}");
+    assert!(
+        stderr.starts_with("error: cannot write standard output: standard output is closed"),
+        "{stderr}"
+    );
+    assert_eq!(snapshot(dir.path()), before);
+}

@@ -61,6 +61,9 @@ proptest! {
         length in 200.0f64..1500.0,
         pitches in prop::collection::vec(-60i64..60, 1..6),
     ) {
+        // Open strings within three octaves of the reference: pitches outside 1 Hz to 30 kHz are
+        // refused as no string sounds there.
+        let pitches: Vec<i64> = pitches.iter().map(|k| k % (3 * n as i64 + 1)).collect();
         let layout = layout(&format!("{n}edo"), length, &pitches, "");
         check(&layout)?;
         // Every course has an octave fret (every degree is fretted, two octaves by default).
@@ -87,6 +90,8 @@ proptest! {
             .map(|i| i.to_string())
             .collect();
         let frets = format!("frets: {{degrees: [{}], count: 40}}\n", steps.join(", "));
+        // Within three periods of the reference (pitches outside 1 Hz to 30 kHz are refused).
+        let pitch = pitch % (3 * list.len() as i64 + 1);
         let layout = layout(&format!("ratios:{}", list.join(",")), length, &[pitch], &frets);
         check(&layout)?;
         // Step 0 is kept, so the octave of the open string is fretted.

@@ -18,9 +18,14 @@ fn quantity_overflowing_on_conversion_is_refused() {
         assert_eq!(err.exit_code(), EXIT_BAD_INPUT);
         assert!(err.to_string().contains("too large"), "{err}");
     }
-    // The largest finite values still convert.
-    assert!("1e300kN".parse::<Force>().is_ok());
-    assert!("1e-300mm".parse::<Length>().is_ok());
+    // Finite values that convert are now refused too, by their plausible range (issue 8).
+    for (text, refused) in [
+        ("1e300kN", "1e300kN".parse::<Force>().err()),
+        ("1e-300mm", "1e-300mm".parse::<Length>().err()),
+    ] {
+        let err = refused.unwrap_or_else(|| panic!("{text} was accepted"));
+        assert!(err.to_string().contains("outside the range"), "{err}");
+    }
 }
 
 /// Found by measuring the reader: a document of unclosed `[` (2 million of them, under the
@@ -89,14 +94,19 @@ fn unnamed_place_is_not_shown_as_a_question_mark() {
 }
 
 /// A document nested 128 levels deep in block style was reported with a field path of 128
-/// segments (`a.k.k.k…`, 260 characters); the path is now cut.
+/// segments (`a.k.k.k…`, 260 characters); the path is now cut. (Deeper than 128 levels is now
+/// refused before parsing; a mistake 110 levels down still has a long path.)
 #[test]
 fn deep_field_path_is_shortened() {
     let mut text = String::from("a:\n");
-    for depth in 1..200 {
+    for depth in 1..110 {
         text.push_str(&" ".repeat(depth));
         text.push_str("k:\n");
     }
+    text.push_str(&" ".repeat(110));
+    text.push_str("k: 1\n");
+    text.push_str(&" ".repeat(110));
+    text.push_str("k: 2\n");
     let shown = taut::input::yaml::parse::<serde_yaml::Value>(&text, "d.yaml")
         .expect_err("accepted")
         .to_string();
@@ -251,4 +261,181 @@ fn list_item_indented_by_a_unicode_blank_does_not_panic() {
     assert_eq!(output.status.code(), Some(2), "{stderr}");
     assert!(!stderr.contains("panicked"), "{stderr}");
     assert!(stderr.starts_with("error: nel.yaml:"), "{stderr}");
+}
+
+// ---------------------------------------------------------------------------------------------
+// Issue 8: tried as a new user would, with hostile input
+// ---------------------------------------------------------------------------------------------
+
+const GUITAR: &str = include_str!("../examples/steel-guitar-12edo.yaml");
+const GUITAR_SET: &str = include_str!("../examples/steel-guitar-set.yaml");
+
+fn scratch_with(files: &[(&str, &str)]) -> tempfile::TempDir {
+    let dir = tempfile::tempdir().expect("a scratch folder");
+    for (name, text) in files {
+        std::fs::write(dir.path().join(name), text).expect("a scratch file");
+    }
+    dir
+}
+
+fn succeeds(dir: &std::path::Path, args: &[&str]) -> String {
+    let output = taut_in(dir, args);
+    assert!(
+        output.status.success(),
+        "taut {args:?}: {}",
+        String::from_utf8_lossy(&output.stderr)
+    );
+    String::from_utf8(output.stdout).expect("UTF-8 output")
+}
+
+/// A UTF-8 byte-order mark before the first key made that key unknown (`missing field
+/// courses` when the first key was `courses`); it is now dropped.
+#[test]
+fn byte_order_mark_before_the_first_key_is_accepted() {
+    let text = format!("\u{feff}{}", instrument("12edo", "B3"));
+    let dir = scratch_with(&[("bom.yaml", &text)]);
+    let out = succeeds(dir.path(), &["plan", "bom.yaml"]);
+    assert!(out.starts_with("Probe — tuning 12edo"), "{out}");
+}
+
+/// `%YAML 1.1`, `---` and one document was refused as two documents.
+#[test]
+fn yaml_directive_then_one_document_is_accepted() {
+    let text = format!("%YAML 1.1\n---\n{}", instrument("12edo", "B3"));
+    let dir = scratch_with(&[("dir.yaml", &text)]);
+    let out = succeeds(dir.path(), &["plan", "dir.yaml"]);
+    assert!(out.starts_with("Probe — tuning 12edo"), "{out}");
+}
+
+/// Escape sequences in a name (`ESC ] 0 ; … BEL` retitles a terminal, `ESC [ 31 m` recolours
+/// it) and a line break (which faked a line of the report) reached the terminal raw.
+#[test]
+fn control_characters_in_names_are_shown_escaped_in_tables() {
+    let text = instrument("12edo", "B3").replace(
+        "name: Probe",
+        "name: \"Probe\\e]0;owned\\a\\e[31m\\nNo warnings.\"",
+    );
+    let dir = scratch_with(&[("esc.yaml", &text)]);
+    let out = succeeds(dir.path(), &["plan", "esc.yaml"]);
+    assert!(!out.contains('\u{1b}') && !out.contains('\u{7}'), "{out:?}");
+    let first = out.lines().next().unwrap_or_default();
+    assert_eq!(
+        first,
+        "Probe\\u{1b}]0;owned\\u{7}\\u{1b}[31m\\nNo warnings. — tuning 12edo"
+    );
+    // JSON keeps the name exactly (its own escapes make it safe).
+    let json = succeeds(dir.path(), &["plan", "esc.yaml", "--format", "json"]);
+    let value: serde_json::Value = serde_json::from_str(&json).expect("JSON");
+    assert_eq!(
+        value["instrument"],
+        "Probe\u{1b}]0;owned\u{7}\u{1b}[31m\nNo warnings."
+    );
+}
+
+/// A set file's `tuning:` was read and silently ignored (`tuning: 1e9edo` passed). It is now
+/// checked where it is read (see the bad-input catalogue) and used as the tuning the strings
+/// are in when no option names one.
+#[test]
+fn set_file_tuning_is_the_tuning_the_strings_are_in() {
+    let set = GUITAR_SET.replace("tuning: 12edo", "tuning: 12edo@A4=415");
+    let dir = scratch_with(&[("guitar.yaml", GUITAR), ("set.yaml", &set)]);
+    let json = succeeds(
+        dir.path(),
+        &[
+            "convert",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--format",
+            "json",
+        ],
+    );
+    let value: serde_json::Value = serde_json::from_str(&json).expect("JSON");
+    // E4 at A4 = 415 Hz: 329.6276 · 415/440 = 310.899 Hz (ISO 16 E4, DERIVED).
+    let before = value["courses"][0]["pitch_before_hz"]
+        .as_f64()
+        .expect("a frequency before");
+    assert!((before - 310.899).abs() < 0.01, "{json}");
+    let audit = succeeds(
+        dir.path(),
+        &[
+            "audit",
+            "guitar.yaml",
+            "--set",
+            "set.yaml",
+            "--format",
+            "json",
+        ],
+    );
+    let value: serde_json::Value = serde_json::from_str(&audit).expect("JSON");
+    // Audited in the instrument's own 12edo at A4 = 440 Hz, from the set's A4 = 415 Hz: tension
+    // goes with f², so (440/415)² − 1 = 12.4% more (Mersenne's law, DERIVED).
+    let change = value["courses"][0]["strings"][0]["tension_change_pct"]
+        .as_f64()
+        .expect("a tension change");
+    assert!((change - 12.4).abs() < 0.2, "{change}");
+}
+
+/// Every format at the edges of the accepted ranges: no `inf`, no `NaN`, and no `null` where a
+/// computed number belongs (fields named with a unit); only the documented optional figures
+/// (no rated load given) may be null.
+#[test]
+fn extreme_accepted_input_gives_only_finite_numbers() {
+    let extreme = |length: &str, tension: &str| {
+        format!(
+            "name: Extremes\nscale_length: {length}\ndefaults:\n  kinds: [plain-steel, nylon, phosphor-bronze-wound]\n  tension: {tension}\ncourses:\n  - pitch: 1hz\n  - pitch: 30000hz\n  - pitch: A0\n"
+        )
+    };
+    let dir = scratch_with(&[
+        ("long.yaml", &extreme("100m", "0.001N")),
+        ("short.yaml", &extreme("1mm", "1000kN")),
+    ]);
+    for file in ["long.yaml", "short.yaml"] {
+        for format in ["table", "json", "csv", "yaml"] {
+            let out = succeeds(dir.path(), &["plan", file, "--format", format]);
+            let lower = out.to_lowercase();
+            for bad in ["nan", "inf ", "inf\n", "inf%", ".inf"] {
+                assert!(!lower.contains(bad), "{file} {format}: `{bad}` in\n{out}");
+            }
+            if format == "json" {
+                let value: serde_json::Value = serde_json::from_str(&out).expect("JSON");
+                let mut nulls = Vec::new();
+                null_numbers(&value, "", &mut nulls);
+                assert!(nulls.is_empty(), "{file}: null numbers {nulls:?}");
+            }
+        }
+    }
+}
+
+/// Keys whose value is null and whose name says it holds a quantity.
+fn null_numbers(value: &serde_json::Value, key: &str, found: &mut Vec<String>) {
+    const UNITS: [&str; 9] = [
+        "_n",
+        "_hz",
+        "_m",
+        "_mm",
+        "_in",
+        "_pct",
+        "_ratio",
+        "_kg_per_m",
+        "_cents",
+    ];
+    match value {
+        serde_json::Value::Null
+            if UNITS.iter().any(|unit| key.ends_with(unit)) && key != "rated_load_n" =>
+        {
+            found.push(key.to_string())
+        }
+        serde_json::Value::Array(items) => {
+            for item in items {
+                null_numbers(item, key, found);
+            }
+        }
+        serde_json::Value::Object(map) => {
+            for (child, item) in map {
+                null_numbers(item, child, found);
+            }
+        }
+        _ => {}
+    }
 }

@@ -324,7 +324,7 @@ fn bad_user_kinds_are_named_by_file_line_and_field() {
         .unwrap_err()
         .to_string();
     assert!(
-        err.contains("k.yaml:") && err.contains("between 0 and 1"),
+        err.contains("k.yaml:") && err.contains("0.05 to 0.95"),
         "{err}"
     );
 

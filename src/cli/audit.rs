@@ -5,10 +5,10 @@ mod several;
 use std::path::PathBuf;
 
 use clap::Args;
-use comfy_table::Cell;
 
 use taut::error::{Error, Result};
 use taut::input::units::{Force, Length};
+use taut::input::yaml::PathStep;
 use taut::instrument::{Instrument, Percent};
 use taut::sets::audit::{self, Audit, AuditOptions, Verdict, DEFAULT_MAX_CHANGE};
 use taut::sets::set::StringSet;
@@ -20,7 +20,9 @@ use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
-use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
+use super::text::{
+    cell, course_pitch_text, feel_legend, maybe, new_table, right, user, warnings_and_cautions,
+};
 use taut::plan::solve::tuning_for;
 
 /// Inputs of the stiffness and bend figures, shared by `audit`, `convert` and `lengths`.
@@ -134,10 +136,28 @@ pub fn run(args: AuditArgs) -> Result<()> {
         None => None,
     };
     let now = now_instrument.as_ref().unwrap_or(&instrument);
+    // The tuning the strings are in now: --from, else the --from-instrument's own, else the
+    // set file's `tuning:` (when it differs from what is audited), else the instrument's own.
+    let audited_spec = given
+        .map(String::as_str)
+        .or(instrument.tuning.as_deref())
+        .unwrap_or(taut::plan::solve::DEFAULT_TUNING)
+        .trim();
+    let set_tuning = set
+        .tuning
+        .as_deref()
+        .filter(|spec| given.is_some() || spec.trim() != audited_spec);
     let reference_tuning = match (&args.from, &now_instrument, given, &now.tuning) {
         (Some(spec), _, _, _) => Some(tuning::load(spec).map_err(|err| err.in_origin("--from"))?),
         (None, Some(_), _, None) => Some(tuning::load(taut::plan::solve::DEFAULT_TUNING)?),
-        (None, Some(_), _, Some(spec)) | (None, None, Some(_), Some(spec)) => {
+        (None, Some(_), _, Some(spec)) => {
+            Some(tuning::load(spec).map_err(|err| err.in_origin(now.origin().to_string()))?)
+        }
+        (None, None, _, _) if set_tuning.is_some() => Some(
+            tuning::load(set_tuning.unwrap_or_default())
+                .map_err(|err| set.point(err, &[PathStep::Key("tuning")]))?,
+        ),
+        (None, None, Some(_), Some(spec)) => {
             Some(tuning::load(spec).map_err(|err| err.in_origin(now.origin().to_string()))?)
         }
         _ => None,
@@ -152,6 +172,21 @@ pub fn run(args: AuditArgs) -> Result<()> {
         max_change,
         feel: args.feel.options()?,
     };
+    let mut inputs = output::Inputs::new();
+    inputs
+        .spec(&args.instrument)
+        .file(&args.set)
+        .maybe_spec(args.from.as_deref())
+        .maybe_spec(args.from_instrument.as_deref())
+        .maybe_spec(instrument.tuning.as_deref())
+        .maybe_spec(now.tuning.as_deref())
+        .maybe_spec(set.tuning.as_deref());
+    for spec in &args.tuning {
+        inputs.spec(spec);
+    }
+    for file in &args.stock.files {
+        inputs.file(file);
+    }
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
         if !plots.is_empty() {
             return Err(taut::Error::input(
@@ -162,18 +197,15 @@ pub fn run(args: AuditArgs) -> Result<()> {
         }
         let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
         let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;
-        return output::emit(&report, &args.output);
+        return output::emit(&report, &args.output, &inputs);
     }
     let tuning = tuning_for(&instrument, given.map(String::as_str), "--tuning")?;
     let report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
     if !plots.is_empty() {
-        pictures::write(
-            &plots,
-            size,
-            &taut::charts::build::audit(&report, &instrument),
-        )?;
+        let charts = taut::charts::build::audit(&report, &instrument);
+        pictures::write(&plots, size, &charts, &inputs)?;
     }
-    output::emit(&report, &args.output)
+    output::emit(&report, &args.output, &inputs)
 }
 
 impl Render for Audit {
@@ -202,13 +234,13 @@ impl Render for Audit {
                     } else {
                         String::new()
                     }),
-                    Cell::new(if first {
+                    cell(if first {
                         course_pitch_text(&course.pitch)
                     } else {
                         format!("  {}", string.interval)
                     }),
                     right(format!("{:.2}", string.pitch_hz)),
-                    Cell::new(&string.string),
+                    cell(&string.string),
                     right(maybe(string.diameter_mm, |d| format!("{d:.3} mm"))),
                     right(format!("{:.1}", string.tension_n)),
                     right(maybe(string.tension_change_pct, |c| format!("{c:+.0}%"))),
@@ -216,16 +248,18 @@ impl Render for Audit {
                     right(b),
                     right(partials),
                     right(bend),
-                    Cell::new(if first { course.verdict.text() } else { "" }),
+                    cell(if first { course.verdict.text() } else { "" }),
                 ]);
             }
         }
         let mut out = format!(
             "{} — set: {} — tuning {}",
-            self.instrument, self.set, self.tuning
+            user(&self.instrument),
+            user(&self.set),
+            user(&self.tuning)
         );
         if let Some(reference) = &self.reference_tuning {
-            out.push_str(&format!(" (strings now in {reference})"));
+            out.push_str(&format!(" (strings now in {})", user(reference)));
         }
         out.push_str(&format!("\n{table}\n"));
         out.push_str(&format!(
@@ -239,7 +273,7 @@ impl Render for Audit {
                     "  Course {}: {}: {}.\n",
                     course.course,
                     course.verdict.text(),
-                    course.reason
+                    user(&course.reason)
                 ));
             }
         }

@@ -4,10 +4,9 @@
 use std::path::PathBuf;
 
 use clap::Args;
-use comfy_table::Cell;
 
 use taut::error::{Error, Result};
-use taut::input::units::Length;
+use taut::input::units::{Diameter, Length};
 use taut::instrument::{Instrument, Percent, TensionSpec};
 use taut::sets::convert::{self, Conversion, ConvertOptions, FeelRule};
 use taut::sets::set::StringSet;
@@ -18,7 +17,9 @@ use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
-use super::text::{feel_legend, maybe, new_table, pitch_with_note, right, warnings_and_cautions};
+use super::text::{
+    cell, feel_legend, maybe, new_table, pitch_with_note, right, user, warnings_and_cautions,
+};
 use taut::plan::solve::tuning_for;
 
 /// Arguments of `taut convert`.
@@ -68,9 +69,10 @@ pub struct ConvertArgs {
     /// Choose every string afresh, even those that would still do.
     #[arg(long)]
     pub reselect_all: bool,
-    /// Also write the new set as a string-set file.
+    /// Also write the new set as a string-set file (written together with the report: both or
+    /// neither).
     #[arg(long, value_name = "FILE")]
-    pub save_set: Option<PathBuf>,
+    pub save_set: Option<output::Target>,
     #[command(flatten)]
     pub stock: StockArgs,
     #[command(flatten)]
@@ -104,7 +106,13 @@ pub fn run(args: ConvertArgs) -> Result<()> {
     };
     let stock = args.stock.load()?;
     let set = StringSet::load(&args.set, &stock)?;
-    let tuning_before = tuning_for(&before, args.from.as_deref(), "--from")?;
+    // The tuning the strings are in now: --from, else the set file's `tuning:`, else the
+    // instrument's own.
+    let tuning_before = match (&args.from, &set.tuning) {
+        (None, Some(spec)) => taut::tuning::load(spec)
+            .map_err(|err| set.point(err, &[taut::input::yaml::PathStep::Key("tuning")]))?,
+        _ => tuning_for(&before, args.from.as_deref(), "--from")?,
+    };
     // Without --to, the strings stay in the tuning they are in now unless a new instrument file
     // names its own.
     let keeps_tuning =
@@ -136,7 +144,7 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         tolerance,
         target,
         scale_length: positive_length(&args.scale_length, "--scale-length")?,
-        slot_width: positive_length(&args.slot, "--slot")?,
+        slot_width: parse_flag::<Diameter>(args.slot.as_deref(), "--slot")?.map(Diameter::si),
         reselect_all: args.reselect_all,
         feel: args.feel.options()?,
         ..ConvertOptions::default()
@@ -150,14 +158,43 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         &stock,
         &options,
     )?;
-    if let Some(path) = &args.save_set {
-        output::write_atomically(path, conversion.new_set().to_yaml().as_bytes())?;
+    let mut inputs = output::Inputs::new();
+    inputs
+        .spec(&args.instrument)
+        .file(&args.set)
+        .maybe_spec(args.from.as_deref())
+        .maybe_spec(args.to.as_deref())
+        .maybe_spec(args.to_instrument.as_deref())
+        .maybe_spec(before.tuning.as_deref())
+        .maybe_spec(after.tuning.as_deref())
+        .maybe_spec(set.tuning.as_deref());
+    for file in &args.stock.files {
+        inputs.file(file);
     }
+    let report = output::report_text(&conversion, &args.output)?;
+    let mut outputs = output::Outputs::new(&inputs);
     if !plots.is_empty() {
         let charts = taut::charts::build::conversion(&conversion, &after);
-        pictures::write(&plots, size, &charts)?;
+        pictures::add(&mut outputs, &plots, size, &charts)?;
     }
-    output::emit(&conversion, &args.output)
+    if let Some(target) = &args.save_set {
+        let mut new_set = conversion.new_set();
+        // The spec that loads, not the tuning's display name.
+        let spec = match (keeps_tuning, &args.from, &args.to) {
+            (false, _, Some(to)) => Some(to.clone()),
+            (false, _, None) => after.tuning.clone(),
+            (true, Some(from), _) => Some(from.clone()),
+            (true, None, _) => set.tuning.clone().or_else(|| before.tuning.clone()),
+        };
+        new_set.tuning = Some(spec.unwrap_or_else(|| taut::plan::solve::DEFAULT_TUNING.into()));
+        outputs.add(
+            "--save-set",
+            Some(target.clone()),
+            new_set.to_yaml().into_bytes(),
+        );
+    }
+    outputs.add("--output", args.output.output.clone(), report.into_bytes());
+    outputs.write()
 }
 
 impl Render for Conversion {
@@ -194,7 +231,7 @@ impl Render for Conversion {
                     } else {
                         String::new()
                     }),
-                    Cell::new(if first {
+                    cell(if first {
                         match &course.pitch_before {
                             Some(old) if *old != course.pitch_after => {
                                 format!(
@@ -215,20 +252,20 @@ impl Render for Conversion {
                     } else {
                         format!("  {}", string.interval)
                     }),
-                    Cell::new(before.map_or("(new course)".to_string(), |b| {
+                    cell(before.map_or("(new course)".to_string(), |b| {
                         format!("{} {}", b.string, b.gauge.clone().unwrap_or_default())
                     })),
                     right(maybe(before.map(|b| b.tension_n), |t| format!("{t:.1}"))),
                     right(maybe(before.and_then(|b| b.stress_ratio), |s| {
                         format!("{:.0}%", s * 100.0)
                     })),
-                    Cell::new(after_text),
+                    cell(after_text),
                     right(format!("{:.1}", string.after.tension_n)),
                     right(maybe(string.tension_change_pct, |c| format!("{c:+.1}%"))),
                     right(maybe(string.after.stress_ratio, |s| {
                         format!("{:.0}%", s * 100.0)
                     })),
-                    Cell::new(match &string.slot {
+                    cell(match &string.slot {
                         Some(fit) if !fit.fits => format!("+{:.3} mm", fit.wider_by_mm),
                         Some(_) => "fits".to_string(),
                         None => "-".to_string(),
@@ -241,11 +278,11 @@ impl Render for Conversion {
         }
         let mut out = format!(
             "{} ({}) → {} ({}) — set now: {}\n{table}\n",
-            self.instrument_before,
-            self.tuning_before,
-            self.instrument_after,
-            self.tuning_after,
-            self.set
+            user(&self.instrument_before),
+            user(&self.tuning_before),
+            user(&self.instrument_after),
+            user(&self.tuning_after),
+            user(&self.set)
         );
         if let Some(first) = self.courses.first() {
             if let Some(before) = first.length_before_m {
@@ -303,7 +340,7 @@ impl Render for Conversion {
         }
         out.push('\n');
         if let Some(caution) = &self.load_caution {
-            out.push_str(&format!("caution: {caution}\n"));
+            out.push_str(&format!("caution: {}\n", user(caution)));
         }
         out.push_str(&feel_legend(
             self.courses

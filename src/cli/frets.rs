@@ -3,8 +3,6 @@
 mod render;
 mod svg;
 
-use std::path::PathBuf;
-
 use clap::{Args, ValueEnum};
 
 use taut::error::Result;
@@ -70,7 +68,7 @@ pub struct FretsArgs {
     pub format: FretsFormat,
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
-    pub output: Option<PathBuf>,
+    pub output: Option<output::Target>,
 }
 
 impl FretsArgs {
@@ -105,9 +103,16 @@ pub fn run(args: &FretsArgs) -> Result<()> {
         FretsFormat::Csv => render::csv(&layout)?,
         FretsFormat::Svg => svg::svg(&layout),
     };
-    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
-    match &args.output {
-        Some(path) => output::write_atomically(path, text.as_bytes()),
-        None => output::write_stdout(text.as_bytes()),
-    }
+    let text = match args.format {
+        FretsFormat::Table => output::terminal_text(text),
+        _ => text,
+    };
+    let mut inputs = output::Inputs::new();
+    inputs
+        .spec(&args.instrument)
+        .maybe_spec(args.tuning.as_deref())
+        .maybe_spec(instrument.tuning.as_deref());
+    // The shared writer: never over an input, a closed pipe ends quietly, a file appears whole
+    // or not at all.
+    output::write_bytes("--output", args.output.as_ref(), text.into_bytes(), &inputs)
 }

@@ -82,25 +82,40 @@ pub fn run(args: GenerateArgs) -> Result<()> {
         What::Completions { shell } => {
             let mut script = Vec::new();
             clap_complete::generate(shell.shell(), &mut command, "taut", &mut script);
-            output::write_stdout(&script)
+            output::write_bytes("--output", None, script, &output::Inputs::new())
         }
-        What::Man { dir: None } => output::write_stdout(&roff(command, "taut")?),
+        What::Man { dir: None } => output::write_bytes(
+            "--output",
+            None,
+            roff(command, "taut")?,
+            &output::Inputs::new(),
+        ),
         What::Man { dir: Some(dir) } => {
             if !dir.is_dir() {
                 return Err(Error::input(format!("`{}` is not a folder", dir.display()))
                     .in_origin("--dir")
                     .help("create the folder first"));
             }
-            output::write_atomically(&dir.join("taut.1"), &roff(command.clone(), "taut")?)?;
+            let none = output::Inputs::new();
+            let mut pages = output::Outputs::new(&none);
+            pages.add(
+                "--dir",
+                Some(output::Target::Path(dir.join("taut.1"))),
+                roff(command.clone(), "taut")?,
+            );
             for sub in command
                 .get_subcommands()
                 .filter(|sub| sub.get_name() != "help")
             {
                 let title = format!("taut-{}", sub.get_name());
                 let page = sub.clone().bin_name(format!("taut {}", sub.get_name()));
-                output::write_atomically(&dir.join(format!("{title}.1")), &roff(page, &title)?)?;
+                pages.add(
+                    "--dir",
+                    Some(output::Target::Path(dir.join(format!("{title}.1")))),
+                    roff(page, &title)?,
+                );
             }
-            Ok(())
+            pages.write()
         }
     }
 }

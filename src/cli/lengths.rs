@@ -3,7 +3,6 @@
 use std::path::PathBuf;
 
 use clap::Args;
-use comfy_table::Cell;
 
 use taut::error::{Error, Result};
 use taut::input::units::Force;
@@ -17,7 +16,9 @@ use super::output::{self, OutputArgs, Render};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
-use super::text::{course_pitch_text, feel_legend, maybe, new_table, right, warnings_and_cautions};
+use super::text::{
+    cell, course_pitch_text, feel_legend, maybe, new_table, right, user, warnings_and_cautions,
+};
 
 /// Arguments of `taut lengths`.
 #[derive(Debug, Args)]
@@ -93,10 +94,22 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             feel: args.feel.options()?,
         },
     )?;
-    if !plots.is_empty() {
-        pictures::write(&plots, size, &taut::charts::build::layout(&report))?;
+    let mut inputs = output::Inputs::new();
+    inputs.maybe_spec(args.tuning.as_deref());
+    if let Some(layout) = &args.layout {
+        inputs.file(layout);
     }
-    output::emit(&report, &args.output)
+    if let Some(spec) = &input.tuning {
+        inputs.spec(spec);
+    }
+    for file in &args.stock.files {
+        inputs.file(file);
+    }
+    if !plots.is_empty() {
+        let charts = taut::charts::build::layout(&report);
+        pictures::write(&plots, size, &charts, &inputs)?;
+    }
+    output::emit(&report, &args.output, &inputs)
 }
 
 impl Render for Layout {
@@ -125,9 +138,9 @@ impl Render for Layout {
             };
             table.add_row(vec![
                 right(course.course.to_string()),
-                Cell::new(course_pitch_text(&course.pitch)),
+                cell(course_pitch_text(&course.pitch)),
                 right(format!("{:.2}", course.pitch.hz)),
-                Cell::new(&course.string),
+                cell(&course.string),
                 right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
                 right(format!("{:.1}", course.tension_n)),
                 right(format!(
@@ -156,9 +169,9 @@ impl Render for Layout {
             for other in &course.other_strings {
                 table.add_row(vec![
                     right(String::new()),
-                    Cell::new(format!("  {}", other.interval)),
+                    cell(format!("  {}", other.interval)),
                     right(format!("{:.2}", other.pitch_hz)),
-                    Cell::new(&other.string),
+                    cell(&other.string),
                     right(maybe(other.diameter_mm, |d| format!("{d:.3} mm"))),
                     right(format!("{:.1}", other.tension_n)),
                     right(String::new()),
@@ -171,7 +184,11 @@ impl Render for Layout {
                 ]);
             }
         }
-        let mut out = format!("{} — tuning {}\n{table}\n", self.name, self.tuning);
+        let mut out = format!(
+            "{} — tuning {}\n{table}\n",
+            user(&self.name),
+            user(&self.tuning)
+        );
         out.push_str(&format!(
             "Total tension: {:.1} N over {} string(s) on {} course(s)",
             self.total_tension_n,
@@ -193,7 +210,7 @@ impl Render for Layout {
         } else {
             out.push_str(&format!("\nImpractical jumps ({}):\n", self.jumps.len()));
             for jump in &self.jumps {
-                out.push_str(&format!("  {}\n", jump.message));
+                out.push_str(&format!("  {}\n", user(&jump.message)));
             }
         }
         out.push_str(&feel_legend(

@@ -58,6 +58,8 @@ where
 
 /// Runs the command line and returns the process exit code.
 pub fn main() -> ExitCode {
+    // Before anything opens a file, which could take over a closed descriptor 1.
+    output::note_standard_output();
     let cli = Cli::parse();
     let result = match cli.command {
         Command::Plan(args) => plan::run(&args),

@@ -128,8 +128,14 @@ fn parse_size(text: &str) -> Result<Size> {
     }
 }
 
-/// Draws each requested chart of `charts` and writes it (atomically, like every output file).
-pub fn write(requests: &[PlotRequest], size: Size, charts: &[Named]) -> Result<()> {
+/// Draws each requested chart of `charts` and adds it to `outputs`, to be written with the
+/// run's other files.
+pub fn add(
+    outputs: &mut output::Outputs<'_>,
+    requests: &[PlotRequest],
+    size: Size,
+    charts: &[Named],
+) -> Result<()> {
     for request in requests {
         let named = match &request.chart {
             Some(name) => charts.iter().find(|c| c.name == name),
@@ -140,9 +146,26 @@ pub fn write(requests: &[PlotRequest], size: Size, charts: &[Named]) -> Result<(
             Picture::Svg => draw::svg(&named.chart, size)?.into_bytes(),
             Picture::Png => draw::png(&named.chart, size)?,
         };
-        output::write_atomically(&request.path, &bytes)?;
+        outputs.add(
+            "--plot",
+            Some(output::Target::Path(request.path.clone())),
+            bytes,
+        );
     }
     Ok(())
+}
+
+/// Draws the requested charts and writes them under the rules of every output (never over one
+/// of `inputs`, each file whole or not at all, all of them or none).
+pub fn write(
+    requests: &[PlotRequest],
+    size: Size,
+    charts: &[Named],
+    inputs: &output::Inputs,
+) -> Result<()> {
+    let mut outputs = output::Outputs::new(inputs);
+    add(&mut outputs, requests, size, charts)?;
+    outputs.write()
 }
 
 #[cfg(test)]

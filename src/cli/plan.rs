@@ -103,16 +103,18 @@ pub struct PlanArgs {
     /// Output format (plans add CSV and YAML to the shared table and JSON).
     #[arg(long, value_enum, default_value = "table")]
     pub format: PlanFormat,
-    /// Write to this file instead of standard output (written whole, or not at all).
+    /// Write to this file instead of standard output (`-` is standard output; a file is written
+    /// whole or not at all, never over one of the command's inputs).
     #[arg(long, short = 'o', value_name = "FILE")]
-    pub output: Option<PathBuf>,
+    pub output: Option<output::Target>,
     /// Under the table, show why each string was chosen: its target, the next thinner and
     /// thicker gauge, and the best string of each other allowed kind (JSON always has them).
     #[arg(long)]
     pub alternatives: bool,
-    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
+    /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`
+    /// (written together with the report: all or none).
     #[arg(long, value_name = "FILE")]
-    pub save_set: Option<PathBuf>,
+    pub save_set: Option<output::Target>,
     /// Also write the builder's string chart: a printable table per string with the charts,
     /// as a self-contained `.html` page or a `.csv` table.
     #[arg(long, value_name = "FILE")]
@@ -136,6 +138,16 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         ForceChoice::Lbf => ForceUnit::Lbf,
         ForceChoice::Kgf => ForceUnit::Kgf,
     };
+    let mut inputs = output::Inputs::new();
+    inputs
+        .spec(&args.instrument)
+        .maybe_spec(instrument.tuning.as_deref());
+    for spec in &args.tuning {
+        inputs.spec(spec);
+    }
+    for file in &args.stock.files {
+        inputs.file(file);
+    }
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
         if !plots.is_empty() || sheet.is_some() {
             return Err(taut::Error::input(
@@ -144,7 +156,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             .in_origin("--plot")
             .help("plan one tuning at a time for its pictures (`--tuning NAME` once)"));
         }
-        return run_several(args, &instrument, &stock, tension, force);
+        return run_several(args, &instrument, &stock, tension, force, &inputs);
     }
     let plan = solve::plan(
         &instrument,
@@ -154,22 +166,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             tension: tension.clone(),
         },
     )?;
-    if let Some(path) = &args.save_set {
-        let set = taut::sets::set::StringSet::from_plan(&plan).to_yaml();
-        output::write_atomically(path, set.as_bytes())?;
-    }
-    if !plots.is_empty() || sheet == Some(SheetFormat::Html) {
-        let windows = build::tension_windows(&instrument, tension.as_ref());
-        let charts = build::plan(&plan, &windows);
-        pictures::write(&plots, size, &charts)?;
-        if let (Some(path), Some(SheetFormat::Html)) = (&args.string_chart, sheet) {
-            let page = taut::charts::sheet::html(&plan, &charts, DEFAULT_SIZE)?;
-            output::write_atomically(path, page.as_bytes())?;
-        }
-    }
-    if let (Some(path), Some(SheetFormat::Csv)) = (&args.string_chart, sheet) {
-        output::write_atomically(path, taut::charts::sheet::csv(&plan)?.as_bytes())?;
-    }
+    output::check_finite(&plan)?;
     let units = DisplayUnits {
         force,
         length: match args.length_unit {
@@ -189,18 +186,55 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         PlanFormat::Csv => render::csv(&plan)?,
         PlanFormat::Yaml => render::yaml(&plan)?,
     };
-    write(args, &text)
-}
-
-/// The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
-fn write(args: &PlanArgs, text: &str) -> Result<()> {
-    match &args.output {
-        Some(path) => output::write_atomically(path, text.as_bytes()),
-        None if args.format == PlanFormat::Table => {
-            output::write_stdout(super::text::for_terminal(text.to_string()).as_bytes())
+    let text = match args.format {
+        PlanFormat::Table if args.output.is_none() => {
+            super::text::for_terminal(output::terminal_text(text))
         }
-        None => output::write_stdout(text.as_bytes()),
+        PlanFormat::Table => output::terminal_text(text),
+        _ => text,
+    };
+    // The shared writer: every file or none, never over an input, a closed pipe ends
+    // quietly, a file appears whole or not at all.
+    let mut outputs = output::Outputs::new(&inputs);
+    if !plots.is_empty() || sheet == Some(SheetFormat::Html) {
+        let windows = build::tension_windows(&instrument, tension.as_ref());
+        let charts = build::plan(&plan, &windows);
+        pictures::add(&mut outputs, &plots, size, &charts)?;
+        if let (Some(path), Some(SheetFormat::Html)) = (&args.string_chart, sheet) {
+            let page = taut::charts::sheet::html(&plan, &charts, DEFAULT_SIZE)?;
+            outputs.add(
+                "--string-chart",
+                Some(output::Target::Path(path.clone())),
+                page.into_bytes(),
+            );
+        }
     }
+    if let (Some(path), Some(SheetFormat::Csv)) = (&args.string_chart, sheet) {
+        outputs.add(
+            "--string-chart",
+            Some(output::Target::Path(path.clone())),
+            taut::charts::sheet::csv(&plan)?.into_bytes(),
+        );
+    }
+    if let Some(target) = &args.save_set {
+        let mut set = taut::sets::set::StringSet::from_plan(&plan);
+        // The spec that loaded, so `audit` and `convert` can load it back (a file tuning's
+        // display name would not load).
+        set.tuning = Some(
+            args.tuning
+                .first()
+                .cloned()
+                .or_else(|| instrument.tuning.clone())
+                .unwrap_or_else(|| solve::DEFAULT_TUNING.to_string()),
+        );
+        outputs.add(
+            "--save-set",
+            Some(target.clone()),
+            set.to_yaml().into_bytes(),
+        );
+    }
+    outputs.add("--output", args.output.clone(), text.into_bytes());
+    outputs.write()
 }
 
 /// `taut plan` with several tunings or the instrument's variants: one set for all of them.
@@ -210,6 +244,7 @@ fn run_several(
     stock: &taut::strings::stock::Stock,
     tension: Option<TensionSpec>,
     force: ForceUnit,
+    inputs: &output::Inputs,
 ) -> Result<()> {
     let plan = taut::plan::several::plan(
         instrument,
@@ -223,7 +258,9 @@ fn run_several(
             },
         },
     )?;
-    if let Some(path) = &args.save_set {
+    output::check_finite(&plan)?;
+    let mut outputs = output::Outputs::new(inputs);
+    if let Some(target) = &args.save_set {
         if let Some(first) = plan.tunings.first() {
             let mut set = taut::sets::set::StringSet::from_plan(&first.plan);
             let names: Vec<&str> = plan.tunings.iter().map(|b| b.variant.as_str()).collect();
@@ -233,7 +270,11 @@ fn run_several(
                 "Strings chosen by `taut plan` to serve every one of: {}.",
                 names.join(", ")
             ));
-            output::write_atomically(path, set.to_yaml().as_bytes())?;
+            outputs.add(
+                "--save-set",
+                Some(target.clone()),
+                set.to_yaml().into_bytes(),
+            );
         }
     }
     let text = match args.format {
@@ -242,7 +283,15 @@ fn run_several(
         PlanFormat::Csv => several::csv(&plan)?,
         PlanFormat::Yaml => several::yaml(&plan)?,
     };
-    write(args, &text)
+    let text = match args.format {
+        PlanFormat::Table if args.output.is_none() => {
+            super::text::for_terminal(output::terminal_text(text))
+        }
+        PlanFormat::Table => output::terminal_text(text),
+        _ => text,
+    };
+    outputs.add("--output", args.output.clone(), text.into_bytes());
+    outputs.write()
 }
 
 /// What `--string-chart` writes.

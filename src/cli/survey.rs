@@ -96,7 +96,12 @@ pub fn run(args: &SurveyArgs) -> Result<()> {
         }
         None => search_with_progress(&survey)?,
     };
-    output::emit(&SurveyOutput { report: &report }, &args.output)
+    let mut inputs = output::Inputs::new();
+    inputs.spec(&args.instrument).file(&args.settings);
+    for file in &args.stock.files {
+        inputs.file(file);
+    }
+    output::emit(&SurveyOutput { report: &report }, &args.output, &inputs)
 }
 
 /// Course checks above which a progress bar is worth drawing.

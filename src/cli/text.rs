@@ -3,6 +3,7 @@
 
 use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
 
+use taut::error::shown;
 use taut::plan::warning::{Severity, Warning, SAFETY_REMINDER};
 use taut::plan::CoursePitch;
 
@@ -16,9 +17,20 @@ pub fn new_table(header: Vec<&str>) -> Table {
     table
 }
 
+/// A cell of text, with the user's control characters (a line break in a name, a terminal
+/// escape) shown escaped so they cannot break the table or reach the terminal.
+pub fn cell(text: impl AsRef<str>) -> Cell {
+    Cell::new(shown(text.as_ref()))
+}
+
 /// A cell aligned right (numbers).
 pub fn right(text: String) -> Cell {
-    Cell::new(text).set_alignment(CellAlignment::Right)
+    cell(text).set_alignment(CellAlignment::Right)
+}
+
+/// The user's text (a name, a description) for a line of a report, control characters escaped.
+pub fn user(text: &str) -> std::borrow::Cow<'_, str> {
+    shown(text)
 }
 
 /// An optional figure as text, `-` when unknown.
@@ -68,7 +80,7 @@ pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>])
                 "  {:<7} {}: {}\n",
                 severity_flag(warning.severity),
                 warning.kind.name(),
-                warning.message
+                shown(&warning.message)
             ));
         }
     }
@@ -78,7 +90,7 @@ pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>])
     } else {
         out.push_str("\nBefore you string this up:\n");
         for caution in cautions {
-            out.push_str(&format!("  - {}\n", caution.as_ref()));
+            out.push_str(&format!("  - {}\n", shown(caution.as_ref())));
         }
     }
     out

@@ -5,9 +5,9 @@ use clap::{Args, Subcommand};
 use comfy_table::{presets, CellAlignment, Table};
 use serde::Serialize;
 
-use super::output::{emit, OutputArgs, Render};
+use super::output::{emit, Inputs, OutputArgs, Render};
 use super::pictures::{self, PlotArgs};
-use taut::error::Result;
+use taut::error::{shown, Result};
 use taut::tuning::analysis::{fit, FitReport};
 use taut::tuning::compare::{compare, Comparison};
 use taut::tuning::listing::{default_range, list, DegreeListing};
@@ -131,6 +131,15 @@ struct ListArgs {
     output: OutputArgs,
 }
 
+/// The tuning specs a command reads, as inputs no output may overwrite.
+fn inputs(specs: &[&str]) -> Inputs {
+    let mut inputs = Inputs::new();
+    for spec in specs {
+        inputs.spec(spec);
+    }
+    inputs
+}
+
 /// Runs `taut tuning …`.
 pub fn run(args: TuningArgs) -> Result<()> {
     match args.command {
@@ -144,16 +153,22 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 }
                 _ => default_to,
             });
-            emit(&list(&tuning, from, to)?, &args.output)
+            emit(
+                &list(&tuning, from, to)?,
+                &args.output,
+                &inputs(&[&args.tuning]),
+            )
         }
         TuningCommand::Fit(args) => {
             let (plots, size) = args.plots.requests(&["errors"])?;
             let tuning = load(&args.tuning)?;
             let report = fit(&tuning, args.limit)?;
+            let inputs = inputs(&[&args.tuning]);
             if !plots.is_empty() {
-                pictures::write(&plots, size, &taut::charts::build::fit(&report))?;
+                let charts = taut::charts::build::fit(&report);
+                pictures::write(&plots, size, &charts, &inputs)?;
             }
-            emit(&report, &args.output)
+            emit(&report, &args.output, &inputs)
         }
         TuningCommand::Compare(args) => {
             let first = load(&args.first)?;
@@ -166,7 +181,11 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 }
                 _ => default_to,
             });
-            emit(&compare(&first, &second, from, to)?, &args.output)
+            emit(
+                &compare(&first, &second, from, to)?,
+                &args.output,
+                &inputs(&[&args.first, &args.second]),
+            )
         }
         TuningCommand::Find(args) => {
             let tuning = load(&args.tuning)?;
@@ -190,14 +209,14 @@ pub fn run(args: TuningArgs) -> Result<()> {
                 tuning: tuning.summary(),
                 pitches,
             };
-            emit(&report, &args.output)
+            emit(&report, &args.output, &inputs(&[&args.tuning]))
         }
         TuningCommand::List(args) => {
             let mut tunings = Vec::new();
             for (_, loaded) in library::load_all() {
                 tunings.push(loaded?.summary());
             }
-            emit(&ShippedTunings { tunings }, &args.output)
+            emit(&ShippedTunings { tunings }, &args.output, &Inputs::new())
         }
     }
 }
@@ -240,9 +259,13 @@ fn align_right(table: &mut Table, columns: &[usize]) {
 }
 
 fn heading(summary: &TuningSummary) -> String {
-    let mut text = format!("{}: {}\n", summary.name, summary.description);
+    let mut text = format!(
+        "{}: {}\n",
+        shown(&summary.name),
+        shown(&summary.description)
+    );
     if let Some(source) = &summary.source {
-        text.push_str(&format!("source: {source}\n"));
+        text.push_str(&format!("source: {}\n", shown(source)));
     }
     let reference = &summary.reference;
     text.push_str(&format!(

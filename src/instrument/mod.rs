@@ -32,7 +32,7 @@ pub use tension::{Shape, TensionGoal, TensionSpec};
 pub use variants::{Variant, MAX_VARIANTS};
 
 use crate::error::{did_you_mean, Error, Result};
-use crate::input::units::{Force, Length};
+use crate::input::units::{Diameter, Force, Length};
 use crate::input::yaml::{self, PathStep};
 use crate::tuning::course_pitch::CoursePitch;
 use crate::tuning::Tuning;
@@ -63,7 +63,7 @@ pub struct CourseSettings {
     pub tension: Option<TensionSpec>,
     /// The widest string the nut slot, bridge hole or tuner takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
-    pub max_diameter: Option<Length>,
+    pub max_diameter: Option<Diameter>,
 }
 
 /// One string of a course.
@@ -140,7 +140,7 @@ pub struct Course {
     pub tension: Option<TensionSpec>,
     /// The widest string this course's slot or hole takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
-    pub max_diameter: Option<Length>,
+    pub max_diameter: Option<Diameter>,
     /// The string named outright for every string of the course that does not name its own:
     /// the player's own string, kept while the rest are solved.
     pub string: Option<StringEntryFile>,
@@ -235,9 +235,9 @@ impl Instrument {
     /// name (see [`TEMPLATES`]).
     pub fn load(spec: &str) -> Result<Self> {
         let path = Path::new(spec);
-        if path.exists() {
+        if path.exists() || spec == "-" {
             let text = yaml::read_text(path)?;
-            return Instrument::from_text(text, spec);
+            return Instrument::from_text(text, &yaml::origin_of(path));
         }
         if let Some(text) = template(spec) {
             return Instrument::from_text(text.to_string(), &format!("template `{spec}`"));
@@ -362,7 +362,7 @@ impl Instrument {
             max_diameter_m: course
                 .max_diameter
                 .or(self.defaults.max_diameter)
-                .map(Length::si),
+                .map(Diameter::si),
             strings: &course.strings,
             string: course.string.as_ref(),
         })

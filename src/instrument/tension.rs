@@ -18,6 +18,10 @@ impl Expecting for Length {
     const EXPECTING: &'static str = "a length such as `648mm` or `25.5in`";
 }
 
+impl Expecting for crate::input::units::Diameter {
+    const EXPECTING: &'static str = "a diameter such as `0.012in` or `1.2mm`";
+}
+
 /// How a profile moves from its first value to its last.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Deserialize)]
 #[serde(rename_all = "lowercase", deny_unknown_fields)]

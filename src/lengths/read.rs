@@ -7,7 +7,7 @@ impl LayoutInput {
     /// Reads a layout file.
     pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
         let text = yaml::read_text(path)?;
-        LayoutInput::from_text(text, &path.display().to_string(), stock)
+        LayoutInput::from_text(text, &yaml::origin_of(path), stock)
     }
 
     /// Parses and checks a layout; `origin` names it in messages.

@@ -98,6 +98,28 @@ pub fn solve_layout(
             tension_n = goal.target_n;
         }
         let length_m = physics::length_for_tension(tension_n, unit_mass, first_hz);
+        // Bounded inputs can still ask for a length no instrument has (a heavy string at a high
+        // pitch and a low tension): say so rather than lay out a 1 µm string.
+        let bounds = crate::input::units::LENGTH_BOUNDS;
+        if !bounds.contains(length_m) {
+            return Err(input.point(
+                Error::input(format!(
+                    "course {} would need a vibrating length of {} m at {} Hz and {} N, outside the range taut accepts for {}: {}",
+                    course.course,
+                    crate::input::units::short_number(length_m),
+                    crate::input::units::short_number(first_hz),
+                    crate::input::units::short_number(tension_n),
+                    bounds.what,
+                    bounds.shown
+                ))
+                .help("choose a lighter or heavier string, or another tension"),
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(index),
+                    PathStep::Key("string"),
+                ],
+            ));
+        }
         let stress_checks = Checks {
             limits,
             ..Checks::default()

@@ -10,7 +10,7 @@ use serde::Deserialize;
 use crate::error::{Error, Result};
 use crate::input::id::Id;
 use crate::input::registry::{Entry, Registry};
-use crate::input::units::Length;
+use crate::input::units::Diameter;
 
 /// Largest number of gauges one catalog may hold; a range with a tiny step is a mistake.
 pub const MAX_GAUGES: usize = 2000;
@@ -40,7 +40,7 @@ struct CatalogSpec {
     id: Id,
     name: String,
     #[serde(default)]
-    diameters: Vec<Length>,
+    diameters: Vec<Diameter>,
     #[serde(default)]
     ranges: Vec<RangeSpec>,
     source: String,
@@ -50,9 +50,9 @@ struct CatalogSpec {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct RangeSpec {
-    from: Length,
-    to: Length,
-    step: Length,
+    from: Diameter,
+    to: Diameter,
+    step: Diameter,
 }
 
 #[derive(Deserialize)]

@@ -12,7 +12,7 @@ use serde::Deserialize;
 use crate::error::{Error, Result};
 use crate::input::id::Id;
 use crate::input::registry::{Entry, Registry};
-use crate::input::units::{Length, Mass, UnitMass};
+use crate::input::units::{short_number, Diameter, Length, Mass, UnitMass, CORE_RATIO_BOUNDS};
 use crate::strings::construction::{
     default_core_ratio, Construction, CoreRatio, Measured, WoundRecipe, DEFAULT_INNER_SHARE,
 };
@@ -161,7 +161,7 @@ struct MeasuredString {
 #[derive(Deserialize)]
 #[serde(deny_unknown_fields)]
 struct RawMeasuredString {
-    diameter: Length,
+    diameter: Diameter,
     #[serde(default)]
     unit_mass: Option<UnitMass>,
     #[serde(default)]
@@ -185,6 +185,8 @@ impl TryFrom<RawMeasuredString> for MeasuredString {
                 )
             }
         };
+        crate::input::units::check_measured_string(unit_mass, Some(raw.diameter.si()))
+            .map_err(|err| err.plain_message())?;
         Ok(MeasuredString {
             diameter: raw.diameter.si(),
             unit_mass,
@@ -346,9 +348,13 @@ pub fn load_kinds_file(
                     CoreRatio::Fixed,
                 );
                 match ratio {
-                    CoreRatio::Fixed(fixed) if !(fixed > 0.0 && fixed < 1.0) => {
+                    CoreRatio::Fixed(fixed) if !CORE_RATIO_BOUNDS.contains(fixed) => {
                         return Err(place(
-                            Error::input(format!("core ratio {fixed} must lie between 0 and 1")),
+                            Error::input(format!(
+                                "core ratio {} is outside the range taut accepts: {}",
+                                short_number(fixed),
+                                CORE_RATIO_BOUNDS.shown
+                            )),
                             &["wound", "core", "ratio"],
                         ));
                     }

@@ -13,7 +13,7 @@ use serde::{Deserialize, Deserializer};
 use crate::error::{Error, Result};
 use crate::input::id::Id;
 use crate::input::registry::{Entry, Registry};
-use crate::input::units::{Density, Length, Pressure};
+use crate::input::units::{Density, Diameter, Pressure};
 
 /// A property that may depend on the wire's diameter (strength and modulus of drawn wire do).
 #[derive(Debug, Clone, PartialEq)]
@@ -143,7 +143,7 @@ impl<'de> Visitor<'de> for CurveVisitor {
 
 /// One `[diameter, value]` table row.
 #[derive(Deserialize)]
-struct Row(Length, Pressure);
+struct Row(Diameter, Pressure);
 
 /// A string material.
 #[derive(Debug, Clone, PartialEq, Deserialize)]

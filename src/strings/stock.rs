@@ -50,7 +50,7 @@ impl Stock {
         for path in paths {
             let path = path.as_ref();
             let text = crate::input::yaml::read_text(path)?;
-            stock.add_text(&text, &path.display().to_string())?;
+            stock.add_text(&text, &crate::input::yaml::origin_of(path))?;
         }
         Ok(Cow::Owned(stock))
     }

@@ -73,7 +73,7 @@ fn zero_count() -> Count {
 /// Reads and checks a tuning definition file.
 pub fn load_file(path: &Path) -> Result<Tuning> {
     let text = yaml::read_text(path)?;
-    parse(&text, &path.display().to_string())
+    parse(&text, &yaml::origin_of(path))
 }
 
 /// Parses and checks a tuning definition; `origin` names the file in errors.

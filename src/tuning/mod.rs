@@ -401,7 +401,7 @@ fn load_body(body: &str) -> Result<Tuning> {
         return inline::parse(body);
     }
     let path = std::path::Path::new(body);
-    if path.exists() || body.ends_with(".yaml") || body.ends_with(".yml") {
+    if body == "-" || path.exists() || body.ends_with(".yaml") || body.ends_with(".yml") {
         return definition::load_file(path);
     }
     let mut error = Error::input(format!(

@@ -9,6 +9,7 @@ use serde::{Deserialize, Serialize};
 
 use super::interval::FiniteNumber;
 use crate::error::{Error, Result};
+use crate::input::units::{short_number, FREQUENCY_BOUNDS};
 use crate::tuning::pitch::{parse_finite, NoteName, ISO_16_A4_HZ};
 
 /// A resolved reference.
@@ -67,7 +68,24 @@ fn check_hz(hz: f64) -> Result<f64> {
             "{hz} Hz is not a frequency: it must be above 0 Hz"
         )));
     }
-    Ok(hz)
+    FREQUENCY_BOUNDS.check(hz)
+}
+
+/// A placed reference must put both its degree and concert A4 at real pitches (`C-10=440`
+/// would put A4 at 450 kHz).
+fn check_reference(reference: Reference) -> Result<Reference> {
+    FREQUENCY_BOUNDS.check(reference.hz)?;
+    FREQUENCY_BOUNDS
+        .check(reference.concert_a4_hz)
+        .map_err(|_| {
+            Error::input(format!(
+            "this reference puts concert A4 at {} Hz, outside the range taut accepts for {}: {}",
+            short_number(reference.concert_a4_hz),
+            FREQUENCY_BOUNDS.what,
+            FREQUENCY_BOUNDS.shown
+        ))
+        })?;
+    Ok(reference)
 }
 
 /// How to write a reference after `@`, for error help.
@@ -108,8 +126,8 @@ impl ReferenceSpec {
 
     /// Turns the written reference into degree, frequency and concert A4.
     pub fn resolve(&self) -> Result<Reference> {
-        match (self.note, self.hz) {
-            (Some(note), Some(hz)) => Ok(Reference {
+        let reference = match (self.note, self.hz) {
+            (Some(note), Some(hz)) => Ok::<_, Error>(Reference {
                 degree: self.degree,
                 hz,
                 concert_a4_hz: hz / note.hz(1.0),
@@ -129,7 +147,8 @@ impl ReferenceSpec {
                     .field("reference")
                     .help("e.g. `reference: {degree: 0, note: A4, hz: 415}`"),
             ),
-        }
+        }?;
+        check_reference(reference)
     }
 }
 

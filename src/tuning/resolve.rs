@@ -7,7 +7,24 @@ impl Tuning {
     /// Resolves a pitch as written against this tuning. Note names must land on a degree
     /// (within [`LANDING_TOLERANCE_CENTS`]) unless snapped with `~` or moved by an explicit
     /// cents offset; degrees must exist in the tuning.
+    /// Every resolved pitch lies within [`crate::input::units::FREQUENCY_BOUNDS`].
     pub fn resolve(&self, spec: &PitchSpec) -> Result<ResolvedPitch> {
+        let resolved = self.resolve_unbounded(spec)?;
+        let bounds = crate::input::units::FREQUENCY_BOUNDS;
+        if bounds.contains(resolved.hz) {
+            Ok(resolved)
+        } else {
+            Err(Error::input(format!(
+                "`{}` is at {} Hz, outside the range taut accepts for a pitch: {}",
+                resolved.label,
+                crate::input::units::short_number(resolved.hz),
+                bounds.shown
+            ))
+            .help("no string sounds there; check the octave, the cents or the frequency"))
+        }
+    }
+
+    fn resolve_unbounded(&self, spec: &PitchSpec) -> Result<ResolvedPitch> {
         let label = spec.to_string();
         match spec {
             PitchSpec::Degree { degree } => Ok(self.degree(*degree)?.resolved(label)),

@@ -139,6 +139,9 @@ impl Shape {
                         ))
                         .field(format!("hertz[{i}]")));
                     }
+                    crate::input::units::FREQUENCY_BOUNDS
+                        .check(*value)
+                        .map_err(|err| err.field(format!("hertz[{i}]")))?;
                 }
                 for (i, pair) in hz.windows(2).enumerate() {
                     if pair[1] <= pair[0] {
@@ -229,8 +232,19 @@ fn check_period(period: &Interval) -> Result<()> {
         .field("period")
         .help("the period is the interval after which the degrees repeat, usually `2/1`"));
     }
+    if period.cents > MAX_PERIOD_CENTS {
+        return Err(Error::input(format!(
+            "the period is {period}, wider than the {MAX_PERIOD_CENTS} cents (ten octaves) taut accepts"
+        ))
+        .field("period")
+        .help("real tunings repeat at the octave (`2/1`), the tritave (`3/1`) or thereabouts"));
+    }
     Ok(())
 }
+
+/// Widest period accepted: ten octaves (a frequency ratio of 1024), well beyond the tritave and
+/// the double octave of real non-octave tunings, and beyond the 1 Hz to 30 kHz pitch range.
+pub const MAX_PERIOD_CENTS: f64 = 12_000.0;
 
 fn check_below_period(steps: &[Interval], period: &Interval, field: &str) -> Result<()> {
     for (i, step) in steps.iter().enumerate() {

@@ -1,7 +1,6 @@
 //! Renderers of a [`Plan`]: a terminal table, JSON, CSV and YAML. Each reads the plain model
 //! and nothing else, so all four say the same thing.
 
-use comfy_table::Cell;
 use serde::Serialize;
 
 use taut::error::{Error, Result};
@@ -9,7 +8,9 @@ use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
 use taut::plan::warning::{Severity, SAFETY_CAUTIONS};
 use taut::plan::{CoursePlan, Plan, Standing, StringChoice};
 
-use crate::cli::text::{course_pitch_text, new_table, right, severity_flag, warnings_and_cautions};
+use crate::cli::text::{
+    cell, course_pitch_text, new_table, right, severity_flag, user, warnings_and_cautions,
+};
 
 /// How quantities are shown in the table.
 #[derive(Debug, Clone, Copy)]
@@ -70,14 +71,14 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
                 } else {
                     String::new()
                 }),
-                Cell::new(pitch),
+                cell(pitch),
                 right(format!("{:.2}", string.pitch_hz)),
                 right(if first {
                     length_text(course.length_m, units.length)
                 } else {
                     String::new()
                 }),
-                Cell::new(if string.choice.standing == Standing::Fixed {
+                cell(&if string.choice.standing == Standing::Fixed {
                     format!("{} (fixed)", string.choice.kind)
                 } else {
                     string.choice.kind.clone()
@@ -88,11 +89,15 @@ pub fn table(plan: &Plan, units: DisplayUnits) -> String {
                 right(format!("{:.1} N", string.target_tension_n)),
                 right(tension_text(string.choice.tension_n, units.force)),
                 right(format!("{:.0}%", string.choice.stress_ratio * 100.0)),
-                Cell::new(worst_severity(course, number).map_or("", severity_flag)),
+                cell(worst_severity(course, number).map_or("", severity_flag)),
             ]);
         }
     }
-    let mut out = format!("{} — tuning {}\n{table}\n", plan.instrument, plan.tuning);
+    let mut out = format!(
+        "{} — tuning {}\n{table}\n",
+        user(&plan.instrument),
+        user(&plan.tuning)
+    );
     out.push_str(&format!(
         "Total tension: {} over {} strings",
         tension_text(plan.total_tension_n, units.force),

@@ -39,6 +39,10 @@ pub(super) fn convert_error(
             .replace(" column ", ", column ");
         message.push_str(&format!(" (while {context})"));
     }
+    // serde_yaml does not expand merge keys; serde reports `<<` as an unknown field.
+    if message.starts_with("unknown field `<<`") {
+        message = "merge keys (`<<:`) are not supported; write the fields out in full".to_string();
+    }
     let mut error = Error::input(message.clone());
     // A value's own check (`#[serde(try_from)]`, a quantity's unit) is reported by serde_yaml at
     // the start of the enclosing mapping, often line 1; the field's own line is more use.
@@ -56,7 +60,9 @@ pub(super) fn convert_error(
     if !path.is_empty() && path != "." && path != "?" {
         error = error.field(shorten_field(path));
     }
-    if let Some(hint) = unknown_field_hint(&message) {
+    if message.starts_with("merge keys") {
+        error = error.help("an anchor (`&name`) and alias (`*name`) may repeat a whole value");
+    } else if let Some(hint) = unknown_field_hint(&message) {
         error = error.help(hint);
     } else if message.contains("found character that cannot start any token")
         || message.contains("\t")

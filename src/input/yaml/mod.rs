@@ -32,8 +32,53 @@ mod tests;
 /// bound keeps a mistaken path (a disk image, a log) from eating the machine.
 pub const MAX_INPUT_BYTES: u64 = 4 * 1024 * 1024;
 
-/// Reads a UTF-8 text file, refusing files that are missing, too large, binary or not UTF-8.
+/// How an input path is named in messages: `standard input` for `-`, else the path as given.
+pub fn origin_of(path: &Path) -> String {
+    if path == Path::new("-") {
+        "standard input".to_string()
+    } else {
+        path.display().to_string()
+    }
+}
+
+/// Whether standard input has been read already (it can be read once per run).
+static STANDARD_INPUT_READ: std::sync::atomic::AtomicBool =
+    std::sync::atomic::AtomicBool::new(false);
+
+/// Reads standard input (the path `-`) with the same limits as a file.
+fn read_standard_input() -> Result<String> {
+    use std::io::Read;
+    let shown = "standard input";
+    if STANDARD_INPUT_READ.swap(true, std::sync::atomic::Ordering::SeqCst) {
+        return Err(Error::input(
+            "standard input (`-`) is given for two inputs; it can be read only once",
+        )
+        .in_origin(shown));
+    }
+    let mut bytes = Vec::new();
+    std::io::stdin()
+        .lock()
+        .take(MAX_INPUT_BYTES + 1)
+        .read_to_end(&mut bytes)
+        .map_err(|source| Error::Read {
+            path: shown.into(),
+            source,
+        })?;
+    if bytes.len() as u64 > MAX_INPUT_BYTES {
+        return Err(Error::input(format!(
+            "the input goes on past {MAX_INPUT_BYTES} bytes; taut reads definition files of at most {MAX_INPUT_BYTES} bytes"
+        ))
+        .in_origin(shown));
+    }
+    text_from_bytes(bytes, shown)
+}
+
+/// Reads a UTF-8 text file (`-` is standard input), refusing files that are missing, too large,
+/// binary or not UTF-8. A UTF-8 byte-order mark at the start is dropped.
 pub fn read_text(path: &Path) -> Result<String> {
+    if path == Path::new("-") {
+        return read_standard_input();
+    }
     let shown = path.display().to_string();
     let metadata = std::fs::metadata(path).map_err(|source| Error::Read {
         path: path.to_path_buf(),
@@ -81,15 +126,23 @@ pub fn text_from_bytes(bytes: Vec<u8>, origin: &str) -> Result<String> {
         .at(line, column)
         .in_origin(origin));
     }
-    String::from_utf8(bytes).map_err(|err| {
+    let text = String::from_utf8(bytes).map_err(|err| {
         let offset = err.utf8_error().valid_up_to();
         let (line, column) = line_column_of_offset(err.as_bytes(), offset);
         Error::input("the file is not UTF-8 text")
             .at(line, column)
             .in_origin(origin)
             .help("save the file as UTF-8")
+    })?;
+    // Some editors start UTF-8 files with a byte-order mark; it is no part of the document.
+    Ok(match text.strip_prefix(BYTE_ORDER_MARK) {
+        Some(rest) => rest.to_string(),
+        None => text,
     })
 }
+
+/// The UTF-8 byte-order mark (U+FEFF) some editors write at the start of a file.
+const BYTE_ORDER_MARK: char = '\u{feff}';
 
 fn line_column_of_offset(bytes: &[u8], offset: usize) -> (usize, usize) {
     let before = &bytes[..offset.min(bytes.len())];
@@ -104,6 +157,7 @@ fn line_column_of_offset(bytes: &[u8], offset: usize) -> (usize, usize) {
 /// Parses one YAML document into `T`, naming `origin` (a path or an option name) in errors,
 /// with the line, column and field path of the first problem.
 pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
+    let text = text.strip_prefix(BYTE_ORDER_MARK).unwrap_or(text);
     if text.trim().is_empty()
         || text
             .lines()
@@ -116,9 +170,10 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
         .enumerate()
         .find(|(_, line)| line.trim() == "---" || line.starts_with("--- "))
         .filter(|(n, _)| {
-            text.lines()
-                .take(*n)
-                .any(|l| !l.trim().is_empty() && !l.trim_start().starts_with('#'))
+            // Directives (`%YAML 1.1`) before the first `---` belong to the one document.
+            text.lines().take(*n).any(|l| {
+                !l.trim().is_empty() && !l.trim_start().starts_with('#') && !l.starts_with('%')
+            })
         })
     {
         return Err(
@@ -127,13 +182,23 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
                 .in_origin(origin),
         );
     }
-    if let Some((line, column)) = first_too_deep_flow(text) {
-        return Err(Error::input(format!(
-            "the document nests `[` or `{{` more than {MAX_FLOW_DEPTH} levels deep"
-        ))
-        .at(line, column)
-        .in_origin(origin)
-        .help("a definition file nests a few levels; check for unclosed brackets"));
+    if let Some(too_deep) = first_too_deep(text) {
+        let (message, help) = match too_deep.kind {
+            Nesting::Flow => (
+                format!("the document nests `[` or `{{` more than {MAX_FLOW_DEPTH} levels deep"),
+                "a definition file nests a few levels; check for unclosed brackets",
+            ),
+            Nesting::Block => (
+                format!(
+                    "the document nests lists or mappings more than {MAX_BLOCK_DEPTH} levels deep"
+                ),
+                "a definition file nests a few levels; check the indentation and the `- ` marks",
+            ),
+        };
+        return Err(Error::input(message)
+            .at(too_deep.line, too_deep.column)
+            .in_origin(origin)
+            .help(help));
     }
     let deserializer = serde_yaml::Deserializer::from_str(text);
     serde_path_to_error::deserialize(deserializer).map_err(|err| {

@@ -51,6 +51,19 @@ pub(crate) fn check_form(entry: &StringEntryFile) -> std::result::Result<(), Ref
             "kind",
         ))?;
         if let Some(core) = core_diameter {
+            if core < diameter && !crate::input::units::CORE_RATIO_BOUNDS.contains(core / diameter)
+            {
+                return Err((
+                    Error::input(format!(
+                        "a core of {:.3} mm in a string of {:.3} mm is a core-to-outer ratio of {}, outside the range taut accepts: {}",
+                        core * 1000.0,
+                        diameter * 1000.0,
+                        crate::input::units::short_number(core / diameter),
+                        crate::input::units::CORE_RATIO_BOUNDS.shown
+                    )),
+                    "core_diameter",
+                ));
+            }
             if core >= diameter {
                 return Err((
                     Error::input(format!(
@@ -156,6 +169,8 @@ pub(crate) fn check_entry(
         });
     }
     if let Some(unit_mass) = entry.unit_mass {
+        crate::input::units::check_measured_string(unit_mass.0.si(), diameter)
+            .map_err(|err| (err, "unit_mass"))?;
         return Ok(SetString::Measured {
             unit_mass: unit_mass.0.si(),
             diameter,
@@ -166,6 +181,8 @@ pub(crate) fn check_entry(
     match (entry.mass, entry.length) {
         (Some(mass), Some(length)) => {
             let measured = Measured::from_weighing(mass.0.si(), length.0.si(), None, None);
+            crate::input::units::check_measured_string(measured.unit_mass, diameter)
+                .map_err(|err| (err, "mass"))?;
             Ok(SetString::Measured {
                 unit_mass: measured.unit_mass,
                 diameter,

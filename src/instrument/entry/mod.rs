@@ -17,7 +17,7 @@ use std::fmt::Write as _;
 use serde::{Deserialize, Deserializer};
 
 use crate::error::{Error, Result};
-use crate::input::units::{Length, Mass, UnitMass, METRES_PER_INCH};
+use crate::input::units::{Diameter, Length, Mass, UnitMass, METRES_PER_INCH};
 use crate::instrument::{Expecting, NoDetail, ScalarOrMap};
 use crate::strings::construction::{Construction, Measured, WoundRecipe};
 use crate::strings::kind::{KindBuild, StringKind, StringKinds};
@@ -58,8 +58,8 @@ where
 #[serde(deny_unknown_fields)]
 pub struct StringEntryFile {
     kind: Option<String>,
-    diameter: Option<Located<Length>>,
-    core_diameter: Option<Located<Length>>,
+    diameter: Option<Located<Diameter>>,
+    core_diameter: Option<Located<Diameter>>,
     unit_mass: Option<Located<UnitMass>>,
     mass: Option<Located<Mass>>,
     length: Option<Located<Length>>,

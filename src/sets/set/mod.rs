@@ -84,7 +84,8 @@ pub struct StringSet {
     pub about: Option<String>,
     /// The instrument it was planned for, if recorded.
     pub instrument: Option<String>,
-    /// The tuning it was planned for, if recorded.
+    /// The tuning the strings are in (a tuning spec, checked to load): `audit` and `convert`
+    /// take it as the strings' current tuning when no option names one.
     pub tuning: Option<String>,
     /// The courses, in file order.
     pub courses: Vec<SetCourse>,

@@ -7,7 +7,7 @@ impl StringSet {
     /// Reads a set file.
     pub fn load(path: &Path, stock: &Stock) -> Result<Self> {
         let text = yaml::read_text(path)?;
-        StringSet::from_text(text, &path.display().to_string(), stock)
+        StringSet::from_text(text, &yaml::origin_of(path), stock)
     }
 
     /// Parses and checks a set; `origin` names it in messages. Kind and material ids are checked
@@ -23,6 +23,13 @@ impl StringSet {
             origin: origin.to_string(),
             text,
         };
+        // The tuning the strings are in: `audit` and `convert` use it when no option names one,
+        // so it must be a tuning taut can load (checked here, where its line is known).
+        if let Some(spec) = &set.tuning {
+            if let Err(err) = crate::tuning::load(spec) {
+                return Err(set.point(err, &[PathStep::Key("tuning")]));
+            }
+        }
         if file.courses.is_empty() {
             return Err(set.point(
                 Error::input("the set has no courses; list at least one"),
