@@ -29,9 +29,9 @@ pub fn tension_windows(
 }
 
 /// The stress fractions at which an instrument's cautions and dangers start (its own, or the
-/// selector's defaults).
+/// selector's defaults; limits the plan refuses were refused before any chart is drawn).
 pub fn stress_limits(instrument: &Instrument) -> StressLimits {
-    crate::sets::matching::stress_limits(instrument)
+    crate::plan::solve::stress_limits(instrument).unwrap_or_default()
 }
 
 /// The flag a warning puts on a point: cautions and dangers are drawn, notes are not.

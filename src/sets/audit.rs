@@ -27,9 +27,7 @@ use crate::input::units::METRES_PER_INCH;
 use crate::instrument::{CourseInput, CourseString, Instrument};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
-use crate::sets::matching::{
-    cautions_for, check_no_extra_courses, missing_course, set_strings, stress_limits,
-};
+use crate::sets::matching::{cautions_for, check_no_extra_courses, missing_course, set_strings};
 use crate::sets::set::{ResolvedString, SetString, StringSet};
 use crate::strings::feel::{self, Feel, FeelOptions};
 use crate::strings::physics;
@@ -181,7 +179,7 @@ pub fn audit(
 ) -> Result<Audit> {
     check_no_extra_courses(set, instrument)?;
     let (kinds, materials) = (stock.kinds(), stock.materials());
-    let limits = stress_limits(instrument);
+    let limits = crate::plan::solve::stress_limits(instrument)?;
     let mut courses = Vec::with_capacity(instrument.courses.len());
     for index in 0..instrument.courses.len() {
         let course = instrument

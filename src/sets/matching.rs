@@ -9,21 +9,6 @@ use crate::plan::warning::{Severity, Warning, SAFETY_CAUTIONS};
 use crate::sets::set::{ResolvedString, SetString, StringSet};
 use crate::strings::kind::StringKinds;
 use crate::strings::material::Materials;
-use crate::strings::select::StressLimits;
-
-/// The instrument's stress limits (its own, or the selector's defaults).
-pub(crate) fn stress_limits(instrument: &Instrument) -> StressLimits {
-    let mut limits = StressLimits::default();
-    if let Some(own) = instrument.stress_limits {
-        if let Some(caution) = own.caution {
-            limits.caution = caution.fraction();
-        }
-        if let Some(danger) = own.danger {
-            limits.danger = danger.fraction();
-        }
-    }
-    limits
-}
 
 /// The set's course for an instrument course, with its strings resolved, checking the counts.
 pub(crate) fn set_strings<'k>(

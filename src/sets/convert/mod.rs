@@ -44,9 +44,7 @@ use crate::plan::warning::{
     with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS,
 };
 use crate::plan::CoursePitch;
-use crate::sets::matching::{
-    cautions_for, check_no_extra_courses, missing_course, set_strings, stress_limits,
-};
+use crate::sets::matching::{cautions_for, check_no_extra_courses, missing_course, set_strings};
 use crate::sets::set::{SetCourse, SetString, StringSet};
 use crate::strings::construction::Construction;
 use crate::strings::feel::{self, Feel, FeelOptions};
@@ -297,8 +295,8 @@ pub fn convert(
 ) -> Result<Conversion> {
     check_no_extra_courses(set, before)?;
     let (kinds, materials) = (stock.kinds(), stock.materials());
-    let limits = stress_limits(after);
-    let limits_before = stress_limits(before);
+    let limits = crate::plan::solve::stress_limits(after)?;
+    let limits_before = crate::plan::solve::stress_limits(before)?;
     let mut courses = Vec::with_capacity(after.courses.len());
     let mut total_before_n = 0.0;
     let mut seen_before = Vec::new();
