@@ -1,0 +1,81 @@
+//! The warning flags the selector raises: a small bit set, so a choice carries them without allocating.
+
+#[allow(unused_imports)]
+use super::*;
+
+/// A small set of warning flags.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
+pub struct Warnings(u16);
+
+impl Warnings {
+    /// No warnings.
+    pub const NONE: Warnings = Warnings(0);
+    /// Stress ratio above the caution limit (but not above the danger limit).
+    pub const STRESS_CAUTION: Warnings = Warnings(1 << 0);
+    /// Stress ratio above the danger limit.
+    pub const STRESS_DANGER: Warnings = Warnings(1 << 1);
+    /// The course needs a lighter string than the kind's thinnest gauge.
+    pub const THINNER_THAN_CATALOG: Warnings = Warnings(1 << 2);
+    /// The course needs a heavier string than the kind's thickest gauge.
+    pub const THICKER_THAN_CATALOG: Warnings = Warnings(1 << 3);
+    /// The string is wider than the slot or hole takes.
+    pub const WIDER_THAN_SLOT: Warnings = Warnings(1 << 4);
+    /// Tension below the window's minimum.
+    pub const BELOW_WINDOW: Warnings = Warnings(1 << 5);
+    /// Tension above the window's maximum.
+    pub const ABOVE_WINDOW: Warnings = Warnings(1 << 6);
+    /// No gauge of any allowed kind is within the tolerance of the target tension.
+    pub const NONE_WITHIN_TOLERANCE: Warnings = Warnings(1 << 7);
+    /// The breaking strength is unknown (a measured string without a material).
+    pub const STRENGTH_UNKNOWN: Warnings = Warnings(1 << 8);
+
+    const NAMES: [(Warnings, &'static str); 9] = [
+        (Warnings::STRESS_CAUTION, "stress-caution"),
+        (Warnings::STRESS_DANGER, "stress-danger"),
+        (Warnings::THINNER_THAN_CATALOG, "thinner-than-catalog"),
+        (Warnings::THICKER_THAN_CATALOG, "thicker-than-catalog"),
+        (Warnings::WIDER_THAN_SLOT, "wider-than-slot"),
+        (Warnings::BELOW_WINDOW, "below-window"),
+        (Warnings::ABOVE_WINDOW, "above-window"),
+        (Warnings::NONE_WITHIN_TOLERANCE, "none-within-tolerance"),
+        (Warnings::STRENGTH_UNKNOWN, "strength-unknown"),
+    ];
+
+    /// Whether every flag of `other` is set.
+    pub fn contains(self, other: Warnings) -> bool {
+        self.0 & other.0 == other.0
+    }
+
+    /// Whether any flag of `other` is set.
+    pub fn intersects(self, other: Warnings) -> bool {
+        self.0 & other.0 != 0
+    }
+
+    /// Sets the flags of `other`.
+    pub fn insert(&mut self, other: Warnings) {
+        self.0 |= other.0;
+    }
+
+    /// Both sets of flags.
+    pub fn union(self, other: Warnings) -> Warnings {
+        Warnings(self.0 | other.0)
+    }
+
+    /// Whether no flag is set.
+    pub fn is_empty(self) -> bool {
+        self.0 == 0
+    }
+
+    /// The raw bits.
+    pub fn bits(self) -> u16 {
+        self.0
+    }
+
+    /// Stable names of the set flags, e.g. `stress-caution`, in a fixed order.
+    pub fn names(self) -> impl Iterator<Item = &'static str> {
+        Warnings::NAMES
+            .into_iter()
+            .filter(move |(flag, _)| self.contains(*flag))
+            .map(|(_, name)| name)
+    }
+}

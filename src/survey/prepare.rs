@@ -1,0 +1,210 @@
+//! Preparing a survey: the size check, the tunings loaded and each string's table built.
+
+#[allow(unused_imports)]
+use super::*;
+
+impl<'a> Survey<'a> {
+    /// Checks the size of the space first (see [`Size::of`]), then loads the tunings and
+    /// builds the per-string tables.
+    pub fn prepare(
+        instrument: &'a Instrument,
+        settings: &'a Settings,
+        stock: &'a Stock,
+    ) -> Result<Survey<'a>> {
+        let kinds = stock.kinds();
+        let size = Size::of(instrument, settings)?;
+        let limits = solve::stress_limits(instrument)?;
+        let tolerance = instrument
+            .tolerance
+            .map_or(select::DEFAULT_TOLERANCE, |percent| percent.fraction());
+        let mut strings = Vec::new();
+        for index in 0..instrument.courses.len() {
+            let course = instrument
+                .course_input(index, None)
+                .ok_or_else(|| Error::input("a course has no vibrating length"))?;
+            let at = [PathStep::Key("courses"), PathStep::Index(index)];
+            let goal = course.tension.ok_or_else(|| {
+                instrument.point(
+                    Error::input(format!("course {} has no tension target", course.number))
+                        .help("give `tension` in `defaults` or in the course"),
+                    &at,
+                )
+            })?;
+            for (string_index, string) in course.strings.iter().enumerate() {
+                if course.fixed(string_index).is_some() {
+                    return Err(instrument.point(
+                        Error::input(format!(
+                            "course {}: a fixed string (`string:`) cannot be surveyed yet",
+                            course.number
+                        ))
+                        .help("let taut choose this string for the survey"),
+                        &at,
+                    ));
+                }
+                let ids = string.kinds.as_deref().or(course.kinds).ok_or_else(|| {
+                    instrument.point(
+                        Error::input(format!("course {} allows no string kinds", course.number))
+                            .help("list `kinds` in `defaults` or in the course"),
+                        &at,
+                    )
+                })?;
+                if ids.len() > solve::MAX_KINDS_PER_LIST {
+                    return Err(instrument.point(
+                        Error::input(format!(
+                            "{} kinds are listed; at most {} are allowed",
+                            ids.len(),
+                            solve::MAX_KINDS_PER_LIST
+                        )),
+                        &at,
+                    ));
+                }
+                let mut kind_list: Vec<&StringKind> = Vec::with_capacity(ids.len());
+                for id in ids {
+                    kind_list.push(
+                        kinds
+                            .get(id.trim())
+                            .map_err(|err| instrument.point(err, &at))?,
+                    );
+                }
+                let spec = StringSpec {
+                    length: course.length_m,
+                    target: goal.target_n,
+                    tolerance,
+                    checks: Checks {
+                        min_tension: goal.min_n,
+                        max_tension: goal.max_n,
+                        widest: course.max_diameter_m,
+                        limits,
+                    },
+                    kinds: &kind_list,
+                };
+                let table = StringTable::build(&spec);
+                strings.push(StringSlot {
+                    course: index,
+                    two_length: 2.0 * course.length_m,
+                    interval_ratio: string.interval.ratio(),
+                    table,
+                    kinds: kind_list,
+                });
+            }
+        }
+        let offset_ratios: Vec<f64> = (0..size.offsets)
+            .map(|k| ratio_from_cents(settings.offsets.cents(k)))
+            .collect();
+        let mut survey = Survey {
+            instrument,
+            settings,
+            stock,
+            size,
+            strings,
+            pairs: Vec::new(),
+            offset_ratios,
+            rated_load_n: instrument.rated_load.map(|load| load.si()),
+        };
+        for tuning_index in 0..size.tunings as usize {
+            let spec = settings.tuning_spec(tuning_index);
+            let tuning = tuning::load(&spec)
+                .map_err(|err| settings.point(err, &[PathStep::Key("tunings")]))?;
+            if matches!(tuning.layout(), Layout::Absolute { .. }) {
+                return Err(settings.point(
+                    Error::input(format!(
+                        "`{spec}` is a fixed list of frequencies; a survey moves tunings in pitch, so it needs a tuning with degrees"
+                    )),
+                    &[PathStep::Key("tunings")],
+                ));
+            }
+            for pattern in 0..size.patterns as usize {
+                let pair = survey.pair(&tuning, tuning_index, pattern)?;
+                survey.pairs.push(pair);
+            }
+        }
+        Ok(survey)
+    }
+
+    pub(super) fn pair(
+        &self,
+        tuning: &Tuning,
+        tuning_index: usize,
+        pattern: usize,
+    ) -> Result<Pair> {
+        let courses = self.instrument.courses.len();
+        let cents = |k: i64| {
+            tuning.cents_above_degree_zero(k).ok_or_else(|| {
+                self.settings.point(
+                    Error::input(format!("degree {k} of `{}` does not exist", tuning.name())),
+                    &[PathStep::Key("courses")],
+                )
+            })
+        };
+        let mut degrees = Vec::with_capacity(courses);
+        let start = match &self.settings.pattern {
+            PatternRule::ModesOf(scale) => scale[..pattern].iter().sum(),
+            _ => 0,
+        };
+        degrees.push(0);
+        for course in 1..courses {
+            let previous = degrees[course - 1];
+            let next = match &self.settings.pattern {
+                PatternRule::NearestTo(interval) => {
+                    let target = cents(start + previous)? + interval.cents;
+                    let nearest = tuning
+                        .nearest_to_cents_above_degree_zero(target)
+                        .ok_or_else(|| {
+                            self.settings.point(
+                                Error::input(format!(
+                                    "course {} would lie outside the range of `{}`",
+                                    course + 1,
+                                    tuning.name()
+                                )),
+                                &[PathStep::Key("courses")],
+                            )
+                        })?;
+                    nearest.degree - start
+                }
+                PatternRule::Steps(steps) => previous + steps[course - 1],
+                PatternRule::ModesOf(scale) => {
+                    previous + scale[(pattern + course - 1) % scale.len()]
+                }
+            };
+            degrees.push(next);
+        }
+        let base = cents(start)?;
+        let mut course_ratio = Vec::with_capacity(courses);
+        for &degree in &degrees {
+            course_ratio.push(ratio_from_cents(cents(start + degree)? - base));
+        }
+        let factors: Vec<f64> = self
+            .strings
+            .iter()
+            .map(|slot| {
+                slot.two_length
+                    * (self.settings.course_1_hz * course_ratio[slot.course] * slot.interval_ratio)
+            })
+            .collect();
+        // The sweep's extremes must give finite squares, or tensions would print as infinity.
+        let lowest = self.offset_ratios.first().copied().unwrap_or(1.0);
+        let highest = self.offset_ratios.last().copied().unwrap_or(1.0);
+        for (slot, factor) in self.strings.iter().zip(&factors) {
+            for extreme in [factor * lowest, factor * highest] {
+                if !(extreme * extreme).is_finite() || extreme <= 0.0 {
+                    return Err(self.settings.point(
+                        Error::input(format!(
+                            "in `{}`, course {} would sound at a pitch out of any range",
+                            tuning.name(),
+                            slot.course + 1
+                        )),
+                        &[PathStep::Key("courses")],
+                    ));
+                }
+            }
+        }
+        Ok(Pair {
+            tuning: tuning_index,
+            tuning_name: tuning.name().to_string(),
+            pattern,
+            start,
+            degrees,
+            factors,
+        })
+    }
+}

@@ -1,0 +1,122 @@
+//! How big a survey is, and the bounds it is checked against before any work.
+
+#[allow(unused_imports)]
+use super::*;
+
+/// Most course checks (candidates × courses) one survey may ask for: about 20 s at the
+/// 2e8 checks per second the sweep is built for.
+pub const MAX_COURSE_CHECKS: u64 = 4_000_000_000;
+/// Most (tuning, course pattern) pairs × strings, the per-pair factors kept in memory.
+pub const MAX_PAIR_STRINGS: u64 = 5_000_000;
+/// Speed assumed in size estimates, course checks per second.
+pub const ESTIMATE_RATE: f64 = 2e8;
+
+/// How big a survey is, known before any work.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+pub struct Size {
+    /// Tunings tried.
+    pub tunings: u64,
+    /// Course patterns per tuning.
+    pub patterns: u64,
+    /// Offsets per tuning and pattern.
+    pub offsets: u64,
+    /// Courses of the instrument.
+    pub courses: u64,
+    /// Candidates: tunings × patterns × offsets.
+    pub candidates: u64,
+    /// Candidates × courses.
+    pub course_checks: u64,
+}
+
+impl Size {
+    /// The size of the space `settings` describe on `instrument`; refuses an empty or
+    /// oversized space with an estimate, pointing at the settings.
+    pub fn of(instrument: &Instrument, settings: &Settings) -> Result<Size> {
+        let courses = instrument.courses.len() as u64;
+        let tunings = settings.tunings.count();
+        let patterns = settings.pattern.count();
+        let offsets = settings.offsets.len();
+        let candidates = u128::from(tunings) * u128::from(patterns) * u128::from(offsets);
+        let checks = candidates * u128::from(courses);
+        let estimate = format!(
+            "{tunings} tuning{} × {patterns} course pattern{} × {offsets} offset{} = {candidates} candidates, {checks} course checks (about {:.1} s at {:.0e} checks/s)",
+            plural(tunings),
+            plural(patterns),
+            plural(offsets),
+            checks as f64 / ESTIMATE_RATE,
+            ESTIMATE_RATE
+        );
+        if let PatternRule::Steps(steps) = &settings.pattern {
+            if steps.len() as u64 + 1 != courses {
+                return Err(settings.point(
+                    Error::input(format!(
+                        "{} steps are listed, but the instrument's {courses} courses need {}",
+                        steps.len(),
+                        courses.saturating_sub(1)
+                    ))
+                    .help("list one step between each pair of neighbouring courses"),
+                    &[PathStep::Key("courses"), PathStep::Key("steps")],
+                ));
+            }
+        }
+        let too_big = |what: String, path: &[PathStep<'_>]| {
+            settings.point(
+                Error::input(format!(
+                    "the search space is too large: {what}; the survey would try {estimate}"
+                ))
+                .help(
+                    "narrow the range of tunings, use a coarser offset step, or split the survey",
+                ),
+                path,
+            )
+        };
+        if tunings > settings::MAX_TUNINGS as u64 {
+            return Err(too_big(
+                format!("{tunings} tunings (at most {})", settings::MAX_TUNINGS),
+                &[PathStep::Key("tunings")],
+            ));
+        }
+        if offsets > settings::MAX_OFFSETS {
+            return Err(too_big(
+                format!("{offsets} offsets (at most {})", settings::MAX_OFFSETS),
+                &[PathStep::Key("offset_cents"), PathStep::Key("step")],
+            ));
+        }
+        let strings: u64 = instrument
+            .courses
+            .iter()
+            .map(|course| course.strings.len() as u64)
+            .sum();
+        if u128::from(tunings * patterns) * u128::from(strings) > u128::from(MAX_PAIR_STRINGS) {
+            return Err(too_big(
+                format!(
+                    "{} tuning and pattern pairs of {strings} strings (at most {MAX_PAIR_STRINGS} in all)",
+                    tunings * patterns
+                ),
+                &[PathStep::Key("courses")],
+            ));
+        }
+        if checks > u128::from(MAX_COURSE_CHECKS) {
+            return Err(too_big(
+                format!("{checks} course checks (at most {MAX_COURSE_CHECKS})"),
+                &[PathStep::Key("offset_cents")],
+            ));
+        }
+        Ok(Size {
+            tunings,
+            patterns,
+            offsets,
+            courses,
+            candidates: candidates as u64,
+            course_checks: checks as u64,
+        })
+    }
+}
+
+pub(super) fn plural(count: u64) -> &'static str {
+    if count == 1 {
+        ""
+    } else {
+        "s"
+    }
+}
