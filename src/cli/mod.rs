@@ -3,6 +3,7 @@
 
 mod audit;
 mod convert;
+mod layout;
 mod lengths;
 mod output;
 mod plan;

@@ -4,53 +4,17 @@ mod render;
 
 use std::path::PathBuf;
 
-use clap::{Args, ValueEnum};
+use clap::Args;
 
 use taut::error::Result;
-use taut::input::units::{ForceUnit, LengthUnit};
 use taut::instrument::{Instrument, TensionSpec};
+use taut::plan::remedy::{self, Build};
 use taut::plan::solve::{self, SolveOptions};
+use taut::plan::Plan;
 
-pub use render::DisplayUnits;
-
-use super::output;
+use super::output::{self, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::stock::StockArgs;
-
-/// Output formats of a plan.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum PlanFormat {
-    /// A table for the terminal, with totals, warnings and safety cautions.
-    Table,
-    /// One JSON document (documented in README).
-    Json,
-    /// One row per string.
-    Csv,
-    /// The JSON document's fields as YAML.
-    Yaml,
-}
-
-/// Units a tension can be shown in besides newtons.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum ForceChoice {
-    /// Newtons only.
-    N,
-    /// Pound-force.
-    Lbf,
-    /// Kilogram-force.
-    Kgf,
-}
-
-/// Units a vibrating length can be shown in.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum LengthChoice {
-    /// Millimetres.
-    Mm,
-    /// Inches.
-    In,
-    /// Metres.
-    M,
-}
 
 /// Arguments of `taut plan`.
 #[derive(Debug, Args)]
@@ -72,18 +36,10 @@ pub struct PlanArgs {
     pub tension: Option<String>,
     #[command(flatten)]
     pub stock: StockArgs,
-    /// Show tensions in newtons and this unit.
-    #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
-    pub force_unit: ForceChoice,
-    /// Show vibrating lengths in this unit (diameters are always shown in inches and mm).
-    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
-    pub length_unit: LengthChoice,
-    /// Output format (plans add CSV and YAML to the shared table and JSON).
-    #[arg(long, value_enum, default_value = "table")]
-    pub format: PlanFormat,
-    /// Write to this file instead of standard output (written whole, or not at all).
-    #[arg(long, short = 'o', value_name = "FILE")]
-    pub output: Option<PathBuf>,
+    #[command(flatten)]
+    pub units: UnitArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
     /// Also save the chosen strings as a string-set file, for `taut audit` and `taut convert`.
     #[arg(long, value_name = "FILE")]
     pub save_set: Option<PathBuf>,
@@ -94,7 +50,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
-    let plan = solve::plan(
+    let mut plan = solve::plan(
         &instrument,
         &stock,
         &SolveOptions {
@@ -102,31 +58,50 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             tension,
         },
     )?;
+    attach_fixes(&mut plan);
     if let Some(path) = &args.save_set {
         let set = taut::sets::set::StringSet::from_plan(&plan).to_yaml();
         output::write_atomically(path, set.as_bytes())?;
     }
-    let units = DisplayUnits {
-        force: match args.force_unit {
-            ForceChoice::N => ForceUnit::N,
-            ForceChoice::Lbf => ForceUnit::Lbf,
-            ForceChoice::Kgf => ForceUnit::Kgf,
-        },
-        length: match args.length_unit {
-            LengthChoice::Mm => LengthUnit::Mm,
-            LengthChoice::In => LengthUnit::In,
-            LengthChoice::M => LengthUnit::M,
-        },
+    output::emit(&plan, &args.output, Some(&args.units))
+}
+
+/// Ends every warning of the plan with what would fix it.
+fn attach_fixes(plan: &mut Plan) {
+    let builds: Vec<(u32, usize, Build)> = plan
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                let build = match string.choice.construction.as_str() {
+                    "plain" => Build::Plain,
+                    "wound" => Build::Wound,
+                    _ => Build::Unknown,
+                };
+                (course.course, index + 1, build)
+            })
+        })
+        .collect();
+    let build_of = |warning: &taut::plan::warning::Warning| {
+        builds
+            .iter()
+            .find(|(course, string, _)| {
+                Some(*course) == warning.course && Some(*string) == warning.string
+            })
+            .map_or(Build::Unknown, |(_, _, build)| *build)
     };
-    let text = match args.format {
-        PlanFormat::Table => render::table(&plan, units),
-        PlanFormat::Json => render::json(&plan)?,
-        PlanFormat::Csv => render::csv(&plan)?,
-        PlanFormat::Yaml => render::yaml(&plan)?,
-    };
-    // The shared writer: a closed pipe ends quietly, a file appears whole or not at all.
-    match &args.output {
-        Some(path) => output::write_atomically(path, text.as_bytes()),
-        None => output::write_stdout(text.as_bytes()),
+    for course in &mut plan.courses {
+        remedy::attach(&mut course.warnings, build_of);
+    }
+    remedy::attach(&mut plan.warnings, build_of);
+}
+
+impl Render for Plan {
+    fn table(&self, view: &View) -> String {
+        render::table(self, view)
+    }
+
+    fn csv(&self) -> Result<String> {
+        render::csv(self)
     }
 }

@@ -14,7 +14,6 @@ mod scalar_or_map;
 mod templates;
 mod tension;
 
-use std::path::Path;
 use std::str::FromStr;
 
 use serde::Deserialize;
@@ -25,7 +24,7 @@ pub use scalar_or_map::{Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 
-use crate::error::{did_you_mean, Error, Result};
+use crate::error::{Error, Result};
 use crate::input::units::{Force, Length};
 use crate::input::yaml::{self, PathStep};
 use crate::tuning::course_pitch::CoursePitch;
@@ -196,29 +195,14 @@ pub struct CourseInput<'a> {
 }
 
 impl Instrument {
-    /// Loads an instrument from a file path or, when no such file exists, a compiled-in template
-    /// name (see [`TEMPLATES`]).
+    /// Loads an instrument from a file path or, when no such file exists, a shipped example by
+    /// name (see [`crate::input::examples`]); a file of another kind is named as such.
     pub fn load(spec: &str) -> Result<Self> {
-        let path = Path::new(spec);
-        if path.exists() {
-            let text = yaml::read_text(path)?;
-            return Instrument::from_text(text, spec);
-        }
-        if let Some(text) = template(spec) {
-            return Instrument::from_text(text.to_string(), &format!("template `{spec}`"));
-        }
-        let names = TEMPLATES.iter().map(|(name, _)| *name);
-        let mut error = Error::input(format!(
-            "`{spec}` is neither an instrument file nor a built-in template"
-        ));
-        error = match did_you_mean(spec, names.clone()) {
-            Some(best) => error.help(format!("did you mean the template `{best}`?")),
-            None => error.help(format!(
-                "give a path to a YAML file, or one of: {}",
-                names.collect::<Vec<_>>().join(", ")
-            )),
-        };
-        Err(error.in_origin("INSTRUMENT"))
+        use crate::input::examples::{self, FileKind};
+        let (text, origin) = examples::read(spec, "INSTRUMENT")?;
+        Instrument::from_text(text.clone(), &origin).map_err(|err| {
+            examples::wrong_kind(&text, &origin, FileKind::Instrument).unwrap_or(err)
+        })
     }
 
     /// Parses and checks an instrument definition; `origin` names it in messages.
