@@ -10,7 +10,7 @@ use taut::error::Result;
 use taut::tuning::analysis::{fit, FitReport};
 use taut::tuning::compare::{compare, Comparison};
 use taut::tuning::listing::{default_range, list, DegreeListing};
-use taut::tuning::pitch::{format_ratio, nearest_note_name, PitchSpec};
+use taut::tuning::pitch::{format_ratio, nearest_note_as_written, PitchSpec};
 use taut::tuning::{library, load, ResolvedPitch, TuningSummary};
 
 const TUNING_HELP: &str = "\
@@ -169,7 +169,7 @@ pub fn run(args: TuningArgs) -> Result<()> {
                     .map_err(|e: taut::Error| e.in_origin(&origin))?;
                 let resolved = tuning.resolve(&spec).map_err(|e| e.in_origin(&origin))?;
                 let (nearest_note, note_offset_cents) =
-                    nearest_note_name(resolved.hz, tuning.concert_a4_hz());
+                    nearest_note_as_written(&spec, resolved.hz, tuning.concert_a4_hz());
                 pitches.push(FoundPitch {
                     written: written.clone(),
                     pitch: resolved,

@@ -134,6 +134,8 @@ pub struct Course {
 #[serde(deny_unknown_fields)]
 struct InstrumentFile {
     name: String,
+    // `description` as in tuning files; `about` is the older name, still read.
+    #[serde(rename = "description", alias = "about")]
     about: Option<String>,
     tuning: Option<String>,
     scale_length: Option<ScaleLength>,
