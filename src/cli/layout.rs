@@ -334,12 +334,16 @@ mod tests {
         let (wide, hidden) = grid.render(100);
         assert!(hidden.is_empty());
         assert!(wide.contains("a rather long name indeed"));
-        let (narrow, hidden) = grid.render(30);
-        assert!(widest(&narrow) <= 30, "{narrow}");
+        // A little too wide: the name gives up a few characters, nothing is left out.
+        let (narrow, hidden) = grid.render(38);
+        assert!(widest(&narrow) <= 38, "{narrow}");
         assert!(narrow.contains('…'), "{narrow}");
         assert!(hidden.is_empty(), "{hidden:?}");
-        let (tight, hidden) = grid.render(20);
-        assert!(widest(&tight) <= 20, "{tight}");
+        // Much too wide: a column is left out rather than the name cut to a stub.
+        let (tight, hidden) = grid.render(30);
+        assert!(widest(&tight) <= 30, "{tight}");
         assert_eq!(hidden, vec!["extra".to_string()]);
+        let (tiny, _) = grid.render(20);
+        assert!(widest(&tiny) <= 20, "{tiny}");
     }
 }
