@@ -76,7 +76,8 @@ impl FileKind {
 
 /// Guesses what a YAML text describes from its top-level keys; `None` when it cannot tell.
 pub fn sniff(text: &str) -> Option<FileKind> {
-    let value: serde_yaml::Value = serde_yaml::from_str(text).ok()?;
+    // Through the project's YAML reader, so its size and depth limits guard this read too.
+    let value: serde_yaml::Value = yaml::parse(text, "file").ok()?;
     let map = value.as_mapping()?;
     let has = |key: &str| map.contains_key(key);
     if has("divisions") || has("ratios") || has("cents") || has("hertz") || has("chain") {
