@@ -109,7 +109,7 @@ fn danger_fires_with_the_safety_cautions_and_not_at_pitch() {
         .assert()
         .success();
     output
-        .stdout(predicate::str::contains("stress_danger"))
+        .stdout(predicate::str::contains("DANGER"))
         .stdout(predicate::str::contains("eye protection"))
         .stdout(predicate::str::contains("maker's load rating"));
     let calm = audit(&[

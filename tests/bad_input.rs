@@ -446,7 +446,7 @@ fn tension_window_upside_down() {
 fn missing_instrument_file() {
     let stderr = cli_refuses(&["plan", "no-such.yaml", "-o", "report.txt"]);
     assert!(
-        stderr.contains("`no-such.yaml` is neither an instrument file"),
+        stderr.contains("`no-such.yaml` is neither a file nor a shipped example"),
         "{stderr}"
     );
 }

@@ -112,7 +112,7 @@ fn a_length_that_overstresses_plain_steel_warns_with_the_cautions() {
         ])
         .assert()
         .success()
-        .stdout(predicate::str::contains("stress_danger"))
+        .stdout(predicate::str::contains("DANGER"))
         .stdout(predicate::str::contains("eye protection"));
     taut()
         .args([

@@ -78,7 +78,13 @@ fn a_string_far_below_its_target_is_a_caution_that_says_it_cannot_reach_it() {
         "{thicker}"
     );
     // A caution brings the full safety cautions, not just the one-line reminder.
-    assert!(table.contains("caution off_target"), "{table}");
+    // The row leads with the status, and the warning is flagged a caution.
+    let words = table.split_whitespace().collect::<Vec<_>>().join(" ");
+    assert!(words.contains("1 no fit C2"), "{table}");
+    assert!(
+        words.contains("caution Course 1 string 1") && words.contains("will not hold its pitch"),
+        "{table}"
+    );
     assert!(table.contains("Bring tension up gradually"), "{table}");
 }
 

@@ -295,7 +295,7 @@ fn byte_order_mark_before_the_first_key_is_accepted() {
     let text = format!("\u{feff}{}", instrument("12edo", "B3"));
     let dir = scratch_with(&[("bom.yaml", &text)]);
     let out = succeeds(dir.path(), &["plan", "bom.yaml"]);
-    assert!(out.starts_with("Probe — tuning 12edo"), "{out}");
+    assert!(out.starts_with("Probe · tuning 12edo"), "{out}");
 }
 
 /// `%YAML 1.1`, `---` and one document was refused as two documents.
@@ -304,7 +304,7 @@ fn yaml_directive_then_one_document_is_accepted() {
     let text = format!("%YAML 1.1\n---\n{}", instrument("12edo", "B3"));
     let dir = scratch_with(&[("dir.yaml", &text)]);
     let out = succeeds(dir.path(), &["plan", "dir.yaml"]);
-    assert!(out.starts_with("Probe — tuning 12edo"), "{out}");
+    assert!(out.starts_with("Probe · tuning 12edo"), "{out}");
 }
 
 /// Escape sequences in a name (`ESC ] 0 ; … BEL` retitles a terminal, `ESC [ 31 m` recolours
@@ -321,7 +321,7 @@ fn control_characters_in_names_are_shown_escaped_in_tables() {
     let first = out.lines().next().unwrap_or_default();
     assert_eq!(
         first,
-        "Probe\\u{1b}]0;owned\\u{7}\\u{1b}[31m\\nNo warnings. — tuning 12edo"
+        "Probe\\u{1b}]0;owned\\u{7}\\u{1b}[31m\\nNo warnings. · tuning 12edo · 648.0 mm scale"
     );
     // JSON keeps the name exactly (its own escapes make it safe).
     let json = succeeds(dir.path(), &["plan", "esc.yaml", "--format", "json"]);

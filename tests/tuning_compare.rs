@@ -52,8 +52,8 @@ fn thirty_one_edo_stays_close_to_quarter_comma_meantone() {
         "meantone-quarter-comma",
         "31edo@263.18138549493483",
     ]);
-    assert!(text.contains("meantone-quarter-comma degree"), "{text}");
-    assert!(text.contains("mean |difference|"), "{text}");
+    assert!(text.contains("meantone-quarter-comma deg"), "{text}");
+    assert!(text.contains("Mean |apart|"), "{text}");
 }
 
 #[test]

@@ -2,9 +2,8 @@
 
 mod several;
 
-use std::path::PathBuf;
-
 use clap::Args;
+use serde::Serialize;
 
 use taut::error::{Error, Result};
 use taut::input::units::{Force, Length};
@@ -16,12 +15,18 @@ use taut::strings::feel::{self, FeelOptions, DEFAULT_BEND_CENTS, DEFAULT_PUSH_N}
 use taut::strings::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
 use taut::tuning;
 
-use super::output::{self, OutputArgs, Render};
+use taut::plan::remedy::{self, Build};
+use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
+use taut::strings::stock::Stock;
+
+use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
+use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
-    cell, course_pitch_text, feel_legend, maybe, new_table, right, user, warnings_and_cautions,
+    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
+    force_with_unit, length, maybe, stress_bar, user, warnings_and_cautions,
 };
 use taut::plan::solve::tuning_for;
 
@@ -94,9 +99,9 @@ pub struct AuditArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
     #[arg(value_name = "INSTRUMENT")]
     pub instrument: String,
-    /// The installed strings: a string-set file.
+    /// The installed strings: a string-set file or a shipped example's name.
     #[arg(long, value_name = "SET")]
-    pub set: PathBuf,
+    pub set: String,
     /// Tuning to audit instead of the instrument's own. Give it more than once to audit the set
     /// in every tuning listed, side by side.
     #[arg(long, value_name = "TUNING")]
@@ -117,6 +122,8 @@ pub struct AuditArgs {
     #[command(flatten)]
     pub feel: FeelArgs,
     #[command(flatten)]
+    pub units: UnitArgs,
+    #[command(flatten)]
     pub output: OutputArgs,
     #[command(flatten)]
     pub plots: PlotArgs,
@@ -127,7 +134,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["tension", "stress"])?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
-    let set = StringSet::load(&args.set, &stock)?;
+    let set = load_set(&args.set, &stock)?;
     let given = args.tuning.first();
     let now_instrument = match &args.from_instrument {
         Some(spec) => {
@@ -175,7 +182,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let mut inputs = output::Inputs::new();
     inputs
         .spec(&args.instrument)
-        .file(&args.set)
+        .spec(&args.set)
         .maybe_spec(args.from.as_deref())
         .maybe_spec(args.from_instrument.as_deref())
         .maybe_spec(instrument.tuning.as_deref())
@@ -197,71 +204,125 @@ pub fn run(args: AuditArgs) -> Result<()> {
         }
         let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
         let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;
-        return output::emit(&report, &args.output, &inputs);
+        return output::emit_in(&report, &args.output, Some(&args.units), &inputs);
     }
     let tuning = tuning_for(&instrument, given.map(String::as_str), "--tuning")?;
-    let report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
+    let mut report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
+    attach_fixes(&mut report, &stock);
     if !plots.is_empty() {
         let charts = taut::charts::build::audit(&report, &instrument);
         pictures::write(&plots, size, &charts, &inputs)?;
     }
-    output::emit(&report, &args.output, &inputs)
+    output::emit_in(&report, &args.output, Some(&args.units), &inputs)
+}
+
+/// Reads a string-set file, or the shipped example of that name; another kind of file is named
+/// as such.
+pub fn load_set(spec: &str, stock: &Stock) -> Result<StringSet> {
+    use taut::input::examples::{self, FileKind};
+    let (text, origin) = examples::read(spec, "--set")?;
+    StringSet::from_text(text.clone(), &origin, stock)
+        .map_err(|err| examples::wrong_kind(&text, &origin, FileKind::StringSet).unwrap_or(err))
 }
 
 impl Render for Audit {
-    fn table(&self) -> String {
-        let mut table = new_table(vec![
-            "Course",
-            "Pitch",
-            "Hz",
-            "String",
-            "Diameter",
-            "Tension N",
-            "Change",
-            "Stress",
-            "B",
-            "Partials c",
-            "Bend N",
-            "Can tune?",
+    fn table(&self, view: &View) -> String {
+        let lengths_vary = self
+            .courses
+            .windows(2)
+            .any(|pair| (pair[0].length_m - pair[1].length_m).abs() > 1e-9);
+        let show_length = view.wide || lengths_vary;
+        let mut columns = vec![
+            Column::figure("#"),
+            Column::text("verdict"),
+            Column::text("pitch").give(Give::Shorten(8)),
+            Column::figure("Hz").give(Give::Drop(3)),
+        ];
+        if show_length {
+            columns.push(
+                Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)),
+            );
+        }
+        columns.extend([
+            Column::text("string").give(Give::Shorten(10)),
+            Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+            Column::figure(view.force.symbol()),
+            Column::figure("was").give(Give::Drop(1)),
+            Column::figure("change"),
+            Column::text("stress"),
         ]);
+        if view.wide {
+            columns.extend([
+                Column::figure("B").give(Give::Drop(4)),
+                Column::figure("partials c").give(Give::Drop(5)),
+                Column::figure("bend N").give(Give::Drop(6)),
+            ]);
+        }
+        let mut grid = Grid::new(columns);
         for course in &self.courses {
             for (index, string) in course.strings.iter().enumerate() {
                 let first = index == 0;
-                let [b, partials, bend] = feel::cells(&string.feel);
-                table.add_row(vec![
-                    right(if first {
+                let mut row = vec![
+                    if first {
                         course.course.to_string()
                     } else {
                         String::new()
-                    }),
-                    cell(if first {
+                    },
+                    if first {
+                        course.verdict.text().to_string()
+                    } else {
+                        String::new()
+                    },
+                    if first {
                         course_pitch_text(&course.pitch)
                     } else {
                         format!("  {}", string.interval)
-                    }),
-                    right(format!("{:.2}", string.pitch_hz)),
-                    cell(&string.string),
-                    right(maybe(string.diameter_mm, |d| format!("{d:.3} mm"))),
-                    right(format!("{:.1}", string.tension_n)),
-                    right(maybe(string.tension_change_pct, |c| format!("{c:+.0}%"))),
-                    right(maybe(string.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
-                    right(b),
-                    right(partials),
-                    right(bend),
-                    cell(if first { course.verdict.text() } else { "" }),
+                    },
+                    format!("{:.2}", string.pitch_hz),
+                ];
+                if show_length {
+                    row.push(if first {
+                        length(course.length_m, view.length)
+                    } else {
+                        String::new()
+                    });
+                }
+                row.extend([
+                    user(&string.string).into_owned(),
+                    maybe(string.diameter_mm, |d| diameter(d, view.length)),
+                    force(string.tension_n, view.force),
+                    maybe(string.reference_tension_n, |t| force(t, view.force)),
+                    maybe(string.tension_change_pct, |c| change(c, 0)),
+                    stress_bar(string.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
                 ]);
+                if view.wide {
+                    row.extend(feel::cells(&string.feel));
+                }
+                grid.row(row);
             }
         }
-        let mut out = format!(
-            "{} — set: {} — tuning {}",
+        let mut title = format!(
+            "{} · set {} · tuning {}",
             user(&self.instrument),
             user(&self.set),
             user(&self.tuning)
         );
         if let Some(reference) = &self.reference_tuning {
-            out.push_str(&format!(" (strings now in {})", user(reference)));
+            title.push_str(&format!(" (strings now in {})", user(reference)));
         }
-        out.push_str(&format!("\n{table}\n"));
+        if !show_length {
+            if let Some(first) = self.courses.first() {
+                title.push_str(&format!(
+                    " · {} {} scale",
+                    length(first.length_m, view.length),
+                    view.length.symbol()
+                ));
+            }
+        }
+        let mut out = paragraph(&title, view.width);
+        let (table, hidden) = grid.render(view.width);
+        out.push_str(&table);
+        out.push_str(&hidden_note(&hidden, view.wide, view.width));
         out.push_str(&format!(
             "{} of {} courses can take this tuning.\n",
             self.courses_ok,
@@ -269,35 +330,138 @@ impl Render for Audit {
         ));
         for course in &self.courses {
             if course.verdict != Verdict::Yes {
-                out.push_str(&format!(
-                    "  Course {}: {}: {}.\n",
-                    course.course,
-                    course.verdict.text(),
-                    user(&course.reason)
+                out.push_str(&wrap(
+                    &format!("{}: {}.", course.verdict.text(), user(&course.reason)),
+                    view.width,
+                    &format!("  course {:<3} ", course.course),
+                    "             ",
                 ));
             }
         }
-        out.push_str(&format!("Total tension: {:.1} N", self.total_tension_n));
+        let mut total = format!(
+            "Total tension {}",
+            force_with_unit(self.total_tension_n, view.force)
+        );
         if let Some(before) = self.reference_total_tension_n {
-            out.push_str(&format!(
-                " (was {before:.1} N, {:+.0}%)",
-                (self.total_tension_n / before - 1.0) * 100.0
+            total.push_str(&format!(
+                " (was {}, {})",
+                force_with_unit(before, view.force),
+                change((self.total_tension_n / before - 1.0) * 100.0, 0)
             ));
         }
         if let Some(rated) = self.rated_load_n {
-            out.push_str(&format!(
-                "; {:.0}% of the rated {rated:.0} N",
-                self.total_tension_n / rated * 100.0
+            total.push_str(&format!(
+                ", {:.0}% of the rated {}",
+                self.total_tension_n / rated * 100.0,
+                force_with_unit(rated, view.force)
             ));
         }
-        out.push('\n');
-        out.push_str(&feel_legend(
-            self.courses
-                .first()
-                .and_then(|c| c.strings.first())
-                .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents),
+        total.push('.');
+        out.push_str(&paragraph(&total, view.width));
+        if view.wide {
+            out.push_str(&feel_legend(
+                self.courses
+                    .first()
+                    .and_then(|c| c.strings.first())
+                    .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents),
+                view,
+            ));
+        }
+        out.push_str(&warnings_and_cautions(
+            &self.warnings,
+            &[],
+            &self.cautions,
+            view,
         ));
-        out.push_str(&warnings_and_cautions(&self.warnings, &self.cautions));
         out
     }
+
+    fn csv(&self) -> Result<String> {
+        let mut rows = Vec::new();
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                rows.push(AuditRow {
+                    course: course.course,
+                    string: index + 1,
+                    interval: &string.interval,
+                    pitch: &course.pitch.written,
+                    note_name: &course.pitch.note_name,
+                    pitch_hz: sig(string.pitch_hz),
+                    length_m: sig(course.length_m),
+                    kind: &string.string,
+                    diameter_mm: sig_opt(string.diameter_mm),
+                    diameter_in: sig_opt(string.diameter_in),
+                    unit_mass_kg_per_m: sig(string.unit_mass_kg_per_m),
+                    tension_n: sig(string.tension_n),
+                    reference_tension_n: sig_opt(string.reference_tension_n),
+                    tension_change_pct: sig_opt(string.tension_change_pct),
+                    stress_ratio: sig_opt(string.stress_ratio),
+                    break_pitch_hz: sig_opt(string.break_pitch_hz),
+                    inharmonicity: sig_opt(string.feel.inharmonicity_b),
+                    verdict: course.verdict.text(),
+                    warnings: course
+                        .warnings
+                        .iter()
+                        .filter(|w| w.string == Some(index + 1))
+                        .map(|w| w.kind.name())
+                        .collect::<Vec<_>>()
+                        .join(";"),
+                });
+            }
+        }
+        csv_text(rows)
+    }
+}
+
+/// One CSV row of an audit: the plan's field names where they mean the same.
+#[derive(Serialize)]
+struct AuditRow<'a> {
+    course: u32,
+    string: usize,
+    interval: &'a str,
+    pitch: &'a str,
+    note_name: &'a str,
+    pitch_hz: f64,
+    length_m: f64,
+    kind: &'a str,
+    diameter_mm: Option<f64>,
+    diameter_in: Option<f64>,
+    unit_mass_kg_per_m: f64,
+    tension_n: f64,
+    reference_tension_n: Option<f64>,
+    tension_change_pct: Option<f64>,
+    stress_ratio: Option<f64>,
+    break_pitch_hz: Option<f64>,
+    inharmonicity: Option<f64>,
+    verdict: &'a str,
+    warnings: String,
+}
+
+/// Ends every warning of an audit with what would fix it.
+fn attach_fixes(report: &mut Audit, stock: &Stock) {
+    let builds: Vec<(u32, usize, Build)> = report
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                (
+                    course.course,
+                    index + 1,
+                    build_of_kind(stock, &string.string),
+                )
+            })
+        })
+        .collect();
+    let build_of = |warning: &taut::plan::warning::Warning| {
+        builds
+            .iter()
+            .find(|(course, string, _)| {
+                Some(*course) == warning.course && Some(*string) == warning.string
+            })
+            .map_or(Build::Unknown, |(_, _, build)| *build)
+    };
+    for course in &mut report.courses {
+        remedy::attach(&mut course.warnings, build_of);
+    }
+    remedy::attach(&mut report.warnings, build_of);
 }

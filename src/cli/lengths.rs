@@ -1,8 +1,7 @@
 //! `taut lengths`: the vibrating lengths that give each course its tension, for builders.
 
-use std::path::PathBuf;
-
 use clap::Args;
+use serde::Serialize;
 
 use taut::error::{Error, Result};
 use taut::input::units::Force;
@@ -12,12 +11,17 @@ use taut::lengths::{self, Layout, LayoutInput, LayoutOptions};
 use taut::strings::feel;
 
 use super::audit::FeelArgs;
-use super::output::{self, OutputArgs, Render};
+use taut::plan::remedy::{self, Build};
+use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
+
+use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
+use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
-    cell, course_pitch_text, feel_legend, maybe, new_table, right, user, warnings_and_cautions,
+    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
+    force_with_unit, gauge_line, length, maybe, status, stress_bar, user, warnings_and_cautions,
 };
 
 /// Arguments of `taut lengths`.
@@ -27,9 +31,9 @@ use super::text::{
     after_help = "Either give a LAYOUT file, or one course with --pitch, --string and --tension, e.g.\n  taut lengths --pitch A3 --string '{kind: plain-steel, diameter: 0.016in}' --tension 60N\n\nChart for --plot: lengths (the bridge line, with the tension profile on the right axis).\n\nStrings break: wear eye protection, bring tension up gradually and keep within the maker's load rating."
 )]
 pub struct LengthsArgs {
-    /// A layout file: courses with pitch, string and tension.
+    /// A layout file (courses with pitch, string and tension) or a shipped example's name.
     #[arg(value_name = "LAYOUT", required_unless_present = "pitch", conflicts_with_all = ["pitch", "string"])]
-    pub layout: Option<PathBuf>,
+    pub layout: Option<String>,
     /// The pitch of a single course, in the tuning's addressing (e.g. `A3`).
     #[arg(long, value_name = "PITCH", requires_all = ["string", "tension"])]
     pub pitch: Option<String>,
@@ -56,6 +60,8 @@ pub struct LengthsArgs {
     #[command(flatten)]
     pub feel: FeelArgs,
     #[command(flatten)]
+    pub units: UnitArgs,
+    #[command(flatten)]
     pub output: OutputArgs,
     #[command(flatten)]
     pub plots: PlotArgs,
@@ -67,7 +73,13 @@ pub fn run(args: LengthsArgs) -> Result<()> {
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let stock = args.stock.load()?;
     let input = match (&args.layout, &args.pitch, &args.string) {
-        (Some(path), _, _) => LayoutInput::load(path, &stock)?,
+        (Some(spec), _, _) => {
+            use taut::input::examples::{self, FileKind};
+            let (text, origin) = examples::read(spec, "LAYOUT")?;
+            LayoutInput::from_text(text.clone(), &origin, &stock).map_err(|err| {
+                examples::wrong_kind(&text, &origin, FileKind::Layout).unwrap_or(err)
+            })?
+        }
         (None, Some(pitch), Some(string)) => {
             let tension = tension.clone().ok_or_else(|| {
                 Error::input("one course needs its tension").in_origin("--tension")
@@ -82,7 +94,7 @@ pub fn run(args: LengthsArgs) -> Result<()> {
     };
     let max_step =
         parse_flag::<Percent>(args.max_step.as_deref(), "--max-step")?.map(Percent::fraction);
-    let report = lengths::lay_out(
+    let mut report = lengths::lay_out(
         &input,
         &stock,
         &LayoutOptions {
@@ -94,10 +106,21 @@ pub fn run(args: LengthsArgs) -> Result<()> {
             feel: args.feel.options()?,
         },
     )?;
+    let builds: Vec<(u32, Build)> = report
+        .courses
+        .iter()
+        .map(|course| (course.course, build_of_kind(&stock, &course.string)))
+        .collect();
+    remedy::attach(&mut report.warnings, |warning| {
+        builds
+            .iter()
+            .find(|(course, _)| Some(*course) == warning.course)
+            .map_or(Build::Unknown, |(_, build)| *build)
+    });
     let mut inputs = output::Inputs::new();
     inputs.maybe_spec(args.tuning.as_deref());
     if let Some(layout) = &args.layout {
-        inputs.file(layout);
+        inputs.spec(layout);
     }
     if let Some(spec) = &input.tuning {
         inputs.spec(spec);
@@ -109,116 +132,188 @@ pub fn run(args: LengthsArgs) -> Result<()> {
         let charts = taut::charts::build::layout(&report);
         pictures::write(&plots, size, &charts, &inputs)?;
     }
-    output::emit(&report, &args.output, &inputs)
+    output::emit_in(&report, &args.output, Some(&args.units), &inputs)
 }
 
 impl Render for Layout {
-    fn table(&self) -> String {
-        let mut table = new_table(vec![
-            "Course",
-            "Pitch",
-            "Hz",
-            "String",
-            "Diameter",
-            "Tension N",
-            "Length mm",
-            "Length in",
-            "Step",
-            "Stress",
-            "B",
-            "Partials c",
-            "Bend N",
-        ]);
+    fn table(&self, view: &View) -> String {
+        let mut columns = vec![
+            Column::figure("#"),
+            Column::text("status"),
+            Column::text("pitch").give(Give::Shorten(8)),
+            Column::figure("Hz").give(Give::Drop(3)),
+            Column::text("string").give(Give::Shorten(10)),
+            Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+            Column::figure(view.force.symbol()),
+            Column::figure(&format!("length {}", view.length.symbol())),
+            Column::figure("step"),
+            Column::text("stress"),
+        ];
+        if view.wide {
+            columns.extend([
+                Column::figure("B").give(Give::Drop(4)),
+                Column::figure("partials c").give(Give::Drop(5)),
+                Column::figure("bend N").give(Give::Drop(6)),
+            ]);
+        }
+        let mut grid = Grid::new(columns);
         for course in &self.courses {
-            let [b, partials, bend] = feel::cells(&course.feel);
             let marked = |kind: JumpKind| {
                 self.jumps
                     .iter()
                     .any(|j| j.to_course == course.course && j.kind == kind)
             };
-            table.add_row(vec![
-                right(course.course.to_string()),
-                cell(course_pitch_text(&course.pitch)),
-                right(format!("{:.2}", course.pitch.hz)),
-                cell(&course.string),
-                right(maybe(course.diameter_mm, |d| format!("{d:.3} mm"))),
-                right(format!("{:.1}", course.tension_n)),
-                right(format!(
-                    "{:.1}{}",
-                    course.length_m * 1000.0,
+            let course_warnings = self
+                .warnings
+                .iter()
+                .filter(|w| w.course == Some(course.course));
+            let mut row = vec![
+                course.course.to_string(),
+                status(course_warnings).to_string(),
+                course_pitch_text(&course.pitch),
+                format!("{:.2}", course.pitch.hz),
+                user(&course.string).into_owned(),
+                maybe(course.diameter_mm, |d| diameter(d, view.length)),
+                force(course.tension_n, view.force),
+                format!(
+                    "{}{}",
+                    length(course.length_m, view.length),
                     if marked(JumpKind::FoldBack) {
                         " ↶"
                     } else {
                         ""
                     }
-                )),
-                right(format!(
-                    "{:.2}",
-                    course.length_m / taut::input::units::METRES_PER_INCH
-                )),
-                right(format!(
+                ),
+                format!(
                     "{}{}",
-                    maybe(course.step_pct, |s| format!("{s:+.1}%")),
+                    maybe(course.step_pct, |s| change(s, 1)),
                     if marked(JumpKind::Step) { " !" } else { "" }
-                )),
-                right(maybe(course.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
-                right(b),
-                right(partials),
-                right(bend),
-            ]);
+                ),
+                stress_bar(course.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
+            ];
+            if view.wide {
+                row.extend(feel::cells(&course.feel));
+            }
+            grid.row(row);
             for other in &course.other_strings {
-                table.add_row(vec![
-                    right(String::new()),
-                    cell(format!("  {}", other.interval)),
-                    right(format!("{:.2}", other.pitch_hz)),
-                    cell(&other.string),
-                    right(maybe(other.diameter_mm, |d| format!("{d:.3} mm"))),
-                    right(format!("{:.1}", other.tension_n)),
-                    right(String::new()),
-                    right(String::new()),
-                    right(String::new()),
-                    right(maybe(other.stress_ratio, |s| format!("{:.0}%", s * 100.0))),
-                    right(String::new()),
-                    right(String::new()),
-                    right(String::new()),
+                grid.row(vec![
+                    String::new(),
+                    String::new(),
+                    format!("  {}", other.interval),
+                    format!("{:.2}", other.pitch_hz),
+                    user(&other.string).into_owned(),
+                    maybe(other.diameter_mm, |d| diameter(d, view.length)),
+                    force(other.tension_n, view.force),
+                    String::new(),
+                    String::new(),
+                    stress_bar(other.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
                 ]);
             }
         }
-        let mut out = format!(
-            "{} — tuning {}\n{table}\n",
-            user(&self.name),
-            user(&self.tuning)
+        let mut out = paragraph(
+            &format!("{} · tuning {}", user(&self.name), user(&self.tuning)),
+            view.width,
         );
-        out.push_str(&format!(
-            "Total tension: {:.1} N over {} string(s) on {} course(s)",
-            self.total_tension_n,
-            self.string_count,
-            self.courses.len(),
-        ));
-        if let Some(rated) = self.rated_load_n {
-            out.push_str(&format!(
-                " ({:.0}% of the rated {rated:.0} N)",
-                self.total_tension_n / rated * 100.0
-            ));
-        }
-        out.push_str(&format!(
-            ".\nStep: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a step over it). ↶ marks a fold-back: the length moves against the pitch.\n",
-            self.max_step * 100.0
+        let (table, hidden) = grid.render(view.width);
+        out.push_str(&table);
+        out.push_str(&hidden_note(&hidden, view.wide, view.width));
+        let gauges: Vec<Vec<(f64, bool)>> = self
+            .courses
+            .iter()
+            .map(|course| {
+                course
+                    .diameter_mm
+                    .map(|d| vec![(d, course.string.contains("wound"))])
+                    .unwrap_or_default()
+            })
+            .collect();
+        out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
+        out.push_str(&paragraph(
+            &format!(
+                "Total tension {} over {} {} on {} {}{}. Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a step over it). ↶ marks a fold-back: the length moves against the pitch.",
+                force_with_unit(self.total_tension_n, view.force),
+                self.string_count,
+                if self.string_count == 1 { "string" } else { "strings" },
+                self.courses.len(),
+                if self.courses.len() == 1 { "course" } else { "courses" },
+                self.rated_load_n.map_or(String::new(), |rated| format!(
+                    ", {:.0}% of the rated {}",
+                    self.total_tension_n / rated * 100.0,
+                    force_with_unit(rated, view.force)
+                )),
+                self.max_step * 100.0
+            ),
+            view.width,
         ));
         if self.jumps.is_empty() {
             out.push_str("No impractical jumps between neighbouring courses.\n");
         } else {
             out.push_str(&format!("\nImpractical jumps ({}):\n", self.jumps.len()));
             for jump in &self.jumps {
-                out.push_str(&format!("  {}\n", user(&jump.message)));
+                out.push_str(&wrap(&user(&jump.message), view.width, "  ", "  "));
             }
         }
-        out.push_str(&feel_legend(
-            self.courses
-                .first()
-                .map_or(feel::DEFAULT_BEND_CENTS, |c| c.feel.bend_cents),
+        if view.wide {
+            out.push_str(&feel_legend(
+                self.courses
+                    .first()
+                    .map_or(feel::DEFAULT_BEND_CENTS, |c| c.feel.bend_cents),
+                view,
+            ));
+        }
+        out.push_str(&warnings_and_cautions(
+            &self.warnings,
+            &[],
+            &self.cautions,
+            view,
         ));
-        out.push_str(&warnings_and_cautions(&self.warnings, &self.cautions));
         out
     }
+
+    fn csv(&self) -> Result<String> {
+        let rows = self.courses.iter().map(|course| LayoutRow {
+            course: course.course,
+            pitch: &course.pitch.written,
+            note_name: &course.pitch.note_name,
+            pitch_hz: sig(course.pitch.hz),
+            kind: &course.string,
+            diameter_mm: sig_opt(course.diameter_mm),
+            diameter_in: sig_opt(course.diameter_in),
+            unit_mass_kg_per_m: sig(course.unit_mass_kg_per_m),
+            tension_n: sig(course.tension_n),
+            length_m: sig(course.length_m),
+            step_pct: sig_opt(course.step_pct),
+            stress_ratio: sig_opt(course.stress_ratio),
+            break_pitch_hz: sig_opt(course.break_pitch_hz),
+            inharmonicity: sig_opt(course.feel.inharmonicity_b),
+            warnings: self
+                .warnings
+                .iter()
+                .filter(|w| w.course == Some(course.course))
+                .map(|w| w.kind.name())
+                .collect::<Vec<_>>()
+                .join(";"),
+        });
+        csv_text(rows)
+    }
+}
+
+/// One CSV row of a layout: the plan's field names where they mean the same.
+#[derive(Serialize)]
+struct LayoutRow<'a> {
+    course: u32,
+    pitch: &'a str,
+    note_name: &'a str,
+    pitch_hz: f64,
+    kind: &'a str,
+    diameter_mm: Option<f64>,
+    diameter_in: Option<f64>,
+    unit_mass_kg_per_m: f64,
+    tension_n: f64,
+    length_m: f64,
+    step_pct: Option<f64>,
+    stress_ratio: Option<f64>,
+    break_pitch_hz: Option<f64>,
+    inharmonicity: Option<f64>,
+    warnings: String,
 }

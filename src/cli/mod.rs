@@ -5,6 +5,7 @@ mod audit;
 mod convert;
 mod frets;
 mod generate;
+mod layout;
 mod lengths;
 mod output;
 mod pictures;

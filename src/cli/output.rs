@@ -12,6 +12,7 @@ use clap::{Args, ValueEnum};
 use serde::Serialize;
 
 use taut::error::{shown, Error, Result};
+use taut::input::units::{ForceUnit, LengthUnit};
 
 pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target};
 pub use finite::check_finite;
@@ -19,14 +20,38 @@ pub use finite::check_finite;
 /// How a report is written.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
 pub enum Format {
-    /// A table for reading in a terminal.
+    /// A table for reading in a terminal, fitted to its width.
     Table,
-    /// JSON for other programs (numbers unrounded, exact ratios as "p/q" text).
+    /// JSON for other programs (SI units named in each field, numbers unrounded, exact ratios
+    /// as "p/q" text).
     Json,
-    /// CSV: one row per item of the report's main list, columns named by their JSON paths.
+    /// One CSV row per string (or degree, interval, pitch), the JSON field names as headers,
+    /// numbers to 6 significant digits.
     Csv,
     /// The JSON document's fields as YAML.
     Yaml,
+}
+
+/// Units a tension can be shown in.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum ForceChoice {
+    /// Newtons.
+    N,
+    /// Pound-force.
+    Lbf,
+    /// Kilogram-force.
+    Kgf,
+}
+
+/// Units a length or diameter can be shown in.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum LengthChoice {
+    /// Millimetres.
+    Mm,
+    /// Inches (diameters in thousandths of an inch).
+    In,
+    /// Metres (diameters in millimetres).
+    M,
 }
 
 /// The output options every report-writing subcommand takes.
@@ -39,36 +64,150 @@ pub struct OutputArgs {
     /// written whole or not at all, never over one of the command's own inputs; see README.
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<Target>,
+    /// Show every column (a detail view); the default view is compact and fits 80 columns.
+    /// Tables never grow wider than the terminal (`COLUMNS`, else 100 when not a terminal).
+    #[arg(long)]
+    pub wide: bool,
 }
 
-/// A report that renders as a terminal table and serializes as JSON.
+/// The unit options of the string reports (plan, audit, convert, lengths).
+#[derive(Debug, Clone, Args)]
+pub struct UnitArgs {
+    /// Show tensions and loads in this unit (JSON, CSV and YAML stay in newtons).
+    #[arg(long, value_enum, default_value = "n", value_name = "UNIT")]
+    pub force_unit: ForceChoice,
+    /// Show lengths in this unit, and diameters in mm (or thousandths of an inch for `in`).
+    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
+    pub length_unit: LengthChoice,
+}
+
+impl UnitArgs {
+    /// The units chosen.
+    pub fn units(&self) -> (ForceUnit, LengthUnit) {
+        (
+            match self.force_unit {
+                ForceChoice::N => ForceUnit::N,
+                ForceChoice::Lbf => ForceUnit::Lbf,
+                ForceChoice::Kgf => ForceUnit::Kgf,
+            },
+            match self.length_unit {
+                LengthChoice::Mm => LengthUnit::Mm,
+                LengthChoice::In => LengthUnit::In,
+                LengthChoice::M => LengthUnit::M,
+            },
+        )
+    }
+}
+
+/// How a table is laid out: width, detail and units.
+#[derive(Debug, Clone, Copy)]
+pub struct View {
+    /// Widest line allowed.
+    pub width: usize,
+    /// Every column, not only the compact set.
+    pub wide: bool,
+    /// Unit of tensions and loads.
+    pub force: ForceUnit,
+    /// Unit of lengths (and, through it, of diameters).
+    pub length: LengthUnit,
+}
+
+impl View {
+    /// The view for these options (units default to N and mm for reports without them).
+    pub fn new(args: &OutputArgs, units: Option<&UnitArgs>) -> Self {
+        let (force, length) = units.map_or((ForceUnit::N, LengthUnit::Mm), UnitArgs::units);
+        View {
+            width: crate::cli::layout::width(),
+            wide: args.wide,
+            force,
+            length,
+        }
+    }
+}
+
+/// A report that renders as a terminal table and as CSV, and serializes as JSON and YAML.
 pub trait Render: Serialize {
     /// The report as terminal text, ending in a newline.
-    fn table(&self) -> String;
+    fn table(&self, view: &View) -> String;
+    /// The report as CSV rows: by default one row per item of its main list, columns named by
+    /// their JSON paths.
+    fn csv(&self) -> Result<String>
+    where
+        Self: Sized,
+    {
+        taut::charts::records::csv(self)
+    }
 }
 
-/// Renders `report` in the chosen format; the numbers are checked first (see [`check_finite`]).
-pub fn render<R: Render>(report: &R, format: Format) -> Result<String> {
+/// Rounds to 6 significant digits, so CSV shows `0.6477` and not `0.6476999999999999`.
+pub fn sig(value: f64) -> f64 {
+    if value == 0.0 || !value.is_finite() {
+        return value;
+    }
+    format!("{value:.5e}").parse().unwrap_or(value)
+}
+
+/// Rounds an optional figure to 6 significant digits.
+pub fn sig_opt(value: Option<f64>) -> Option<f64> {
+    value.map(sig)
+}
+
+/// Writes `rows` as CSV with their field names as the header.
+pub fn csv_text<T: Serialize>(rows: impl IntoIterator<Item = T>) -> Result<String> {
+    let fail = |err: String| Error::input(format!("cannot write the report as CSV: {err}"));
+    let mut writer = csv::Writer::from_writer(Vec::new());
+    for row in rows {
+        writer.serialize(row).map_err(|err| fail(err.to_string()))?;
+    }
+    let bytes = writer.into_inner().map_err(|err| fail(err.to_string()))?;
+    String::from_utf8(bytes).map_err(|err| fail(err.to_string()))
+}
+
+/// Renders `report` in the chosen format, as text ending in a newline; the numbers are checked
+/// first (see [`check_finite`]).
+pub fn render<R: Render>(
+    report: &R,
+    args: &OutputArgs,
+    units: Option<&UnitArgs>,
+) -> Result<String> {
     check_finite(report)?;
-    Ok(match format {
-        Format::Table => terminal_text(report.table()),
+    let mut text = match args.format {
+        Format::Table => terminal_text(report.table(&View::new(args, units))),
         Format::Json => json_text(report)?,
-        Format::Csv => taut::charts::records::csv(report)?,
+        Format::Csv => report.csv()?,
         Format::Yaml => taut::input::yaml::to_text(report)?,
-    })
+    };
+    if !text.ends_with('\n') {
+        text.push('\n');
+    }
+    Ok(text)
 }
 
 /// Renders `report` in the chosen format and writes it to the chosen place, refusing to write
 /// over any of `inputs`.
 pub fn emit<R: Render>(report: &R, args: &OutputArgs, inputs: &Inputs) -> Result<()> {
-    let text = report_text(report, args)?;
+    emit_in(report, args, None, inputs)
+}
+
+/// [`emit`] for a report shown in the chosen units.
+pub fn emit_in<R: Render>(
+    report: &R,
+    args: &OutputArgs,
+    units: Option<&UnitArgs>,
+    inputs: &Inputs,
+) -> Result<()> {
+    let text = report_text(report, args, units)?;
     // The text moves into the writer: a 25 MB report is not copied.
     write_bytes("--output", args.output.as_ref(), text.into_bytes(), inputs)
 }
 
 /// [`render`], with the status marks of a table coloured when it goes to a terminal.
-pub fn report_text<R: Render>(report: &R, args: &OutputArgs) -> Result<String> {
-    let text = render(report, args.format)?;
+pub fn report_text<R: Render>(
+    report: &R,
+    args: &OutputArgs,
+    units: Option<&UnitArgs>,
+) -> Result<String> {
+    let text = render(report, args, units)?;
     Ok(if args.output.is_none() && args.format == Format::Table {
         super::text::for_terminal(text)
     } else {

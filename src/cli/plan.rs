@@ -8,45 +8,20 @@ use std::path::PathBuf;
 use clap::{Args, ValueEnum};
 
 use taut::error::Result;
-use taut::input::units::{ForceUnit, LengthUnit};
 use taut::instrument::{Instrument, TensionSpec};
+use taut::plan::remedy::{self, Build};
 use taut::plan::several::SeveralOptions;
 use taut::plan::solve::{self, SolveOptions};
+use taut::plan::Plan;
 use taut::strings::select::several::Balance;
-
-pub use render::DisplayUnits;
 
 use taut::charts::build;
 use taut::charts::draw::DEFAULT_SIZE;
 
-use super::output;
+use super::output::{self, Format, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
-
-/// Output formats of a plan.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum PlanFormat {
-    /// A table for the terminal, with totals, warnings and safety cautions.
-    Table,
-    /// One JSON document (documented in README).
-    Json,
-    /// One row per string.
-    Csv,
-    /// The JSON document's fields as YAML.
-    Yaml,
-}
-
-/// Units a tension can be shown in besides newtons.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum ForceChoice {
-    /// Newtons only.
-    N,
-    /// Pound-force.
-    Lbf,
-    /// Kilogram-force.
-    Kgf,
-}
 
 /// How a string shared by several tunings is balanced among them.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -55,17 +30,6 @@ pub enum BalanceChoice {
     Target,
     /// The lowest worst-case stress (share of breaking strength).
     Stress,
-}
-
-/// Units a vibrating length can be shown in.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum LengthChoice {
-    /// Millimetres.
-    Mm,
-    /// Inches.
-    In,
-    /// Metres.
-    M,
 }
 
 /// Arguments of `taut plan`.
@@ -94,19 +58,10 @@ pub struct PlanArgs {
     pub tension: Option<String>,
     #[command(flatten)]
     pub stock: StockArgs,
-    /// Show tensions in newtons and this unit.
-    #[arg(long, value_enum, default_value = "lbf", value_name = "UNIT")]
-    pub force_unit: ForceChoice,
-    /// Show vibrating lengths in this unit (diameters are always shown in inches and mm).
-    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
-    pub length_unit: LengthChoice,
-    /// Output format (plans add CSV and YAML to the shared table and JSON).
-    #[arg(long, value_enum, default_value = "table")]
-    pub format: PlanFormat,
-    /// Write to this file instead of standard output (`-` is standard output; a file is written
-    /// whole or not at all, never over one of the command's inputs).
-    #[arg(long, short = 'o', value_name = "FILE")]
-    pub output: Option<output::Target>,
+    #[command(flatten)]
+    pub units: UnitArgs,
+    #[command(flatten)]
+    pub output: OutputArgs,
     /// Under the table, show why each string was chosen: its target, the next thinner and
     /// thicker gauge, and the best string of each other allowed kind (JSON always has them).
     #[arg(long)]
@@ -133,11 +88,6 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     let sheet = args.string_chart.as_deref().map(sheet_format).transpose()?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
-    let force = match args.force_unit {
-        ForceChoice::N => ForceUnit::N,
-        ForceChoice::Lbf => ForceUnit::Lbf,
-        ForceChoice::Kgf => ForceUnit::Kgf,
-    };
     let mut inputs = output::Inputs::new();
     inputs
         .spec(&args.instrument)
@@ -156,9 +106,9 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             .in_origin("--plot")
             .help("plan one tuning at a time for its pictures (`--tuning NAME` once)"));
         }
-        return run_several(args, &instrument, &stock, tension, force, &inputs);
+        return run_several(args, &instrument, &stock, tension, &inputs);
     }
-    let plan = solve::plan(
+    let mut plan = solve::plan(
         &instrument,
         &stock,
         &SolveOptions {
@@ -167,32 +117,15 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         },
     )?;
     output::check_finite(&plan)?;
-    let units = DisplayUnits {
-        force,
-        length: match args.length_unit {
-            LengthChoice::Mm => LengthUnit::Mm,
-            LengthChoice::In => LengthUnit::In,
-            LengthChoice::M => LengthUnit::M,
-        },
-    };
-    let text = match args.format {
-        PlanFormat::Table if args.alternatives => {
-            let mut text = render::table(&plan, units);
-            text.push_str(&render::alternatives(&plan, units));
-            text
-        }
-        PlanFormat::Table => render::table(&plan, units),
-        PlanFormat::Json => render::json(&plan)?,
-        PlanFormat::Csv => render::csv(&plan)?,
-        PlanFormat::Yaml => render::yaml(&plan)?,
-    };
-    let text = match args.format {
-        PlanFormat::Table if args.output.is_none() => {
-            super::text::for_terminal(output::terminal_text(text))
-        }
-        PlanFormat::Table => output::terminal_text(text),
-        _ => text,
-    };
+    attach_fixes(&mut plan);
+    let mut text = output::render(&plan, &args.output, Some(&args.units))?;
+    if args.alternatives && args.output.format == Format::Table {
+        let view = View::new(&args.output, Some(&args.units));
+        text.push_str(&output::terminal_text(render::alternatives(&plan, &view)));
+    }
+    if args.output.output.is_none() && args.output.format == Format::Table {
+        text = super::text::for_terminal(text);
+    }
     // The shared writer: every file or none, never over an input, a closed pipe ends
     // quietly, a file appears whole or not at all.
     let mut outputs = output::Outputs::new(&inputs);
@@ -233,7 +166,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             set.to_yaml().into_bytes(),
         );
     }
-    outputs.add("--output", args.output.clone(), text.into_bytes());
+    outputs.add("--output", args.output.output.clone(), text.into_bytes());
     outputs.write()
 }
 
@@ -243,10 +176,9 @@ fn run_several(
     instrument: &Instrument,
     stock: &taut::strings::stock::Stock,
     tension: Option<TensionSpec>,
-    force: ForceUnit,
     inputs: &output::Inputs,
 ) -> Result<()> {
-    let plan = taut::plan::several::plan(
+    let mut plan = taut::plan::several::plan(
         instrument,
         stock,
         &SeveralOptions {
@@ -258,6 +190,9 @@ fn run_several(
             },
         },
     )?;
+    for block in &mut plan.tunings {
+        attach_fixes(&mut block.plan);
+    }
     output::check_finite(&plan)?;
     let mut outputs = output::Outputs::new(inputs);
     if let Some(target) = &args.save_set {
@@ -277,20 +212,17 @@ fn run_several(
             );
         }
     }
-    let text = match args.format {
-        PlanFormat::Table => several::table(&plan, force),
-        PlanFormat::Json => several::json(&plan)?,
-        PlanFormat::Csv => several::csv(&plan)?,
-        PlanFormat::Yaml => several::yaml(&plan)?,
+    let view = View::new(&args.output, Some(&args.units));
+    let mut text = match args.output.format {
+        Format::Table => output::terminal_text(several::table(&plan, &view)),
+        Format::Json => several::json(&plan)?,
+        Format::Csv => several::csv(&plan)?,
+        Format::Yaml => several::yaml(&plan)?,
     };
-    let text = match args.format {
-        PlanFormat::Table if args.output.is_none() => {
-            super::text::for_terminal(output::terminal_text(text))
-        }
-        PlanFormat::Table => output::terminal_text(text),
-        _ => text,
-    };
-    outputs.add("--output", args.output.clone(), text.into_bytes());
+    if args.output.output.is_none() && args.output.format == Format::Table {
+        text = super::text::for_terminal(text);
+    }
+    outputs.add("--output", args.output.output.clone(), text.into_bytes());
     outputs.write()
 }
 
@@ -316,5 +248,45 @@ fn sheet_format(path: &std::path::Path) -> Result<SheetFormat> {
         ))
         .in_origin("--string-chart")
         .help("end the file name in `.html` or `.csv`")),
+    }
+}
+
+/// Ends every warning of the plan with what would fix it.
+fn attach_fixes(plan: &mut Plan) {
+    let builds: Vec<(u32, usize, Build)> = plan
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                let build = match string.choice.construction.as_str() {
+                    "plain" => Build::Plain,
+                    "wound" => Build::Wound,
+                    _ => Build::Unknown,
+                };
+                (course.course, index + 1, build)
+            })
+        })
+        .collect();
+    let build_of = |warning: &taut::plan::warning::Warning| {
+        builds
+            .iter()
+            .find(|(course, string, _)| {
+                Some(*course) == warning.course && Some(*string) == warning.string
+            })
+            .map_or(Build::Unknown, |(_, _, build)| *build)
+    };
+    for course in &mut plan.courses {
+        remedy::attach(&mut course.warnings, build_of);
+    }
+    remedy::attach(&mut plan.warnings, build_of);
+}
+
+impl Render for Plan {
+    fn table(&self, view: &View) -> String {
+        render::table(self, view)
+    }
+
+    fn csv(&self) -> Result<String> {
+        render::csv(self)
     }
 }

@@ -8,15 +8,16 @@ use indicatif::{ProgressBar, ProgressStyle};
 use serde::Serialize;
 
 use taut::error::{Error, Result};
-use taut::input::units::{ForceUnit, LengthUnit};
 use taut::instrument::Instrument;
 use taut::plan::warning::SAFETY_REMINDER;
 use taut::survey::{RankRule, Report, Settings, Survey, Verdict};
 
+use super::layout::{hidden_note, paragraph, Column, Give, Grid};
+use super::output::View;
 use super::output::{self, OutputArgs, Render};
-use super::plan::{render, DisplayUnits};
+use super::plan::render;
 use super::stock::StockArgs;
-use super::text::{new_table, right};
+use super::text::user;
 
 /// Ranking rules as the command line names them.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -133,17 +134,17 @@ struct SurveyOutput<'a> {
 }
 
 impl Render for SurveyOutput<'_> {
-    fn table(&self) -> String {
+    fn table(&self, view: &View) -> String {
         let report = self.report;
-        let mut out = format!(
-            "Survey of {}: {} candidates, {} course checks in {:.3} s; {} stringable.\nRanked by {}.\n",
-            report.instrument,
+        let mut out = paragraph(&format!(
+            "Survey of {}: {} candidates, {} course checks in {:.3} s; {} stringable. Ranked by {}.",
+            user(&report.instrument),
             report.candidates,
             report.course_checks,
             report.elapsed_s,
             report.stringable,
             report.ranking_rule
-        );
+        ), view.width);
         let rejected = report.rejected;
         let reasons: Vec<String> = [
             (rejected.stress_danger, "a string in danger"),
@@ -158,7 +159,10 @@ impl Render for SurveyOutput<'_> {
         .map(|(count, reason)| format!("{count} with {reason}"))
         .collect();
         if !reasons.is_empty() {
-            out.push_str(&format!("Refused: {}.\n", reasons.join(", ")));
+            out.push_str(&paragraph(
+                &format!("Refused: {}.", reasons.join(", ")),
+                view.width,
+            ));
         }
         if report.results.is_empty() {
             out.push_str("\nNo candidate is stringable.\n");
@@ -166,18 +170,18 @@ impl Render for SurveyOutput<'_> {
             out.push('\n');
             return out;
         }
-        let mut table = new_table(vec![
-            "Rank",
-            "Tuning",
-            "Offset",
-            "Course 1",
-            "Pattern",
-            "Steps",
-            "Spread",
-            "Worst stress",
-            "Load",
-            "Off target",
-            "Verdict",
+        let mut table = Grid::new(vec![
+            Column::figure("rank"),
+            Column::text("verdict"),
+            Column::text("tuning").give(Give::Shorten(10)),
+            Column::figure("offset"),
+            Column::figure("course 1 Hz"),
+            Column::text("pattern").give(Give::Drop(3)),
+            Column::text("steps").give(Give::Shorten(8)),
+            Column::figure("spread N").give(Give::Drop(2)),
+            Column::figure("stress"),
+            Column::figure("load N"),
+            Column::figure("off aim").give(Give::Drop(1)),
         ]);
         for result in &report.results {
             let steps: Vec<String> = result
@@ -186,39 +190,44 @@ impl Render for SurveyOutput<'_> {
                 .iter()
                 .map(i64::to_string)
                 .collect();
-            table.add_row(vec![
-                right(result.rank.to_string()),
-                result.tuning.clone().into(),
-                right(format!("{:+}c", result.offset_cents)),
-                right(format!("{:.2} Hz", result.course_1_hz)),
-                result.course_pattern.rule.clone().into(),
-                steps.join(" ").into(),
-                right(format!("{:.1} N", result.tension_spread_n)),
-                right(format!("{:.0}%", result.worst_stress_ratio * 100.0)),
-                right(format!("{:.0} N", result.total_load_n)),
-                right(format!("{:.1}%", result.worst_target_error * 100.0)),
+            table.row(vec![
+                result.rank.to_string(),
                 match result.verdict {
-                    Verdict::Stringable => "stringable",
-                    Verdict::StringableWithCaution => "stringable, caution",
+                    Verdict::Stringable => "ok",
+                    Verdict::StringableWithCaution => "caution",
                 }
-                .into(),
+                .to_string(),
+                user(&result.tuning).into_owned(),
+                format!("{:+}c", result.offset_cents),
+                format!("{:.2}", result.course_1_hz),
+                user(&result.course_pattern.rule).into_owned(),
+                steps.join(" "),
+                format!("{:.1}", result.tension_spread_n),
+                format!("{:.0}%", result.worst_stress_ratio * 100.0),
+                format!("{:.0}", result.total_load_n),
+                format!("{:.1}%", result.worst_target_error * 100.0),
             ]);
         }
+        let (grid, hidden) = table.render(view.width);
         out.push('\n');
-        out.push_str(&table.to_string());
-        out.push('\n');
+        out.push_str(&grid);
+        out.push_str(&hidden_note(&hidden, view.wide, view.width));
+        out.push_str(&paragraph(
+            "Verdict: ok (stringable) or caution (stringable, with care). Offset: cents course 1 moves from the tuning's own pitch.",
+            view.width,
+        ));
         if let (Some(best), Some(plan)) = (report.results.first(), &report.best_plan) {
-            out.push_str(&format!(
-                "\nThe best candidate in full: {} with course 1 at {:+} cents ({:.2} Hz)\n",
-                best.tuning, best.offset_cents, best.course_1_hz
+            out.push('\n');
+            out.push_str(&paragraph(
+                &format!(
+                    "The best candidate in full: {} with course 1 at {:+} cents ({:.2} Hz)",
+                    user(&best.tuning),
+                    best.offset_cents,
+                    best.course_1_hz
+                ),
+                view.width,
             ));
-            out.push_str(&render::table(
-                plan,
-                DisplayUnits {
-                    force: ForceUnit::Lbf,
-                    length: LengthUnit::Mm,
-                },
-            ));
+            out.push_str(&render::table(plan, view));
         }
         out
     }

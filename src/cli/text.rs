@@ -1,55 +1,100 @@
-//! Pieces of terminal output shared by every command: the table style, aligned cells, pitch
-//! labels, the warnings list, the safety cautions, and the colours of status marks.
-
-use comfy_table::{presets, Cell, CellAlignment, ContentArrangement, Table};
+//! Pieces of terminal output shared by every command: quantities in the chosen units, pitch
+//! labels, the status word and stress bar of a string, the gauge line of a set, the warnings
+//! list and the safety cautions, all wrapped to the report's width, and the colours of status
+//! marks.
 
 use taut::error::shown;
-use taut::plan::warning::{Severity, Warning, SAFETY_REMINDER};
+use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
+use taut::plan::remedy::Build;
+use taut::plan::warning::{Severity, Warning, SAFETY_CAUTIONS, SAFETY_REMINDER};
 use taut::plan::CoursePitch;
-
-/// A fresh table in the project's style: borders only, columns as wide as their content.
-pub fn new_table(header: Vec<&str>) -> Table {
-    let mut table = Table::new();
-    table
-        .load_preset(presets::UTF8_BORDERS_ONLY)
-        .set_content_arrangement(ContentArrangement::Disabled)
-        .set_header(header);
-    table
-}
-
-/// A cell of text, with the user's control characters (a line break in a name, a terminal
-/// escape) shown escaped so they cannot break the table or reach the terminal.
-pub fn cell(text: impl AsRef<str>) -> Cell {
-    Cell::new(shown(text.as_ref()))
-}
-
-/// A cell aligned right (numbers).
-pub fn right(text: String) -> Cell {
-    cell(text).set_alignment(CellAlignment::Right)
-}
+use taut::strings::kind::KindBuild;
+use taut::strings::stock::Stock;
 
 /// The user's text (a name, a description) for a line of a report, control characters escaped.
 pub fn user(text: &str) -> std::borrow::Cow<'_, str> {
     shown(text)
 }
 
+use super::layout::{paragraph, wrap};
+use super::output::View;
+
 /// An optional figure as text, `-` when unknown.
 pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
     value.map_or_else(|| "-".to_string(), render)
 }
 
-/// A pitch as written, followed by the nearest 12-EDO note when that adds something:
-/// `~E4 (E4 -5.3c)`, `A2`, `3/4 (E4 +2.0c)`.
+/// A force in the chosen unit, without its symbol (the column header names it).
+pub fn force(newtons: f64, unit: ForceUnit) -> String {
+    format!("{:.1}", unit.from_newtons(newtons))
+}
+
+/// A force in the chosen unit, with its symbol.
+pub fn force_with_unit(newtons: f64, unit: ForceUnit) -> String {
+    format!("{} {}", force(newtons, unit), unit.symbol())
+}
+
+/// A vibrating length in the chosen unit, without its symbol.
+pub fn length(metres: f64, unit: LengthUnit) -> String {
+    match unit {
+        LengthUnit::Mm => format!("{:.1}", unit.from_metres(metres)),
+        LengthUnit::In => format!("{:.2}", unit.from_metres(metres)),
+        LengthUnit::M => format!("{:.4}", unit.from_metres(metres)),
+    }
+}
+
+/// The symbol of the diameter unit that goes with a length unit: thousandths of an inch with
+/// inches, millimetres otherwise.
+pub fn diameter_symbol(unit: LengthUnit) -> &'static str {
+    match unit {
+        LengthUnit::In => "in/1000",
+        _ => "mm",
+    }
+}
+
+/// A diameter in the unit that goes with the length unit (see [`diameter_symbol`]).
+pub fn diameter(mm: f64, unit: LengthUnit) -> String {
+    match unit {
+        LengthUnit::In => {
+            let thousandths = mm / 1000.0 / METRES_PER_INCH * 1000.0;
+            if (thousandths - thousandths.round()).abs() < 0.05 {
+                format!("{thousandths:.0}")
+            } else {
+                format!("{thousandths:.1}")
+            }
+        }
+        _ => format!("{mm:.2}"),
+    }
+}
+
+/// A signed percentage change with no "-0%": a change that rounds to zero is `0%`.
+pub fn change(percent: f64, decimals: usize) -> String {
+    let text = format!("{percent:+.decimals$}%");
+    let zero = format!("{:.decimals$}", 0.0);
+    if text[1..text.len() - 1] == zero {
+        format!("{zero}%")
+    } else {
+        text
+    }
+}
+
+/// A pitch as written, followed by the nearest 12-EDO note's offset when that adds something:
+/// `~E4 -5.3c`, `A2`, `3/4 E4+2.0c`.
 pub fn pitch_with_note(label: &str, note_name: &str, note_offset_cents: f64) -> String {
-    let note = if note_offset_cents.abs() < 0.05 || !note_offset_cents.is_finite() {
-        note_name.to_string()
+    let offset = if note_offset_cents.abs() < 0.05 || !note_offset_cents.is_finite() {
+        String::new()
     } else {
-        format!("{note_name} {note_offset_cents:+.1}c")
+        format!("{note_offset_cents:+.1}c")
     };
-    if note == label {
-        note
+    let bare = label.trim_start_matches('~');
+    if bare == note_name {
+        if offset.is_empty() {
+            label.to_string()
+        } else {
+            format!("{label} {offset}")
+        }
     } else {
-        format!("{label} ({note})")
+        format!("{label} {note_name}{offset}")
     }
 }
 
@@ -58,7 +103,80 @@ pub fn course_pitch_text(pitch: &CoursePitch) -> String {
     pitch_with_note(&pitch.label, &pitch.note_name, pitch.note_offset_cents)
 }
 
-/// The short flag shown for a severity.
+/// The status word that leads a string's row: the worst of its warnings, with the warnings
+/// that mean no catalog string lands where it should read as "no fit".
+pub fn status<'a>(warnings: impl IntoIterator<Item = &'a Warning>) -> &'static str {
+    use taut::plan::warning::WarningKind::{OffTarget, ThickerThanCatalog, ThinnerThanPractical};
+    let mut worst: Option<Severity> = None;
+    let mut no_fit = false;
+    for warning in warnings {
+        worst = worst.max(Some(warning.severity));
+        no_fit |= matches!(
+            warning.kind,
+            OffTarget | ThickerThanCatalog | ThinnerThanPractical
+        );
+    }
+    match (worst, no_fit) {
+        (Some(Severity::Danger), _) => "DANGER",
+        (_, true) => "no fit",
+        (Some(Severity::Caution), _) => "caution",
+        (Some(Severity::Note), _) => "note",
+        (None, _) => "ok",
+    }
+}
+
+/// Cells in a stress bar.
+const BAR_CELLS: usize = 8;
+
+/// Stress against breaking strength as a small bar and a percentage: `▰▰▰▰▱▱▱▱   53%`. The
+/// bar is full at 100 %; a stress past the danger limit ends in `!`. The percentage gets a
+/// decimal when rounding would make it read as one of the limits it is above.
+pub fn stress_bar(ratio: Option<f64>, caution: f64, danger: f64) -> String {
+    let Some(ratio) = ratio.filter(|r| r.is_finite()) else {
+        return "strength ?".to_string();
+    };
+    let filled = ((ratio * BAR_CELLS as f64).round() as usize).min(BAR_CELLS);
+    let mark = if ratio > danger { '!' } else { ' ' };
+    format!(
+        "{}{}{mark}{:>5}",
+        "▰".repeat(filled),
+        "▱".repeat(BAR_CELLS - filled),
+        taut::plan::warning::percent_beside(ratio, [caution, danger])
+    )
+}
+
+/// The gauges of a set on one line, course by course in the table's order, `w` marking wound
+/// strings and `+` joining the strings of one course: `10 13 17 26w 36w 46w`.
+pub fn gauge_line(courses: &[Vec<(f64, bool)>], unit: LengthUnit) -> String {
+    let courses: Vec<String> = courses
+        .iter()
+        .map(|strings| {
+            strings
+                .iter()
+                .map(|&(mm, wound)| {
+                    format!("{}{}", diameter(mm, unit), if wound { "w" } else { "" })
+                })
+                .collect::<Vec<_>>()
+                .join("+")
+        })
+        .collect();
+    format!(
+        "Gauges ({}, w = wound): {}",
+        diameter_symbol(unit),
+        courses.join(" ")
+    )
+}
+
+/// How a kind is built, from its id in the stock.
+pub fn build_of_kind(stock: &Stock, id: &str) -> Build {
+    match stock.kinds().get(id).map(|kind| &kind.build) {
+        Ok(KindBuild::Plain { .. }) => Build::Plain,
+        Ok(KindBuild::Wound { .. }) => Build::Wound,
+        _ => Build::Unknown,
+    }
+}
+
+/// The short tag shown for a severity.
 pub fn severity_flag(severity: Severity) -> &'static str {
     match severity {
         Severity::Danger => "DANGER",
@@ -67,30 +185,44 @@ pub fn severity_flag(severity: Severity) -> &'static str {
     }
 }
 
-/// The warnings list and the safety cautions (the full list when given, else the one-line
-/// reminder), as text below a table.
-pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>]) -> String {
+/// The warnings list (with any report-wide cautions first) and the safety cautions (the full
+/// list when given, else the one-line reminder), wrapped to the view's width.
+pub fn warnings_and_cautions(
+    warnings: &[Warning],
+    extra_cautions: &[String],
+    cautions: &[impl AsRef<str>],
+    view: &View,
+) -> String {
     let mut out = String::new();
-    if warnings.is_empty() {
+    let count = warnings.len() + extra_cautions.len();
+    if count == 0 {
         out.push_str("No warnings.\n");
     } else {
-        out.push_str(&format!("\nWarnings ({}):\n", warnings.len()));
-        for warning in warnings {
-            out.push_str(&format!(
-                "  {:<7} {}: {}\n",
-                severity_flag(warning.severity),
-                warning.kind.name(),
-                shown(&warning.message)
+        out.push_str(&format!("\nWarnings ({count}):\n"));
+        for caution in extra_cautions {
+            out.push_str(&wrap(
+                &shown(caution),
+                view.width,
+                "  caution  ",
+                "           ",
             ));
+        }
+        for warning in warnings {
+            let first = format!("  {:<7}  ", severity_flag(warning.severity));
+            let text = if view.wide {
+                format!("{} [{}]", shown(&warning.message), warning.kind.name())
+            } else {
+                shown(&warning.message).into_owned()
+            };
+            out.push_str(&wrap(&text, view.width, &first, "           "));
         }
     }
     if cautions.is_empty() {
-        out.push_str(SAFETY_REMINDER);
-        out.push('\n');
+        out.push_str(&paragraph(SAFETY_REMINDER, view.width));
     } else {
         out.push_str("\nBefore you string this up:\n");
         for caution in cautions {
-            out.push_str(&format!("  - {}\n", shown(caution.as_ref())));
+            out.push_str(&wrap(&shown(caution.as_ref()), view.width, "  - ", "    "));
         }
     }
     out
@@ -99,13 +231,15 @@ pub fn warnings_and_cautions(warnings: &[Warning], cautions: &[impl AsRef<str>])
 /// taut's palette for status marks on a terminal (256-colour codes). The words differ on their
 /// own (`DANGER` in capitals, `caution`, `note`; `no`, `yes, with care`, `yes`), so nothing is
 /// lost without colour; danger is bold as well.
-const MARK_COLOURS: [(&str, &str); 6] = [
+const MARK_COLOURS: [(&str, &str); 8] = [
     ("DANGER", "1;38;5;160"),
     ("caution", "38;5;172"),
     ("note", "38;5;67"),
     ("yes, with care", "38;5;172"),
     ("yes", "38;5;71"),
+    ("no fit", "1;38;5;160"),
     ("no", "1;38;5;160"),
+    ("ok", "38;5;71"),
 ];
 
 /// Whether standard output gets colours: a terminal, and `NO_COLOR` unset or empty
@@ -129,8 +263,9 @@ fn paint(mark: &str, code: &str) -> String {
     format!("\x1b[{code}m{mark}\x1b[0m")
 }
 
-/// Colours the status marks of a report: the last cell of a table row (`… DANGER │`) and the
-/// flag that opens a warnings-list line (`  caution stress_caution: …`). Colour codes take no
+/// Colours the status marks of a report: the status cell that follows the first cell of a
+/// report row (`3  DANGER  ~G3 …`), the last cell of a boxed table row (`… DANGER │`) and the
+/// flag that opens a warnings-list line (`  caution  …`). Colour codes take no
 /// room on a terminal, so the table stays aligned.
 pub fn colour_marks(text: &str) -> String {
     let mut out = String::with_capacity(text.len() + 64);
@@ -165,13 +300,50 @@ fn colour_line(line: &str) -> String {
             }
         }
     }
-    line.to_string()
+    colour_status_cell(body).map_or_else(|| line.to_string(), |row| row + ending)
 }
 
-/// The footnote explaining the stiffness and feel columns.
-pub fn feel_legend(bend_cents: f64) -> String {
-    format!(
-        "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental. Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise.\n"
+/// A report row led by a short first cell (the string's number) and then its status word, two
+/// spaces apart: the status word coloured, or `None` when the line is not such a row.
+fn colour_status_cell(body: &str) -> Option<String> {
+    let indent = body.len() - body.trim_start_matches(' ').len();
+    let first_end = indent + body[indent..].find(' ')?;
+    let first = &body[indent..first_end];
+    let short_label = !first.is_empty()
+        && first.chars().count() <= 6
+        && first
+            .chars()
+            .all(|c| c.is_alphanumeric() || c == '.' || c == '-');
+    let after = &body[first_end..];
+    let status = after.trim_start_matches(' ');
+    if !short_label || after.len() - status.len() < 2 {
+        return None;
+    }
+    MARK_COLOURS.iter().find_map(|(mark, code)| {
+        let rest = status.strip_prefix(mark)?;
+        (rest.is_empty() || rest.starts_with("  ")).then(|| {
+            let lead = &body[..body.len() - status.len()];
+            format!("{lead}{}{rest}", paint(mark, code))
+        })
+    })
+}
+
+/// The safety cautions a report shows when any warning is a caution or a danger.
+pub fn cautions_for(warnings: &[Warning]) -> &'static [&'static str] {
+    if warnings.iter().any(|w| w.severity >= Severity::Caution) {
+        &SAFETY_CAUTIONS
+    } else {
+        &[]
+    }
+}
+
+/// The footnote explaining the stiffness and feel columns (wide views only).
+pub fn feel_legend(bend_cents: f64, view: &View) -> String {
+    paragraph(
+        &format!(
+            "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental. Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise."
+        ),
+        view.width,
     )
 }
 
@@ -193,7 +365,11 @@ fn width(text: &str) -> usize {
 /// Tables of `count` columns (tunings) side by side, as many per table as fit in [`MAX_WIDTH`]
 /// columns (at least one), spread evenly over the tables; `build` makes the table for the given
 /// indices. Each table ends in a newline.
-pub fn side_by_side(count: usize, build: impl Fn(&[usize]) -> Table) -> String {
+pub fn side_by_side<T: std::fmt::Display>(
+    count: usize,
+    max_width: usize,
+    build: impl Fn(&[usize]) -> T,
+) -> String {
     let all: Vec<usize> = (0..count).collect();
     let even = |per_table: usize| {
         let tables = count.div_ceil(per_table.max(1)).max(1);
@@ -206,13 +382,13 @@ pub fn side_by_side(count: usize, build: impl Fn(&[usize]) -> Table) -> String {
             .map(|shown| width(&build(shown).to_string()))
             .max()
             .unwrap_or(0);
-        if widest <= MAX_WIDTH {
+        if widest <= max_width.min(MAX_WIDTH) {
             break;
         }
         per_table -= 1;
     }
     all.chunks(even(per_table))
-        .map(|shown| format!("{}\n", build(shown)))
+        .map(|shown| format!("{}\n", build(shown).to_string().trim_end()))
         .collect()
 }
 
@@ -275,9 +451,59 @@ mod tests {
     }
 
     #[test]
+    fn status_words_leading_a_report_row_are_coloured() {
+        let table = "#  status  pitch\n─────\n 1  ok      ~E4 -5.3c  0.25\n12  DANGER  G3\n 3  no fit  C2\n 4  note    ok\nok, then  DANGER\n";
+        let coloured = colour_marks(table);
+        assert!(
+            coloured.contains(" 1  \x1b[38;5;71mok\x1b[0m      ~E4"),
+            "{coloured}"
+        );
+        assert!(
+            coloured.contains("12  \x1b[1;38;5;160mDANGER\x1b[0m  G3"),
+            "{coloured}"
+        );
+        assert!(
+            coloured.contains(" 3  \x1b[1;38;5;160mno fit\x1b[0m  C2"),
+            "{coloured}"
+        );
+        // Only the status cell: a later `ok` and a line of prose are left alone.
+        assert!(
+            coloured.contains("\x1b[38;5;67mnote\x1b[0m    ok\n"),
+            "{coloured}"
+        );
+        assert!(coloured.ends_with("ok, then  DANGER\n"), "{coloured}");
+        assert!(coloured.starts_with("#  status  pitch\n"), "{coloured}");
+    }
+
+    #[test]
     fn pitch_labels_show_the_note_only_when_it_adds_something() {
         assert_eq!(pitch_with_note("A2", "A2", 0.0), "A2");
-        assert_eq!(pitch_with_note("~E4", "E4", -5.26), "~E4 (E4 -5.3c)");
-        assert_eq!(pitch_with_note("~A2", "A2", 0.01), "~A2 (A2)");
+        assert_eq!(pitch_with_note("~E4", "E4", -5.26), "~E4 -5.3c");
+        assert_eq!(pitch_with_note("~A2", "A2", 0.01), "~A2");
+        assert_eq!(pitch_with_note("3/4", "E4", 1.96), "3/4 E4+2.0c");
+    }
+
+    #[test]
+    fn a_change_that_rounds_to_zero_has_no_sign() {
+        assert_eq!(change(-0.3, 0), "0%");
+        assert_eq!(change(0.04, 1), "0.0%");
+        assert_eq!(change(-1.6, 0), "-2%");
+        assert_eq!(change(38.2, 0), "+38%");
+    }
+
+    #[test]
+    fn the_stress_bar_fills_with_the_stress() {
+        assert_eq!(stress_bar(Some(0.5), 0.65, 0.85), "▰▰▰▰▱▱▱▱   50%");
+        assert!(stress_bar(Some(0.9), 0.65, 0.85).contains('!'));
+        assert_eq!(stress_bar(Some(1.4), 0.65, 0.85), "▰▰▰▰▰▰▰▰! 140%");
+        // Just above the caution limit reads as above it, not as the limit itself.
+        assert!(stress_bar(Some(0.652), 0.65, 0.85).ends_with("65.2%"));
+    }
+
+    #[test]
+    fn diameters_follow_the_length_unit() {
+        assert_eq!(diameter(0.254, LengthUnit::In), "10");
+        assert_eq!(diameter(0.3429, LengthUnit::In), "13.5");
+        assert_eq!(diameter(0.254, LengthUnit::Mm), "0.25");
     }
 }

@@ -4,6 +4,7 @@
 //! Nothing here knows about strings or tunings; every later stage reads its files through
 //! [`yaml`] and its quantities through [`units`].
 
+pub mod examples;
 pub mod id;
 pub mod registry;
 pub mod units;

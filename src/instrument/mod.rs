@@ -17,7 +17,6 @@ mod templates;
 mod tension;
 mod variants;
 
-use std::path::Path;
 use std::str::FromStr;
 
 use serde::Deserialize;
@@ -31,7 +30,7 @@ pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
 pub use variants::{Variant, MAX_VARIANTS};
 
-use crate::error::{did_you_mean, Error, Result};
+use crate::error::{Error, Result};
 use crate::input::units::{Diameter, Force, Length};
 use crate::input::yaml::{self, PathStep};
 use crate::tuning::course_pitch::CoursePitch;
@@ -151,6 +150,8 @@ pub struct Course {
 #[serde(deny_unknown_fields)]
 struct InstrumentFile {
     name: String,
+    // `description` as in tuning files; `about` is the older name, still read.
+    #[serde(rename = "description", alias = "about")]
     about: Option<String>,
     tuning: Option<String>,
     scale_length: Option<ScaleLength>,
@@ -231,29 +232,14 @@ impl CourseInput<'_> {
 }
 
 impl Instrument {
-    /// Loads an instrument from a file path or, when no such file exists, a compiled-in template
-    /// name (see [`TEMPLATES`]).
+    /// Loads an instrument from a file path or, when no such file exists, a shipped example by
+    /// name (see [`crate::input::examples`]); a file of another kind is named as such.
     pub fn load(spec: &str) -> Result<Self> {
-        let path = Path::new(spec);
-        if path.exists() || spec == "-" {
-            let text = yaml::read_text(path)?;
-            return Instrument::from_text(text, &yaml::origin_of(path));
-        }
-        if let Some(text) = template(spec) {
-            return Instrument::from_text(text.to_string(), &format!("template `{spec}`"));
-        }
-        let names = TEMPLATES.iter().map(|(name, _)| *name);
-        let mut error = Error::input(format!(
-            "`{spec}` is neither an instrument file nor a built-in template"
-        ));
-        error = match did_you_mean(spec, names.clone()) {
-            Some(best) => error.help(format!("did you mean the template `{best}`?")),
-            None => error.help(format!(
-                "give a path to a YAML file, or one of: {}",
-                names.collect::<Vec<_>>().join(", ")
-            )),
-        };
-        Err(error.in_origin("INSTRUMENT"))
+        use crate::input::examples::{self, FileKind};
+        let (text, origin) = examples::read(spec, "INSTRUMENT")?;
+        Instrument::from_text(text.clone(), &origin).map_err(|err| {
+            examples::wrong_kind(&text, &origin, FileKind::Instrument).unwrap_or(err)
+        })
     }
 
     /// Parses and checks an instrument definition; `origin` names it in messages.

@@ -106,6 +106,8 @@ struct LayoutCourseFile {
 #[serde(deny_unknown_fields)]
 struct LayoutFile {
     name: String,
+    // `description` as in tuning files; `about` is the older name, still read.
+    #[serde(rename = "description", alias = "about")]
     about: Option<String>,
     tuning: Option<String>,
     tension: Option<TensionSpec>,

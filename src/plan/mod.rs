@@ -4,6 +4,7 @@
 //! The JSON layout is documented in README ("The plan's JSON"); field names are a stable
 //! interface for scripts.
 
+pub mod remedy;
 pub mod several;
 pub mod solve;
 pub mod warning;

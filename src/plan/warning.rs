@@ -165,18 +165,18 @@ impl StringRef {
         let semitones = 12.0 * (break_pitch_hz / pitch_hz).log2();
         let message = if stress_ratio >= 1.0 {
             format!(
-                "{} can never reach its pitch: it would need {:.0}% of its breaking strength (limit {:.0}%) and breaks near {:.1} Hz, {:.1} semitones below it.",
+                "{} can never reach its pitch: it would need {} of its breaking strength (limit {:.0}%) and breaks near {:.1} Hz, {:.1} semitones below it.",
                 self.named(),
-                stress_ratio * 100.0,
+                percent_beside(stress_ratio, [limit]),
                 limit * 100.0,
                 break_pitch_hz,
                 -semitones
             )
         } else {
             format!(
-                "{} runs at {:.0}% of its breaking strength (limit {:.0}%); it would break near {:.1} Hz, {:.1} semitones above its pitch.",
+                "{} runs at {} of its breaking strength (limit {:.0}%); it would break near {:.1} Hz, {:.1} semitones above its pitch.",
                 self.named(),
-                stress_ratio * 100.0,
+                percent_beside(stress_ratio, [limit]),
                 limit * 100.0,
                 break_pitch_hz,
                 semitones
@@ -336,6 +336,21 @@ impl StringRef {
 
 /// What a string far below its target does, ending a warning's sentence.
 const SLACK: &str = ": it will be slack, buzz or flap, and will not hold its pitch.";
+/// A fraction as a percentage beside limits it is compared with: whole per cent, or one or two
+/// decimals when the whole number would read as a limit the value is above. A limit is
+/// inclusive (a value at it does not fire), so `65%` beside a 65 % limit would misread.
+pub fn percent_beside<const N: usize>(fraction: f64, limits: [f64; N]) -> String {
+    for decimals in 0..3 {
+        let shown = format!("{:.decimals$}", fraction * 100.0);
+        let misreads = limits
+            .iter()
+            .any(|&limit| fraction > limit && shown == format!("{:.decimals$}", limit * 100.0));
+        if !misreads {
+            return format!("{shown}%");
+        }
+    }
+    format!("{:.3}%", fraction * 100.0)
+}
 
 /// A report's warnings: every course's, in course order, then the instrument's own when the
 /// total tension exceeds its rated load. Plans, audits and conversions all list them this way.

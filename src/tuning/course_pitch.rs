@@ -6,7 +6,7 @@ use serde::{Deserialize, Serialize};
 use std::str::FromStr;
 
 use crate::error::Result;
-use crate::tuning::pitch::{nearest_note_name, PitchSpec};
+use crate::tuning::pitch::{nearest_note_as_written, PitchSpec};
 use crate::tuning::Tuning;
 
 /// A course's pitch as written and as resolved in the tuning. Every report carries one, under
@@ -32,8 +32,10 @@ impl CoursePitch {
     /// Resolves `written` in `tuning` and names the nearest 12-tone note. Errors carry no
     /// location; the caller points them at the file's line.
     pub fn resolve(written: &str, tuning: &Tuning) -> Result<CoursePitch> {
-        let resolved = tuning.resolve(&PitchSpec::from_str(written)?)?;
-        let (note_name, note_offset_cents) = nearest_note_name(resolved.hz, tuning.concert_a4_hz());
+        let spec = PitchSpec::from_str(written)?;
+        let resolved = tuning.resolve(&spec)?;
+        let (note_name, note_offset_cents) =
+            nearest_note_as_written(&spec, resolved.hz, tuning.concert_a4_hz());
         Ok(CoursePitch {
             written: written.to_string(),
             label: resolved.label,

@@ -37,6 +37,8 @@ pub const LAYOUT_KEYS: [&str; 5] = ["divisions", "ratios", "cents", "hertz", "ch
 #[serde(deny_unknown_fields)]
 struct RawDefinition {
     name: String,
+    // `about` is what instrument files used to call it; both are read.
+    #[serde(alias = "about")]
     description: String,
     #[serde(default)]
     source: Option<String>,

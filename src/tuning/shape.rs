@@ -126,7 +126,19 @@ impl Shape {
                         .field(format!("cents[{}]", i + 1)));
                     }
                 }
-                let steps: Vec<Interval> = cents.into_iter().map(Interval::from_cents).collect();
+                // The first entry is 0 cents, the unison: exactly 1/1, so degree 0 and the
+                // period's own degrees keep their exact ratios.
+                let steps: Vec<Interval> = cents
+                    .into_iter()
+                    .enumerate()
+                    .map(|(i, c)| {
+                        if i == 0 {
+                            Interval::from_ratio(Ratio::from_integer(1))
+                        } else {
+                            Interval::from_cents(c)
+                        }
+                    })
+                    .collect();
                 check_below_period(&steps, &period, "cents")?;
                 Ok(Layout::Periodic { period, steps })
             }

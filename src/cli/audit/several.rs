@@ -1,15 +1,14 @@
 //! The terminal view of [`SeveralAudit`]: an installed set under several tunings side by side,
 //! with a verdict per tuning and the worst over all; JSON comes from serde.
 
-use comfy_table::{Cell, Table};
-
 use taut::sets::audit::Verdict;
 use taut::sets::several::SeveralAudit;
 
-use crate::cli::output::Render;
+use crate::cli::layout::{paragraph, wrap, Column, Give, Grid};
+use crate::cli::output::{Render, View};
 use crate::cli::text::{
-    letter, lettered_warnings, maybe, new_table, right, side_by_side, tuning_legend,
-    warnings_and_cautions,
+    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe,
+    side_by_side, tuning_legend, user, warnings_and_cautions,
 };
 
 /// A short verdict for a cell.
@@ -23,29 +22,36 @@ fn short(verdict: Verdict) -> &'static str {
 
 /// The tunings `shown` side by side: per string pitch, tension, stress and (on the course's
 /// first row) that tuning's verdict, then the tunings that set the string's limits.
-fn chunk_table(this: &SeveralAudit, shown: &[usize]) -> Table {
-    let letters: Vec<String> = shown.iter().map(|&i| letter(i).to_string()).collect();
-    let mut header = vec!["Course", "String"];
-    header.extend(letters.iter().map(String::as_str));
-    header.push("Limits");
-    let mut table = new_table(header);
+fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
+    let mut columns = vec![
+        Column::figure("#"),
+        Column::text(&format!("string ⌀ {}", diameter_symbol(view.length))).give(Give::Shorten(12)),
+    ];
+    columns.extend(
+        shown
+            .iter()
+            .map(|&i| Column::figure(&letter(i).to_string()).give(Give::Shorten(12))),
+    );
+    columns.push(Column::text("limits"));
+    let mut table = Grid::new(columns);
     let Some(first_block) = this.tunings.first() else {
-        return table;
+        return table.render(view.width).0;
     };
     for (course_index, course) in first_block.audit.courses.iter().enumerate() {
         for (string_index, string) in course.strings.iter().enumerate() {
             let first = string_index == 0;
             let mut row = vec![
-                right(if first {
+                if first {
                     course.course.to_string()
                 } else {
                     String::new()
-                }),
-                Cell::new(format!(
+                },
+                user(&format!(
                     "{} {}",
                     string.string,
-                    maybe(string.diameter_mm, |d| format!("{d:.3} mm"))
-                )),
+                    maybe(string.diameter_mm, |d| diameter(d, view.length))
+                ))
+                .into_owned(),
             ];
             for &tuning in shown {
                 let cell = this
@@ -63,13 +69,13 @@ fn chunk_table(this: &SeveralAudit, shown: &[usize]) -> Table {
                             (format!("{} ", audited.interval), String::new())
                         };
                         Some(format!(
-                            "{pitch}{:.1} N {}{verdict}",
-                            audited.tension_n,
+                            "{pitch}{} {}{verdict}",
+                            force(audited.tension_n, view.force),
                             maybe(audited.stress_ratio, |s| format!("{:.0}%", s * 100.0))
                         ))
                     })
                     .unwrap_or_default();
-                row.push(right(cell));
+                row.push(user(&cell).into_owned());
             }
             let index_of = |name: Option<&String>| {
                 name.and_then(|name| this.tunings.iter().position(|b| &b.variant == name))
@@ -82,20 +88,23 @@ fn chunk_table(this: &SeveralAudit, shown: &[usize]) -> Table {
                     index_of(shared.most_stressed_variants.get(string_index))
                 )
             });
-            row.push(Cell::new(limits.unwrap_or_default()));
-            table.add_row(row);
+            row.push(limits.unwrap_or_default());
+            table.row(row);
         }
     }
-    table
+    table.render(view.width).0
 }
 
 impl Render for SeveralAudit {
-    fn table(&self) -> String {
-        let mut out = format!(
-            "{} — set: {} — {} tunings\n",
-            self.instrument,
-            self.set,
-            self.tunings.len()
+    fn table(&self, view: &View) -> String {
+        let mut out = paragraph(
+            &format!(
+                "{} · set {} · {} tunings",
+                user(&self.instrument),
+                user(&self.set),
+                self.tunings.len()
+            ),
+            view.width,
         );
         out.push_str(&tuning_legend(self.tunings.iter().map(|block| {
             (
@@ -104,14 +113,18 @@ impl Render for SeveralAudit {
                 block.retuned_courses.as_slice(),
             )
         })));
-        out.push_str(&side_by_side(self.tunings.len(), |shown| {
-            chunk_table(self, shown)
+        out.push_str(&side_by_side(self.tunings.len(), view.width, |shown| {
+            chunk_table(self, shown, view)
         }));
-        out.push_str(
-            "Each tuning: pitch, tension, stress as a share of breaking strength, and whether the\n\
-             course can take it (yes, care: yes with care, NO). Limits: the tuning where the\n\
-             string is slackest, then the one where it is most stressed.\n",
-        );
+        out.push_str(&paragraph(
+            &format!(
+                "Each tuning: pitch, tension ({}), stress as a share of breaking strength, and \
+                 whether the course can take it (yes, care: yes with care, NO). Limits: the \
+                 tuning where the string is slackest, then the one where it is most stressed.",
+                view.force.symbol()
+            ),
+            view.width,
+        ));
         out.push_str(&format!(
             "{} of {} courses can take every tuning.\n",
             self.courses_ok_in_every_tuning,
@@ -131,13 +144,18 @@ impl Render for SeveralAudit {
                     continue;
                 };
                 if let Some(course) = block.audit.courses.get(index) {
-                    out.push_str(&format!(
-                        "  Course {} in {} {}: {}: {}.\n",
-                        shared.course,
-                        letter(tuning),
-                        name,
-                        course.verdict.text(),
-                        course.reason
+                    out.push_str(&wrap(
+                        &format!(
+                            "Course {} in {} {}: {}: {}.",
+                            shared.course,
+                            letter(tuning),
+                            user(name),
+                            course.verdict.text(),
+                            user(&course.reason)
+                        ),
+                        view.width,
+                        "  ",
+                        "    ",
                     ));
                 }
             }
@@ -145,20 +163,21 @@ impl Render for SeveralAudit {
         out.push_str("Total tension:\n");
         for (index, block) in self.tunings.iter().enumerate() {
             out.push_str(&format!(
-                "  {}  {:.1} N",
+                "  {}  {}",
                 letter(index),
-                block.audit.total_tension_n
+                force_with_unit(block.audit.total_tension_n, view.force)
             ));
             if let Some(rated) = block.audit.rated_load_n {
                 out.push_str(&format!(
-                    " ({:.0}% of the rated {rated:.0} N)",
-                    block.audit.total_tension_n / rated * 100.0
+                    " ({:.0}% of the rated {})",
+                    block.audit.total_tension_n / rated * 100.0,
+                    force_with_unit(rated, view.force)
                 ));
             }
             out.push('\n');
         }
         let warnings = lettered_warnings(self.tunings.iter().map(|block| &block.audit.warnings));
-        out.push_str(&warnings_and_cautions(&warnings, &self.cautions));
+        out.push_str(&warnings_and_cautions(&warnings, &[], &self.cautions, view));
         out
     }
 }

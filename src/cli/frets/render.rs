@@ -6,7 +6,8 @@ use taut::error::{Error, Result};
 use taut::frets::{CourseFrets, FretLayout};
 use taut::tuning::pitch::format_ratio;
 
-use crate::cli::text::{course_pitch_text, new_table, right};
+use crate::cli::layout::{paragraph, wrap, Column, Grid};
+use crate::cli::text::{course_pitch_text, user};
 
 /// Courses whose frets sound the same ratios (so one column of ratios serves them all); one
 /// may stop earlier than another (a board end at a different fraction of its length).
@@ -37,7 +38,7 @@ fn mm(metres: f64) -> String {
 }
 
 /// The table for one group of courses that share their fret ratios.
-fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
+fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> String {
     let Some(first) = group.first() else {
         return String::new();
     };
@@ -56,23 +57,23 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
     } else {
         format!("Courses {}", names.join(", "))
     };
-    let mut header = vec!["Fret".to_string(), "Cents".to_string(), "Ratio".to_string()];
+    let mut header = vec!["fret".to_string(), "cents".to_string(), "ratio".to_string()];
     if one_length {
-        header.push("From nut mm".to_string());
-        header.push("Spacing mm".to_string());
+        header.push("from nut mm".to_string());
+        header.push("spacing mm".to_string());
     } else {
-        header.extend(group.iter().map(|c| format!("C{} mm", c.course)));
-        header.push("Min spacing mm".to_string());
+        header.extend(group.iter().map(|c| format!("c{} mm", c.course)));
+        header.push("min spacing mm".to_string());
     }
     if layout.fanned {
-        header.push("Angle °".to_string());
+        header.push("angle °".to_string());
     }
-    let mut table = new_table(header.iter().map(String::as_str).collect());
+    let mut table = Grid::new(header.iter().map(|name| Column::figure(name)).collect());
     for (index, fret) in longest.frets.iter().enumerate() {
         let mut row = vec![
-            right(fret.fret.to_string()),
-            right(format!("{:.2}", fret.cents)),
-            right(fret.ratio.as_ref().map_or("-".to_string(), format_ratio)),
+            fret.fret.to_string(),
+            format!("{:.2}", fret.cents),
+            fret.ratio.as_ref().map_or("-".to_string(), format_ratio),
         ];
         let spacing = group
             .iter()
@@ -84,15 +85,15 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
             ""
         };
         if one_length {
-            row.push(right(mm(fret.distance_from_nut_m)));
+            row.push(mm(fret.distance_from_nut_m));
             // Equal lengths and ratios: every course of the group has this fret.
         } else {
             for course in group {
                 let distance = course.frets.get(index).map(|f| f.distance_from_nut_m);
-                row.push(right(distance.map_or("-".to_string(), mm)));
+                row.push(distance.map_or("-".to_string(), mm));
             }
         }
-        row.push(right(format!("{}{flag}", mm(spacing))));
+        row.push(format!("{}{flag}", mm(spacing)));
         if layout.fanned {
             let angles: Vec<f64> = group
                 .iter()
@@ -100,32 +101,46 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets]) -> String {
                 .collect();
             let low = angles.iter().copied().fold(f64::MAX, f64::min);
             let high = angles.iter().copied().fold(f64::MIN, f64::max);
-            row.push(right(if angles.is_empty() {
+            row.push(if angles.is_empty() {
                 "-".to_string()
             } else if high - low < 0.005 {
                 format!("{low:+.2}")
             } else {
                 format!("{low:+.2}…{high:+.2}")
-            }));
+            });
         }
-        table.add_row(row);
+        table.row(row);
     }
     let lengths: Vec<String> = group.iter().map(|c| mm(c.length_m)).collect();
     let mut lengths = lengths;
     lengths.dedup();
     let mut counts: Vec<String> = group.iter().map(|c| c.frets.len().to_string()).collect();
     counts.dedup();
-    format!(
-        "{title} — {} mm, {} fret(s)\n{table}\n",
-        lengths.join("/"),
-        counts.join("/")
-    )
+    let mut out = paragraph(
+        &format!(
+            "{} · {} mm, {} fret(s)",
+            user(&title),
+            lengths.join("/"),
+            counts.join("/")
+        ),
+        width,
+    );
+    out.push_str(&table.render(width).0);
+    out
 }
 
 /// The terminal report: a table per group of courses sharing their frets, mergeable frets,
 /// warnings and what the layout assumes.
 pub fn table(layout: &FretLayout) -> String {
-    let mut out = format!("{} — tuning {}\n", layout.instrument, layout.tuning);
+    let width = crate::cli::layout::width();
+    let mut out = paragraph(
+        &format!(
+            "{} · tuning {}",
+            user(&layout.instrument),
+            user(&layout.tuning)
+        ),
+        width,
+    );
     let groups = groups(layout);
     if groups.len() == 1 && layout.courses.len() > 1 {
         out.push_str("Every course has the same frets (straight across the board).\n");
@@ -135,23 +150,43 @@ pub fn table(layout: &FretLayout) -> String {
             groups.len()
         ));
     }
+    // A group of courses of different lengths has a column per course: a wide group is shown
+    // a few courses at a time so each table fits the width.
+    let per_table = (width.saturating_sub(50) / 10).max(1);
     for group in &groups {
-        out.push_str(&group_table(layout, group));
+        let one_length = group
+            .iter()
+            .all(|c| (c.length_m - group[0].length_m).abs() < 1e-9);
+        if one_length {
+            out.push_str(&group_table(layout, group, width));
+        } else {
+            for part in group.chunks(per_table) {
+                out.push_str(&group_table(layout, part, width));
+            }
+        }
     }
     if groups.len() > 1 {
         if layout.mergeable.is_empty() {
-            out.push_str(&format!(
-                "No frets of neighbouring courses lie within {:.1}c of each other without already coinciding.\n",
-                layout.merge_within_cents
+            out.push_str(&paragraph(
+                &format!(
+                    "No frets of neighbouring courses lie within {:.1}c of each other without already coinciding.",
+                    layout.merge_within_cents
+                ),
+                width,
             ));
         } else {
-            out.push_str(&format!(
-                "\nFrets of neighbouring courses within {:.1}c (one shared fret half way leaves each course about half the gap off):\n",
-                layout.merge_within_cents
+            out.push('\n');
+            out.push_str(&paragraph(
+                &format!(
+                    "Frets of neighbouring courses within {:.1}c (one shared fret half way leaves each course about half the gap off):",
+                    layout.merge_within_cents
+                ),
+                width,
             ));
             for pair in &layout.mergeable {
-                out.push_str(&format!(
-                    "  courses {} and {}: frets {} and {} are {:.2}c apart, {:.2} mm along course {}\n",
+                out.push_str(&wrap(
+                    &format!(
+                    "courses {} and {}: frets {} and {} are {:.2}c apart, {:.2} mm along course {}",
                     pair.courses[0],
                     pair.courses[1],
                     pair.frets[0],
@@ -159,6 +194,10 @@ pub fn table(layout: &FretLayout) -> String {
                     pair.cents_apart.abs(),
                     pair.apart_m * 1000.0,
                     pair.courses[0]
+                ),
+                    width,
+                    "  ",
+                    "    ",
                 ));
             }
         }
@@ -168,20 +207,31 @@ pub fn table(layout: &FretLayout) -> String {
     } else {
         out.push_str(&format!("\nWarnings ({}):\n", layout.warnings.len()));
         for warning in &layout.warnings {
-            out.push_str(&format!("  {}: {}\n", warning.kind.name(), warning.message));
+            out.push_str(&wrap(
+                &format!("{}: {}", warning.kind.name(), user(&warning.message)),
+                width,
+                "  ",
+                "    ",
+            ));
         }
     }
-    out.push_str(&format!(
-        "Distances run from the nut along each course; ! marks spacing under {:.1} mm. Assumes {}.\n",
-        layout.min_spacing_m * 1000.0,
-        layout.compensation
+    out.push_str(&paragraph(
+        &format!(
+            "Distances run from the nut along each course; ! marks spacing under {:.1} mm. Assumes {}.",
+            layout.min_spacing_m * 1000.0,
+            layout.compensation
+        ),
+        width,
     ));
     if layout.fanned {
         let first = layout.courses.first().map_or(0, |c| c.course);
         let last = layout.courses.last().map_or(0, |c| c.course);
-        out.push_str(&format!(
-            "Angle: each fret's angle from square across the board, positive where its end at course {last} lies further from the nut than at course {first}; frets are square at {:.3} of each length.\n",
-            layout.board.square_at
+        out.push_str(&paragraph(
+            &format!(
+                "Angle: each fret's angle from square across the board, positive where its end at course {last} lies further from the nut than at course {first}; frets are square at {:.3} of each length.",
+                layout.board.square_at
+            ),
+            width,
         ));
     }
     out

@@ -3,24 +3,19 @@
 
 use serde::Serialize;
 
-use taut::error::{Error, Result};
-use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
-use taut::plan::warning::{Severity, SAFETY_CAUTIONS};
+use taut::error::Result;
+use taut::input::units::{ForceUnit, METRES_PER_INCH};
+use taut::plan::warning::Severity;
 use taut::plan::{CoursePlan, Plan, Standing, StringChoice};
 
+use crate::cli::layout::{hidden_note, paragraph, Column, Give, Grid};
+use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
-    cell, course_pitch_text, new_table, right, severity_flag, user, warnings_and_cautions,
+    cautions_for, course_pitch_text, diameter, diameter_symbol, force, force_with_unit, gauge_line,
+    length, status, stress_bar, user, warnings_and_cautions,
 };
 
-/// How quantities are shown in the table.
-#[derive(Debug, Clone, Copy)]
-pub struct DisplayUnits {
-    /// Tension is shown in newtons and, unless this is N, also in this unit.
-    pub force: ForceUnit,
-    /// Vibrating lengths are shown in this unit.
-    pub length: LengthUnit,
-}
-
+/// A tension in newtons and, unless the unit is N, also in that unit.
 pub(super) fn tension_text(newtons: f64, unit: ForceUnit) -> String {
     match unit {
         ForceUnit::N => format!("{newtons:.1} N"),
@@ -32,91 +27,162 @@ pub(super) fn tension_text(newtons: f64, unit: ForceUnit) -> String {
     }
 }
 
-fn length_text(metres: f64, unit: LengthUnit) -> String {
-    match unit {
-        LengthUnit::Mm => format!("{:.1} mm", unit.from_metres(metres)),
-        LengthUnit::In => format!("{:.2} in", unit.from_metres(metres)),
-        LengthUnit::M => format!("{:.4} m", unit.from_metres(metres)),
-    }
-}
-
+/// The worst severity among one string's warnings.
 pub(super) fn worst_severity(course: &CoursePlan, string_number: usize) -> Option<Severity> {
-    course
-        .warnings
-        .iter()
-        .filter(|warning| warning.string == Some(string_number))
+    string_warnings(course, string_number)
         .map(|warning| warning.severity)
         .max()
 }
 
-/// The terminal table: one row per string, then totals, warnings and (when needed) the safety
-/// cautions.
-pub fn table(plan: &Plan, units: DisplayUnits) -> String {
-    let mut table = new_table(vec![
-        "Course", "Pitch", "Hz", "Length", "Kind", "⌀ in", "⌀ mm", "μ g/m", "Target", "Tension",
-        "Stress", "",
+fn string_warnings(
+    course: &CoursePlan,
+    number: usize,
+) -> impl Iterator<Item = &taut::plan::warning::Warning> {
+    course
+        .warnings
+        .iter()
+        .filter(move |warning| warning.string == Some(number))
+}
+
+/// The terminal table: each string led by its status, its tension beside its aim and its
+/// stress as a bar; then totals, the set's gauges on one line, warnings and cautions.
+pub fn table(plan: &Plan, view: &View) -> String {
+    let lengths_vary = plan
+        .courses
+        .windows(2)
+        .any(|pair| (pair[0].length_m - pair[1].length_m).abs() > 1e-9);
+    let force_unit = view.force.symbol();
+    let length_unit = view.length.symbol();
+    let mut columns = vec![
+        Column::figure("#"),
+        Column::text("status"),
+        Column::text("pitch").give(Give::Shorten(8)),
+        Column::figure("Hz").give(Give::Drop(3)),
+    ];
+    let show_length = view.wide || lengths_vary;
+    if show_length {
+        columns.push(Column::figure(&format!("length {length_unit}")).give(Give::Drop(2)));
+    }
+    columns.extend([
+        Column::text("string").give(Give::Shorten(10)),
+        Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+        Column::figure(force_unit),
+        Column::figure("aim"),
+        Column::text("stress"),
     ]);
+    if view.wide {
+        columns.extend([
+            Column::figure("μ g/m").give(Give::Drop(4)),
+            Column::figure("breaks at Hz").give(Give::Drop(5)),
+            Column::figure("B").give(Give::Drop(6)),
+        ]);
+    }
+    let mut grid = Grid::new(columns);
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
-            let number = index + 1;
             let first = index == 0;
-            let pitch = if first {
-                course_pitch_text(&course.pitch)
-            } else {
-                format!("  {}", string.interval)
-            };
-            table.add_row(vec![
-                right(if first {
+            let choice = &string.choice;
+            let mut row = vec![
+                if first {
                     course.course.to_string()
                 } else {
                     String::new()
-                }),
-                cell(pitch),
-                right(format!("{:.2}", string.pitch_hz)),
-                right(if first {
-                    length_text(course.length_m, units.length)
+                },
+                status(string_warnings(course, index + 1)).to_string(),
+                if first {
+                    course_pitch_text(&course.pitch)
+                } else {
+                    format!("  {}", string.interval)
+                },
+                format!("{:.2}", string.pitch_hz),
+            ];
+            if show_length {
+                row.push(if first {
+                    length(course.length_m, view.length)
                 } else {
                     String::new()
-                }),
-                cell(&if string.choice.standing == Standing::Fixed {
-                    format!("{} (fixed)", string.choice.kind)
+                });
+            }
+            row.extend([
+                user(&if choice.standing == Standing::Fixed {
+                    format!("{} (fixed)", choice.kind)
                 } else {
-                    string.choice.kind.clone()
-                }),
-                right(format!("{:.4}", string.choice.diameter_in)),
-                right(format!("{:.3}", string.choice.diameter_mm)),
-                right(format!("{:.4}", string.choice.unit_mass_kg_per_m * 1000.0)),
-                right(format!("{:.1} N", string.target_tension_n)),
-                right(tension_text(string.choice.tension_n, units.force)),
-                right(format!("{:.0}%", string.choice.stress_ratio * 100.0)),
-                cell(worst_severity(course, number).map_or("", severity_flag)),
+                    choice.kind.clone()
+                })
+                .into_owned(),
+                diameter(choice.diameter_mm, view.length),
+                force(choice.tension_n, view.force),
+                force(string.target_tension_n, view.force),
+                stress_bar(
+                    Some(choice.stress_ratio),
+                    plan.caution_stress_ratio,
+                    plan.danger_stress_ratio,
+                ),
             ]);
+            if view.wide {
+                row.extend([
+                    format!("{:.4}", choice.unit_mass_kg_per_m * 1000.0),
+                    format!("{:.1}", choice.break_pitch_hz),
+                    choice
+                        .inharmonicity
+                        .map_or_else(|| "-".to_string(), |b| format!("{b:.2e}")),
+                ]);
+            }
+            grid.row(row);
         }
     }
-    let mut out = format!(
-        "{} — tuning {}\n{table}\n",
-        user(&plan.instrument),
-        user(&plan.tuning)
+    let (table, hidden) = grid.render(view.width);
+    let mut out = paragraph(
+        &format!("{} · tuning {}", user(&plan.instrument), user(&plan.tuning)),
+        view.width,
     );
-    out.push_str(&format!(
-        "Total tension: {} over {} strings",
-        tension_text(plan.total_tension_n, units.force),
+    if !show_length {
+        if let Some(first) = plan.courses.first() {
+            out = paragraph(
+                &format!(
+                    "{} · tuning {} · {} {length_unit} scale",
+                    user(&plan.instrument),
+                    user(&plan.tuning),
+                    length(first.length_m, view.length)
+                ),
+                view.width,
+            );
+        }
+    }
+    out.push_str(&table);
+    out.push_str(&hidden_note(&hidden, view.wide, view.width));
+    let gauges: Vec<Vec<(f64, bool)>> = plan
+        .courses
+        .iter()
+        .map(|course| {
+            course
+                .strings
+                .iter()
+                .map(|s| (s.choice.diameter_mm, s.choice.construction == "wound"))
+                .collect()
+        })
+        .collect();
+    out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
+    let mut total = format!(
+        "Total tension {} over {} strings",
+        force_with_unit(plan.total_tension_n, view.force),
         plan.string_count()
-    ));
+    );
     if let Some(rated) = plan.rated_load_n {
-        out.push_str(&format!(
-            " ({:.0}% of the rated {})",
+        total.push_str(&format!(
+            ", {:.0}% of the rated {}",
             plan.total_tension_n / rated * 100.0,
-            tension_text(rated, units.force)
+            force_with_unit(rated, view.force)
         ));
     }
-    out.push('\n');
-    let cautions: &[&str] = if plan.needs_safety_cautions() {
-        &SAFETY_CAUTIONS
-    } else {
-        &[]
-    };
-    out.push_str(&warnings_and_cautions(&plan.warnings, cautions));
+    total.push('.');
+    out.push_str(&paragraph(&total, view.width));
+    out.push_str(&warnings_and_cautions(
+        &plan.warnings,
+        &[],
+        cautions_for(&plan.warnings),
+        view,
+    ));
     out
 }
 
@@ -124,12 +190,12 @@ fn flags_text(choice: &StringChoice) -> String {
     choice.flags.join(", ").replace('_', " ")
 }
 
-fn choice_text(choice: &StringChoice, units: DisplayUnits) -> String {
+fn choice_text(choice: &StringChoice, units: ForceUnit) -> String {
     let mut text = format!(
         "{} {} {}",
         choice.kind,
         choice.gauge,
-        tension_text(choice.tension_n, units.force)
+        tension_text(choice.tension_n, units)
     );
     if choice.standing != Standing::OnTarget {
         text.push_str(&format!(" ({}", choice.standing.words()));
@@ -143,7 +209,8 @@ fn choice_text(choice: &StringChoice, units: DisplayUnits) -> String {
 
 /// The detail view (`--alternatives`): for every string, the target, the chosen string and why,
 /// the next thinner and thicker gauge of its kind and the best of each other allowed kind.
-pub fn alternatives(plan: &Plan, units: DisplayUnits) -> String {
+pub fn alternatives(plan: &Plan, view: &View) -> String {
+    let units = view.force;
     let mut out = String::from(
         "\nChoices (target; chosen; next thinner and thicker gauge; best of each other allowed kind):\n",
     );
@@ -165,10 +232,10 @@ pub fn alternatives(plan: &Plan, units: DisplayUnits) -> String {
             }
             out.push_str(&format!(
                 "  {label}, target {}: {} {} {}, {why}\n",
-                tension_text(string.target_tension_n, units.force),
+                tension_text(string.target_tension_n, units),
                 chosen.kind,
                 chosen.gauge,
-                tension_text(chosen.tension_n, units.force),
+                tension_text(chosen.tension_n, units),
             ));
             let alternatives = &string.alternatives;
             let neighbours: Vec<String> = [
@@ -190,22 +257,28 @@ pub fn alternatives(plan: &Plan, units: DisplayUnits) -> String {
             }
         }
     }
-    out
+    fit_lines(&out, view.width)
 }
 
-/// The JSON document (pretty-printed, ending in a newline).
-pub fn json(plan: &Plan) -> Result<String> {
-    serde_json::to_string_pretty(plan)
-        .map(|mut text| {
-            text.push('\n');
-            text
-        })
-        .map_err(|err| Error::input(format!("cannot render the plan as JSON: {err}")))
-}
-
-/// The YAML document: the same fields as JSON.
-pub fn yaml(plan: &Plan) -> Result<String> {
-    taut::input::yaml::to_text(plan)
+/// Lines longer than `width` wrapped with a hanging indent under their own indent.
+fn fit_lines(text: &str, width: usize) -> String {
+    let mut fitted = String::with_capacity(text.len());
+    for line in text.split_inclusive('\n') {
+        let body = line.trim_end_matches('\n');
+        if crate::cli::layout::cells(body) <= width {
+            fitted.push_str(line);
+            continue;
+        }
+        let indent = &body[..body.len() - body.trim_start().len()];
+        let rest = format!("{indent}    ");
+        fitted.push_str(&crate::cli::layout::wrap(
+            body.trim_start(),
+            width,
+            indent,
+            &rest,
+        ));
+    }
+    fitted
 }
 
 /// One CSV row per string.
@@ -230,13 +303,14 @@ struct CsvRow<'a> {
     tension_n: f64,
     stress_ratio: f64,
     break_pitch_hz: f64,
+    inharmonicity: Option<f64>,
     warnings: String,
 }
 
-/// The CSV table: one row per string, warning kinds joined with `;`.
+/// The CSV table: one row per string, warning kinds joined with `;`, numbers to 6 significant
+/// digits.
 pub fn csv(plan: &Plan) -> Result<String> {
-    let mut writer = csv::Writer::from_writer(Vec::new());
-    let fail = |err: csv::Error| Error::input(format!("cannot render the plan as CSV: {err}"));
+    let mut rows = Vec::new();
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
             let warnings = course
@@ -246,35 +320,30 @@ pub fn csv(plan: &Plan) -> Result<String> {
                 .map(|warning| warning.kind.name())
                 .collect::<Vec<_>>()
                 .join(";");
-            writer
-                .serialize(CsvRow {
-                    course: course.course,
-                    string: index + 1,
-                    interval: &string.interval,
-                    pitch: &course.pitch.written,
-                    note_name: &course.pitch.note_name,
-                    pitch_hz: string.pitch_hz,
-                    length_m: course.length_m,
-                    kind: &string.choice.kind,
-                    construction: &string.choice.construction,
-                    material: &string.choice.material,
-                    gauge: &string.choice.gauge,
-                    diameter_mm: string.choice.diameter_mm,
-                    diameter_in: string.choice.diameter_mm / 1000.0 / METRES_PER_INCH,
-                    unit_mass_kg_per_m: string.choice.unit_mass_kg_per_m,
-                    target_tension_n: string.target_tension_n,
-                    required_unit_mass_kg_per_m: string.required_unit_mass_kg_per_m,
-                    tension_n: string.choice.tension_n,
-                    stress_ratio: string.choice.stress_ratio,
-                    break_pitch_hz: string.choice.break_pitch_hz,
-                    warnings,
-                })
-                .map_err(fail)?;
+            rows.push(CsvRow {
+                course: course.course,
+                string: index + 1,
+                interval: &string.interval,
+                pitch: &course.pitch.written,
+                note_name: &course.pitch.note_name,
+                pitch_hz: sig(string.pitch_hz),
+                length_m: sig(course.length_m),
+                kind: &string.choice.kind,
+                construction: &string.choice.construction,
+                material: &string.choice.material,
+                gauge: &string.choice.gauge,
+                diameter_mm: sig(string.choice.diameter_mm),
+                diameter_in: sig(string.choice.diameter_mm / 1000.0 / METRES_PER_INCH),
+                unit_mass_kg_per_m: sig(string.choice.unit_mass_kg_per_m),
+                target_tension_n: sig(string.target_tension_n),
+                required_unit_mass_kg_per_m: sig(string.required_unit_mass_kg_per_m),
+                tension_n: sig(string.choice.tension_n),
+                stress_ratio: sig(string.choice.stress_ratio),
+                break_pitch_hz: sig(string.choice.break_pitch_hz),
+                inharmonicity: sig_opt(string.choice.inharmonicity),
+                warnings,
+            });
         }
     }
-    let bytes = writer
-        .into_inner()
-        .map_err(|err| Error::input(format!("cannot render the plan as CSV: {err}")))?;
-    String::from_utf8(bytes)
-        .map_err(|err| Error::input(format!("cannot render the plan as CSV: {err}")))
+    crate::cli::output::csv_text(rows)
 }

@@ -2,18 +2,17 @@
 //! 100 columns, JSON, CSV and YAML. The table gives each tuning a letter; when the tunings do
 //! not fit side by side, they are shown in several tables ([`side_by_side`]).
 
-use comfy_table::{Cell, Table};
-
 use taut::error::Result;
-use taut::input::units::ForceUnit;
 use taut::plan::several::SeveralPlan;
 use taut::plan::warning::Severity;
 use taut::strings::select::several::Agreement;
 
-use super::render::{self, tension_text, worst_severity};
+use super::render::{self, worst_severity};
+use crate::cli::layout::{paragraph, Column, Give, Grid};
+use crate::cli::output::View;
 use crate::cli::text::{
-    letter, lettered_warnings, new_table, right, severity_flag, side_by_side, tuning_legend,
-    warnings_and_cautions,
+    force, force_with_unit, letter, lettered_warnings, severity_flag, side_by_side, tuning_legend,
+    user, warnings_and_cautions,
 };
 
 fn agreement_text(agreement: Agreement) -> &'static str {
@@ -26,13 +25,13 @@ fn agreement_text(agreement: Agreement) -> &'static str {
 
 /// The set: per string the chosen kind and gauge, how well it fits the list, and the tunings
 /// that set its limits.
-fn set_table(plan: &SeveralPlan) -> Table {
-    let mut table = new_table(vec![
-        "Course",
-        "String",
-        "Fit",
-        "Slackest in",
-        "Most stressed in",
+fn set_table(plan: &SeveralPlan, view: &View) -> String {
+    let mut table = Grid::new(vec![
+        Column::figure("#"),
+        Column::text("string").give(Give::Shorten(12)),
+        Column::text("fit"),
+        Column::text("slackest in").give(Give::Shorten(8)),
+        Column::text("most stressed in").give(Give::Shorten(8)),
     ]);
     for (course_index, shared) in plan.courses.iter().enumerate() {
         for (string_index, string) in shared.strings.iter().enumerate() {
@@ -41,13 +40,13 @@ fn set_table(plan: &SeveralPlan) -> Table {
                 let index = plan.tunings.iter().position(|b| b.variant == variant);
                 format!("{} {variant}", index.map_or('?', letter))
             };
-            table.add_row(vec![
-                right(if first {
+            table.row(vec![
+                if first {
                     shared.course.to_string()
                 } else {
                     String::new()
-                }),
-                Cell::new(if first {
+                },
+                user(&if first {
                     format!("{} {}", string.kind, string.gauge)
                 } else {
                     let interval = plan
@@ -57,33 +56,37 @@ fn set_table(plan: &SeveralPlan) -> Table {
                         .and_then(|course| course.strings.get(string_index))
                         .map_or("", |s| s.interval.as_str());
                     format!("  {interval}: {} {}", string.kind, string.gauge)
-                }),
-                Cell::new(agreement_text(string.agreement)),
-                Cell::new(name(&string.slackest_variant)),
-                Cell::new(name(&string.most_stressed_variant)),
+                })
+                .into_owned(),
+                agreement_text(string.agreement).to_string(),
+                user(&name(&string.slackest_variant)).into_owned(),
+                user(&name(&string.most_stressed_variant)).into_owned(),
             ]);
         }
     }
-    table
+    table.render(view.width).0
 }
 
 /// The tunings `shown` (indices into `plan.tunings`) side by side: per string its gauge, then
 /// pitch, tension and stress in each.
-fn chunk_table(plan: &SeveralPlan, shown: &[usize]) -> Table {
-    let letters: Vec<String> = shown.iter().map(|&i| letter(i).to_string()).collect();
-    let mut header = vec!["Course", "Gauge"];
-    header.extend(letters.iter().map(String::as_str));
-    let mut table = new_table(header);
+fn chunk_table(plan: &SeveralPlan, shown: &[usize], view: &View) -> String {
+    let mut columns = vec![Column::figure("#"), Column::figure("gauge")];
+    columns.extend(
+        shown
+            .iter()
+            .map(|&i| Column::figure(&letter(i).to_string()).give(Give::Shorten(12))),
+    );
+    let mut table = Grid::new(columns);
     for (course_index, shared) in plan.courses.iter().enumerate() {
         for (string_index, string) in shared.strings.iter().enumerate() {
             let first = string_index == 0;
             let mut row = vec![
-                right(if first {
+                if first {
                     shared.course.to_string()
                 } else {
                     String::new()
-                }),
-                right(string.gauge.clone()),
+                },
+                string.gauge.clone(),
             ];
             for &tuning in shown {
                 let course = plan
@@ -102,28 +105,31 @@ fn chunk_table(plan: &SeveralPlan, shown: &[usize]) -> Table {
                             .filter(|&s| s >= Severity::Caution)
                             .map_or(String::new(), |s| format!(" {}", severity_flag(s)));
                         Some(format!(
-                            "{pitch}{:.1} N {:.0}%{flag}",
-                            planned.choice.tension_n,
+                            "{pitch}{} {:.0}%{flag}",
+                            force(planned.choice.tension_n, view.force),
                             planned.choice.stress_ratio * 100.0
                         ))
                     })
                     .unwrap_or_default();
-                row.push(right(cell));
+                row.push(user(&cell).into_owned());
             }
-            table.add_row(row);
+            table.row(row);
         }
     }
-    table
+    table.render(view.width).0
 }
 
 /// The terminal report: the tunings and their letters, the side-by-side table, the load in each
 /// tuning against the rated load, conflicts, every tuning's warnings and the safety cautions.
-pub fn table(plan: &SeveralPlan, force: ForceUnit) -> String {
-    let mut out = format!(
-        "{} — one set for {} tunings (balance: {})\n",
-        plan.instrument,
-        plan.tunings.len(),
-        plan.balance.name()
+pub fn table(plan: &SeveralPlan, view: &View) -> String {
+    let mut out = paragraph(
+        &format!(
+            "{} · one set for {} tunings (balance: {})",
+            user(&plan.instrument),
+            plan.tunings.len(),
+            plan.balance.name()
+        ),
+        view.width,
     );
     out.push_str(&tuning_legend(plan.tunings.iter().map(|block| {
         (
@@ -132,27 +138,35 @@ pub fn table(plan: &SeveralPlan, force: ForceUnit) -> String {
             block.retuned_courses.as_slice(),
         )
     })));
-    out.push_str(&format!("{}\n", set_table(plan)));
-    out.push_str(
-        "Fit: on target in every tuning; off target in some, but safe and inside the window in\n\
-         all; or CONFLICT (see below). The slackest and the most stressed tuning set the limits.\n",
-    );
-    out.push_str(&side_by_side(plan.tunings.len(), |shown| {
-        chunk_table(plan, shown)
+    out.push_str(&set_table(plan, view));
+    out.push_str(&paragraph(
+        "Fit: on target in every tuning; off target in some, but safe and inside the window in \
+         all; or CONFLICT (see below). The slackest and the most stressed tuning set the limits.",
+        view.width,
+    ));
+    out.push('\n');
+    out.push_str(&side_by_side(plan.tunings.len(), view.width, |shown| {
+        chunk_table(plan, shown, view)
     }));
-    out.push_str("Each tuning: pitch, tension, and stress as a share of breaking strength.\n");
+    out.push_str(&paragraph(
+        &format!(
+            "Each tuning: pitch, tension ({}), and stress as a share of breaking strength.",
+            view.force.symbol()
+        ),
+        view.width,
+    ));
     out.push_str("Total tension:\n");
     for (index, block) in plan.tunings.iter().enumerate() {
         let mut line = format!(
             "  {}  {}",
             letter(index),
-            tension_text(block.plan.total_tension_n, force)
+            force_with_unit(block.plan.total_tension_n, view.force)
         );
         if let Some(rated) = block.plan.rated_load_n {
             line.push_str(&format!(
                 " ({:.0}% of the rated {})",
                 block.plan.total_tension_n / rated * 100.0,
-                tension_text(rated, force)
+                force_with_unit(rated, view.force)
             ));
         }
         out.push_str(&line);
@@ -166,11 +180,16 @@ pub fn table(plan: &SeveralPlan, force: ForceUnit) -> String {
             plan.conflicts.len()
         ));
         for conflict in &plan.conflicts {
-            out.push_str(&format!("  {}\n", conflict.message));
+            out.push_str(&crate::cli::layout::wrap(
+                &user(&conflict.message),
+                view.width,
+                "  ",
+                "    ",
+            ));
         }
     }
     let warnings = lettered_warnings(plan.tunings.iter().map(|block| &block.plan.warnings));
-    out.push_str(&warnings_and_cautions(&warnings, &plan.cautions));
+    out.push_str(&warnings_and_cautions(&warnings, &[], &plan.cautions, view));
     out
 }
 

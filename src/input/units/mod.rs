@@ -94,12 +94,16 @@ const UNITS: &[(&str, Dimension, f64)] = &[
     ("kN", Dimension::Force, 1000.0),
     ("lbf", Dimension::Force, NEWTONS_PER_LBF),
     ("kgf", Dimension::Force, NEWTONS_PER_KGF),
+    // What people write for a force in pounds: `16 lb` and `16 lbs` mean pound-force there.
+    ("lb", Dimension::Force, NEWTONS_PER_LBF),
+    ("lbs", Dimension::Force, NEWTONS_PER_LBF),
     ("Hz", Dimension::Frequency, 1.0),
     ("kHz", Dimension::Frequency, 1000.0),
     ("kg", Dimension::Mass, 1.0),
     ("g", Dimension::Mass, 0.001),
     ("mg", Dimension::Mass, 1e-6),
     ("lb", Dimension::Mass, KG_PER_POUND),
+    ("lbs", Dimension::Mass, KG_PER_POUND),
     ("kg/m", Dimension::UnitMass, 1.0),
     ("g/m", Dimension::UnitMass, 0.001),
     ("lb/in", Dimension::UnitMass, KG_PER_POUND / METRES_PER_INCH),
@@ -171,7 +175,12 @@ pub fn parse_quantity(text: &str, dimension: Dimension) -> Result<f64> {
             accepted()
         )));
     }
-    match UNITS.iter().find(|(symbol, _, _)| *symbol == unit) {
+    // A symbol may mean two dimensions (`lb`): the one this field needs comes first.
+    let entry = UNITS
+        .iter()
+        .find(|(symbol, found, _)| *symbol == unit && *found == dimension)
+        .or_else(|| UNITS.iter().find(|(symbol, _, _)| *symbol == unit));
+    match entry {
         Some((_, found, factor)) if *found == dimension => {
             // A finite number can still overflow once converted (1e308 kN).
             let si = value * factor;

@@ -32,6 +32,16 @@ fn parses_practitioners_units() {
         epsilon = 1e-3
     );
     assert_relative_eq!("1e3N".parse::<Force>().unwrap().si(), 1000.0);
+    // `lb` and `lbs` are pound-force where a force is asked for, pounds where a mass is.
+    assert_relative_eq!(
+        "16 lb".parse::<Force>().unwrap().si(),
+        16.0 * NEWTONS_PER_LBF
+    );
+    assert_relative_eq!(
+        "16lbs".parse::<Force>().unwrap().si(),
+        16.0 * NEWTONS_PER_LBF
+    );
+    assert_relative_eq!("2 lbs".parse::<Mass>().unwrap().si(), 2.0 * KG_PER_POUND);
 }
 
 #[test]

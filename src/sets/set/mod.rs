@@ -60,6 +60,8 @@ struct SetCourseFile {
 #[serde(deny_unknown_fields)]
 struct SetFile {
     name: String,
+    // `description` as in tuning files; `about` is the older name, still read.
+    #[serde(rename = "description", alias = "about")]
     about: Option<String>,
     instrument: Option<String>,
     tuning: Option<String>,

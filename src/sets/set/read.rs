@@ -200,7 +200,7 @@ impl StringSet {
         let quoted = |text: &str| serde_json::to_string(text).unwrap_or_default();
         let _ = writeln!(out, "name: {}", quoted(&self.name));
         if let Some(about) = &self.about {
-            let _ = writeln!(out, "about: {}", quoted(about));
+            let _ = writeln!(out, "description: {}", quoted(about));
         }
         if let Some(instrument) = &self.instrument {
             let _ = writeln!(out, "instrument: {}", quoted(instrument));

@@ -173,6 +173,19 @@ pub fn nearest_note_name(hz: f64, concert_a4_hz: f64) -> (String, f64) {
     (format!("{name}{octave}"), offset)
 }
 
+/// The nearest 12-tone note as [`nearest_note_name`] finds it, spelt as the user wrote it when
+/// `spec` is a note on the same key (`Bb4` stays `Bb4`, not `A#4`).
+pub fn nearest_note_as_written(spec: &PitchSpec, hz: f64, concert_a4_hz: f64) -> (String, f64) {
+    let (name, offset) = nearest_note_name(hz, concert_a4_hz);
+    if let PitchSpec::Note { note, .. } = spec {
+        let semitones = 12.0 * (hz / concert_a4_hz).log2();
+        if semitones.is_finite() && note.semitones_from_a4() == semitones.round() as i64 {
+            return (note.to_string(), offset);
+        }
+    }
+    (name, offset)
+}
+
 /// A pitch as the user wrote it; resolve it against a tuning with
 /// [`crate::tuning::Tuning::resolve`]. See the [module documentation](self) for the syntax.
 #[derive(Debug, Clone, PartialEq, Serialize)]

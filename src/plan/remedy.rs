@@ -1,0 +1,94 @@
+//! What would fix each warning, from the physics, as one sentence a report appends to the
+//! warning's message.
+//!
+//! Kept apart from the wording of the warnings themselves (`warning.rs`), so severities and
+//! messages can change without touching the advice.
+//!
+//! The physics behind the advice: a string's tension is T = μ(2Lf)² (Mersenne's laws; OpenStax
+//! *University Physics* Vol. 1 §16.3), so a heavier string (μ up) or a shorter length at the
+//! same pitch changes the tension; the stress in a plain string is T/A = ρ(2Lf)², which holds no
+//! diameter, so its breaking pitch f = √(σ_break/ρ)/(2L) depends only on length and material
+//! (see `crate::strings::physics`).
+
+use crate::plan::warning::{Warning, WarningKind};
+
+/// How the string a warning is about is built, as far as the report knows.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Build {
+    /// One solid wire or filament.
+    Plain,
+    /// A core with wraps.
+    Wound,
+    /// Not known (a measured string, or a warning about the whole instrument).
+    Unknown,
+}
+
+/// The fix for a warning: one sentence, or `None` when there is no advice to give.
+pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static str> {
+    let text = match (kind, build) {
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Wound) => {
+            "Fix: a wound string with a thicker core, a shorter length or a stronger core material lowers the stress."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, _) if value >= 1.0 => {
+            "Fix: no gauge helps, since a plain string's breaking pitch depends only on its length and material; a shorter length, a stronger material or a wound string does."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, _) => {
+            "Fix: no plain gauge helps, since a plain string's stress depends only on its length, pitch and material; a shorter length, a stronger material or a wound string lowers it."
+        }
+        (WarningKind::ThinnerThanPractical, _) => {
+            "Fix: a shorter length, a lighter material or a kind with thinner gauges lets a string land on target."
+        }
+        (WarningKind::ThickerThanCatalog, _) => {
+            "Fix: a wound kind (more mass for its width) or a longer length lets a catalog string reach the target."
+        }
+        (WarningKind::WiderThanSlot, _) => {
+            "Fix: a denser kind (a wound one) or less tension needs a narrower string; else the slot must be widened."
+        }
+        (WarningKind::TensionBelowWindow, _) => {
+            "Fix: a heavier gauge or a wound kind brings the tension up into the window."
+        }
+        (WarningKind::TensionAboveWindow, _) => {
+            "Fix: a lighter gauge or a lighter kind brings the tension down into the window."
+        }
+        (WarningKind::OffTarget, _) => {
+            "Fix: allow another kind, add the gauges in between with --stock, or widen the tolerance."
+        }
+        (WarningKind::OverRatedLoad, _) => {
+            "Fix: lower the tension targets or use lighter strings; only the maker can raise the rating."
+        }
+        // Kinds added later get their advice here; until then they carry none.
+        #[allow(unreachable_patterns)]
+        _ => return None,
+    };
+    Some(text)
+}
+
+/// Appends the fix to each warning's message (once: a message that already ends with it is
+/// left alone). `build_of` tells how the string a warning is about is built.
+pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
+    for warning in warnings {
+        if let Some(fix) = remedy(warning.kind, warning.value, build_of(warning)) {
+            if !warning.message.ends_with(fix) {
+                warning.message = format!("{} {fix}", warning.message);
+            }
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn every_kind_has_a_fix_and_plain_strings_are_told_no_gauge_helps() {
+        for kind in WarningKind::ALL {
+            assert!(remedy(kind, 0.5, Build::Unknown).is_some(), "{kind:?}");
+        }
+        let plain = remedy(WarningKind::StressDanger, 1.2, Build::Plain).unwrap();
+        assert!(plain.contains("no gauge helps") && plain.contains("shorter length"));
+        let wound = remedy(WarningKind::StressDanger, 1.2, Build::Wound).unwrap();
+        assert!(wound.contains("thicker core"));
+        let slack = remedy(WarningKind::TensionBelowWindow, 30.0, Build::Plain).unwrap();
+        assert!(slack.contains("heavier gauge") && slack.contains("wound"));
+    }
+}
