@@ -547,16 +547,12 @@ fn attach_fixes(report: &mut Conversion, stock: &Stock) {
             })
         })
         .collect();
-    let build_of = |warning: &taut::plan::warning::Warning| {
-        builds
-            .iter()
-            .find(|(course, string, _)| {
-                Some(*course) == warning.course && Some(*string) == warning.string
-            })
-            .map_or(Build::Unknown, |(_, _, build)| *build)
-    };
-    for course in &mut report.courses {
-        remedy::attach(&mut course.warnings, build_of);
-    }
-    remedy::attach(&mut report.warnings, build_of);
+    remedy::attach_by_string(
+        report
+            .courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut report.warnings)),
+        &builds,
+    );
 }

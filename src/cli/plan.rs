@@ -267,18 +267,13 @@ fn attach_fixes(plan: &mut Plan) {
             })
         })
         .collect();
-    let build_of = |warning: &taut::plan::warning::Warning| {
-        builds
-            .iter()
-            .find(|(course, string, _)| {
-                Some(*course) == warning.course && Some(*string) == warning.string
-            })
-            .map_or(Build::Unknown, |(_, _, build)| *build)
-    };
-    for course in &mut plan.courses {
-        remedy::attach(&mut course.warnings, build_of);
-    }
-    remedy::attach(&mut plan.warnings, build_of);
+    remedy::attach_by_string(
+        plan.courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut plan.warnings)),
+        &builds,
+    );
 }
 
 impl Render for Plan {

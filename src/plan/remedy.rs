@@ -75,6 +75,26 @@ pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
     }
 }
 
+/// [`attach`] over every list of `lists` (each course's warnings, then the report's own), the
+/// build of each string looked up in `builds` by (course, string number); a string not listed
+/// is [`Build::Unknown`].
+pub fn attach_by_string<'w>(
+    lists: impl IntoIterator<Item = &'w mut Vec<Warning>>,
+    builds: &[(u32, usize, Build)],
+) {
+    let build_of = |warning: &Warning| {
+        builds
+            .iter()
+            .find(|(course, string, _)| {
+                Some(*course) == warning.course && Some(*string) == warning.string
+            })
+            .map_or(Build::Unknown, |(_, _, build)| *build)
+    };
+    for list in lists {
+        attach(list, build_of);
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
