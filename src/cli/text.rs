@@ -19,6 +19,13 @@ pub fn user(text: &str) -> std::borrow::Cow<'_, str> {
 use super::layout::{paragraph, wrap};
 use super::output::View;
 
+mod colour;
+#[allow(unused_imports)]
+use colour::*;
+pub use colour::*;
+#[cfg(test)]
+mod tests;
+
 /// An optional figure as text, `-` when unknown.
 pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
     value.map_or_else(|| "-".to_string(), render)
@@ -228,106 +235,6 @@ pub fn warnings_and_cautions(
     out
 }
 
-/// taut's palette for status marks on a terminal (256-colour codes). The words differ on their
-/// own (`DANGER` in capitals, `caution`, `note`; `no`, `yes, with care`, `yes`), so nothing is
-/// lost without colour; danger is bold as well.
-const MARK_COLOURS: [(&str, &str); 8] = [
-    ("DANGER", "1;38;5;160"),
-    ("caution", "38;5;172"),
-    ("note", "38;5;67"),
-    ("yes, with care", "38;5;172"),
-    ("yes", "38;5;71"),
-    ("no fit", "1;38;5;160"),
-    ("no", "1;38;5;160"),
-    ("ok", "38;5;71"),
-];
-
-/// Whether standard output gets colours: a terminal, and `NO_COLOR` unset or empty
-/// (the convention at no-color.org).
-pub fn colour_wanted() -> bool {
-    use std::io::IsTerminal;
-    std::env::var_os("NO_COLOR").is_none_or(|value| value.is_empty())
-        && std::io::stdout().is_terminal()
-}
-
-/// A report for standard output: status marks coloured when [`colour_wanted`].
-pub fn for_terminal(text: String) -> String {
-    if colour_wanted() {
-        colour_marks(&text)
-    } else {
-        text
-    }
-}
-
-fn paint(mark: &str, code: &str) -> String {
-    format!("\x1b[{code}m{mark}\x1b[0m")
-}
-
-/// Colours the status marks of a report: the status cell that follows the first cell of a
-/// report row (`3  DANGER  ~G3 …`), the last cell of a boxed table row (`… DANGER │`) and the
-/// flag that opens a warnings-list line (`  caution  …`). Colour codes take no
-/// room on a terminal, so the table stays aligned.
-pub fn colour_marks(text: &str) -> String {
-    let mut out = String::with_capacity(text.len() + 64);
-    for line in text.split_inclusive('\n') {
-        out.push_str(&colour_line(line));
-    }
-    out
-}
-
-fn colour_line(line: &str) -> String {
-    let body = line.trim_end_matches('\n');
-    let ending = &line[body.len()..];
-    if let Some(inner) = body.strip_suffix('│') {
-        let cell = inner.trim_end();
-        for (mark, code) in MARK_COLOURS {
-            if let Some(before) = cell.strip_suffix(mark) {
-                if before.ends_with("  ") {
-                    return format!(
-                        "{before}{}{}│{ending}",
-                        paint(mark, code),
-                        &inner[cell.len()..]
-                    );
-                }
-            }
-        }
-        return line.to_string();
-    }
-    for (mark, code) in MARK_COLOURS.iter().take(3) {
-        if let Some(rest) = body.strip_prefix("  ").and_then(|b| b.strip_prefix(mark)) {
-            if rest.starts_with(' ') {
-                return format!("  {}{rest}{ending}", paint(mark, code));
-            }
-        }
-    }
-    colour_status_cell(body).map_or_else(|| line.to_string(), |row| row + ending)
-}
-
-/// A report row led by a short first cell (the string's number) and then its status word, two
-/// spaces apart: the status word coloured, or `None` when the line is not such a row.
-fn colour_status_cell(body: &str) -> Option<String> {
-    let indent = body.len() - body.trim_start_matches(' ').len();
-    let first_end = indent + body[indent..].find(' ')?;
-    let first = &body[indent..first_end];
-    let short_label = !first.is_empty()
-        && first.chars().count() <= 6
-        && first
-            .chars()
-            .all(|c| c.is_alphanumeric() || c == '.' || c == '-');
-    let after = &body[first_end..];
-    let status = after.trim_start_matches(' ');
-    if !short_label || after.len() - status.len() < 2 {
-        return None;
-    }
-    MARK_COLOURS.iter().find_map(|(mark, code)| {
-        let rest = status.strip_prefix(mark)?;
-        (rest.is_empty() || rest.starts_with("  ")).then(|| {
-            let lead = &body[..body.len() - status.len()];
-            format!("{lead}{}{rest}", paint(mark, code))
-        })
-    })
-}
-
 /// The safety cautions a report shows when any warning is a caution or a danger.
 pub fn cautions_for(warnings: &[Warning]) -> &'static [&'static str] {
     if warnings.iter().any(|w| w.severity >= Severity::Caution) {
@@ -418,92 +325,4 @@ pub fn lettered_warnings<'a>(per_tuning: impl Iterator<Item = &'a Vec<Warning>>)
             })
         })
         .collect()
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn status_marks_are_coloured_only_where_they_are_marks() {
-        let table =
-            "│ 1   E4   53%   DANGER  │\n│ 2   B3   31%           │\n│ 3  no  yes, with care │\n";
-        let coloured = colour_marks(table);
-        assert!(
-            coloured.contains("\x1b[1;38;5;160mDANGER\x1b[0m  │"),
-            "{coloured}"
-        );
-        assert!(
-            coloured.contains("\x1b[38;5;172myes, with care\x1b[0m │"),
-            "{coloured}"
-        );
-        assert!(!coloured.contains("mno"), "{coloured}");
-        let plain: String = coloured
-            .replace("\x1b[1;38;5;160m", "")
-            .replace("\x1b[38;5;172m", "")
-            .replace("\x1b[0m", "");
-        assert_eq!(plain, table);
-        let list = "  caution stress_caution: Course 1 …\nNo warnings.\n  note    x: y\n";
-        let coloured = colour_marks(list);
-        assert!(coloured.starts_with("  \x1b[38;5;172mcaution\x1b[0m stress_caution"));
-        assert!(coloured.contains("No warnings.\n"));
-        assert!(coloured.contains("\x1b[38;5;67mnote\x1b[0m    x"));
-    }
-
-    #[test]
-    fn status_words_leading_a_report_row_are_coloured() {
-        let table = "#  status  pitch\n─────\n 1  ok      ~E4 -5.3c  0.25\n12  DANGER  G3\n 3  no fit  C2\n 4  note    ok\nok, then  DANGER\n";
-        let coloured = colour_marks(table);
-        assert!(
-            coloured.contains(" 1  \x1b[38;5;71mok\x1b[0m      ~E4"),
-            "{coloured}"
-        );
-        assert!(
-            coloured.contains("12  \x1b[1;38;5;160mDANGER\x1b[0m  G3"),
-            "{coloured}"
-        );
-        assert!(
-            coloured.contains(" 3  \x1b[1;38;5;160mno fit\x1b[0m  C2"),
-            "{coloured}"
-        );
-        // Only the status cell: a later `ok` and a line of prose are left alone.
-        assert!(
-            coloured.contains("\x1b[38;5;67mnote\x1b[0m    ok\n"),
-            "{coloured}"
-        );
-        assert!(coloured.ends_with("ok, then  DANGER\n"), "{coloured}");
-        assert!(coloured.starts_with("#  status  pitch\n"), "{coloured}");
-    }
-
-    #[test]
-    fn pitch_labels_show_the_note_only_when_it_adds_something() {
-        assert_eq!(pitch_with_note("A2", "A2", 0.0), "A2");
-        assert_eq!(pitch_with_note("~E4", "E4", -5.26), "~E4 -5.3c");
-        assert_eq!(pitch_with_note("~A2", "A2", 0.01), "~A2");
-        assert_eq!(pitch_with_note("3/4", "E4", 1.96), "3/4 E4+2.0c");
-    }
-
-    #[test]
-    fn a_change_that_rounds_to_zero_has_no_sign() {
-        assert_eq!(change(-0.3, 0), "0%");
-        assert_eq!(change(0.04, 1), "0.0%");
-        assert_eq!(change(-1.6, 0), "-2%");
-        assert_eq!(change(38.2, 0), "+38%");
-    }
-
-    #[test]
-    fn the_stress_bar_fills_with_the_stress() {
-        assert_eq!(stress_bar(Some(0.5), 0.65, 0.85), "▰▰▰▰▱▱▱▱   50%");
-        assert!(stress_bar(Some(0.9), 0.65, 0.85).contains('!'));
-        assert_eq!(stress_bar(Some(1.4), 0.65, 0.85), "▰▰▰▰▰▰▰▰! 140%");
-        // Just above the caution limit reads as above it, not as the limit itself.
-        assert!(stress_bar(Some(0.652), 0.65, 0.85).ends_with("65.2%"));
-    }
-
-    #[test]
-    fn diameters_follow_the_length_unit() {
-        assert_eq!(diameter(0.254, LengthUnit::In), "10");
-        assert_eq!(diameter(0.3429, LengthUnit::In), "13.5");
-        assert_eq!(diameter(0.254, LengthUnit::Mm), "0.25");
-    }
 }

@@ -1,0 +1,241 @@
+//! The audit as a table and as CSV rows, and the fixes its warnings end with.
+
+#[allow(unused_imports)]
+use super::*;
+
+impl Render for Audit {
+    fn table(&self, view: &View) -> String {
+        let lengths_vary = self
+            .courses
+            .windows(2)
+            .any(|pair| (pair[0].length_m - pair[1].length_m).abs() > 1e-9);
+        let show_length = view.wide || lengths_vary;
+        let mut columns = vec![
+            Column::figure("#"),
+            Column::text("verdict"),
+            Column::text("pitch").give(Give::Shorten(8)),
+            Column::figure("Hz").give(Give::Drop(3)),
+        ];
+        if show_length {
+            columns.push(
+                Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)),
+            );
+        }
+        columns.extend([
+            Column::text("string").give(Give::Shorten(10)),
+            Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+            Column::figure(view.force.symbol()),
+            Column::figure("was").give(Give::Drop(1)),
+            Column::figure("change"),
+            Column::text("stress"),
+        ]);
+        if view.wide {
+            columns.extend([
+                Column::figure("B").give(Give::Drop(4)),
+                Column::figure("partials c").give(Give::Drop(5)),
+                Column::figure("bend N").give(Give::Drop(6)),
+            ]);
+        }
+        let mut grid = Grid::new(columns);
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                let first = index == 0;
+                let mut row = vec![
+                    if first {
+                        course.course.to_string()
+                    } else {
+                        String::new()
+                    },
+                    if first {
+                        course.verdict.text().to_string()
+                    } else {
+                        String::new()
+                    },
+                    if first {
+                        course_pitch_text(&course.pitch)
+                    } else {
+                        format!("  {}", string.interval)
+                    },
+                    format!("{:.2}", string.pitch_hz),
+                ];
+                if show_length {
+                    row.push(if first {
+                        length(course.length_m, view.length)
+                    } else {
+                        String::new()
+                    });
+                }
+                row.extend([
+                    user(&string.string).into_owned(),
+                    maybe(string.diameter_mm, |d| diameter(d, view.length)),
+                    force(string.tension_n, view.force),
+                    maybe(string.reference_tension_n, |t| force(t, view.force)),
+                    maybe(string.tension_change_pct, |c| change(c, 0)),
+                    stress_bar(string.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
+                ]);
+                if view.wide {
+                    row.extend(feel::cells(&string.feel));
+                }
+                grid.row(row);
+            }
+        }
+        let mut title = format!(
+            "{} · set {} · tuning {}",
+            user(&self.instrument),
+            user(&self.set),
+            user(&self.tuning)
+        );
+        if let Some(reference) = &self.reference_tuning {
+            title.push_str(&format!(" (strings now in {})", user(reference)));
+        }
+        if !show_length {
+            if let Some(first) = self.courses.first() {
+                title.push_str(&format!(
+                    " · {} {} scale",
+                    length(first.length_m, view.length),
+                    view.length.symbol()
+                ));
+            }
+        }
+        let mut out = paragraph(&title, view.width);
+        let (table, hidden) = grid.render(view.width);
+        out.push_str(&table);
+        out.push_str(&hidden_note(&hidden, view.wide, view.width));
+        out.push_str(&format!(
+            "{} of {} courses can take this tuning.\n",
+            self.courses_ok,
+            self.courses.len()
+        ));
+        for course in &self.courses {
+            if course.verdict != Verdict::Yes {
+                out.push_str(&wrap(
+                    &format!("{}: {}.", course.verdict.text(), user(&course.reason)),
+                    view.width,
+                    &format!("  course {:<3} ", course.course),
+                    "             ",
+                ));
+            }
+        }
+        let mut total = format!(
+            "Total tension {}",
+            force_with_unit(self.total_tension_n, view.force)
+        );
+        if let Some(before) = self.reference_total_tension_n {
+            total.push_str(&format!(
+                " (was {}, {})",
+                force_with_unit(before, view.force),
+                change((self.total_tension_n / before - 1.0) * 100.0, 0)
+            ));
+        }
+        if let Some(rated) = self.rated_load_n {
+            total.push_str(&format!(
+                ", {:.0}% of the rated {}",
+                self.total_tension_n / rated * 100.0,
+                force_with_unit(rated, view.force)
+            ));
+        }
+        total.push('.');
+        out.push_str(&paragraph(&total, view.width));
+        if view.wide {
+            out.push_str(&feel_legend(
+                self.courses
+                    .first()
+                    .and_then(|c| c.strings.first())
+                    .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents),
+                view,
+            ));
+        }
+        out.push_str(&warnings_and_cautions(
+            &self.warnings,
+            &[],
+            &self.cautions,
+            view,
+        ));
+        out
+    }
+
+    fn csv(&self) -> Result<String> {
+        let mut rows = Vec::new();
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                rows.push(AuditRow {
+                    course: course.course,
+                    string: index + 1,
+                    interval: &string.interval,
+                    pitch: &course.pitch.written,
+                    note_name: &course.pitch.note_name,
+                    pitch_hz: sig(string.pitch_hz),
+                    length_m: sig(course.length_m),
+                    kind: &string.string,
+                    diameter_mm: sig_opt(string.diameter_mm),
+                    diameter_in: sig_opt(string.diameter_in),
+                    unit_mass_kg_per_m: sig(string.unit_mass_kg_per_m),
+                    tension_n: sig(string.tension_n),
+                    reference_tension_n: sig_opt(string.reference_tension_n),
+                    tension_change_pct: sig_opt(string.tension_change_pct),
+                    stress_ratio: sig_opt(string.stress_ratio),
+                    break_pitch_hz: sig_opt(string.break_pitch_hz),
+                    inharmonicity: sig_opt(string.feel.inharmonicity_b),
+                    verdict: course.verdict.text(),
+                    warnings: course
+                        .warnings
+                        .iter()
+                        .filter(|w| w.string == Some(index + 1))
+                        .map(|w| w.kind.name())
+                        .collect::<Vec<_>>()
+                        .join(";"),
+                });
+            }
+        }
+        csv_text(rows)
+    }
+}
+
+/// One CSV row of an audit: the plan's field names where they mean the same.
+#[derive(Serialize)]
+pub(super) struct AuditRow<'a> {
+    course: u32,
+    string: usize,
+    interval: &'a str,
+    pitch: &'a str,
+    note_name: &'a str,
+    pitch_hz: f64,
+    length_m: f64,
+    kind: &'a str,
+    diameter_mm: Option<f64>,
+    diameter_in: Option<f64>,
+    unit_mass_kg_per_m: f64,
+    tension_n: f64,
+    reference_tension_n: Option<f64>,
+    tension_change_pct: Option<f64>,
+    stress_ratio: Option<f64>,
+    break_pitch_hz: Option<f64>,
+    inharmonicity: Option<f64>,
+    verdict: &'a str,
+    warnings: String,
+}
+
+/// Ends every warning of an audit with what would fix it.
+pub(super) fn attach_fixes(report: &mut Audit, stock: &Stock) {
+    let builds: Vec<(u32, usize, Build)> = report
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                (
+                    course.course,
+                    index + 1,
+                    build_of_kind(stock, &string.string),
+                )
+            })
+        })
+        .collect();
+    remedy::attach_by_string(
+        report
+            .courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut report.warnings)),
+        &builds,
+    );
+}

@@ -1,0 +1,357 @@
+//! The conversion as a table and as CSV rows, and the fixes its warnings end with.
+
+#[allow(unused_imports)]
+use super::*;
+
+impl Render for Conversion {
+    fn table(&self, view: &View) -> String {
+        let lengths_vary = self
+            .courses
+            .windows(2)
+            .any(|pair| (pair[0].length_after_m - pair[1].length_after_m).abs() > 1e-9);
+        let show_length = view.wide || lengths_vary;
+        let mut columns = vec![
+            Column::figure("#"),
+            Column::text("status"),
+            Column::text("pitch").give(Give::Shorten(8)),
+            Column::figure("Hz").give(Give::Drop(3)),
+        ];
+        if show_length {
+            columns.push(
+                Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)),
+            );
+        }
+        if view.wide {
+            columns.extend([
+                Column::text("string before").give(Give::Shorten(10)),
+                Column::figure("⌀").give(Give::Drop(4)),
+                Column::figure(&format!("{} before", view.force.symbol())).give(Give::Drop(5)),
+            ]);
+        }
+        columns.extend([
+            Column::text("string after").give(Give::Shorten(10)),
+            Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+            Column::figure(view.force.symbol()),
+            Column::figure("change"),
+            Column::text("stress"),
+            Column::text("slot").give(Give::Drop(1)),
+        ]);
+        if view.wide {
+            columns.extend([
+                Column::figure("B").give(Give::Drop(6)),
+                Column::figure("partials c").give(Give::Drop(7)),
+                Column::figure("bend N").give(Give::Drop(8)),
+            ]);
+        }
+        let mut grid = Grid::new(columns);
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                let first = index == 0;
+                let before = string.before.as_ref();
+                let string_warnings = course
+                    .warnings
+                    .iter()
+                    .filter(|w| w.string == Some(index + 1));
+                let state = match (before, string.kept, status(string_warnings)) {
+                    (_, _, "ok" | "note") if string.kept => "kept",
+                    (None, _, "ok" | "note") => "new",
+                    (Some(_), _, "ok" | "note") => "replace",
+                    (_, _, other) => other,
+                };
+                let pitch = pitch_with_note(
+                    &course.pitch_label,
+                    &course.note_name,
+                    course.note_offset_cents,
+                );
+                let mut row = vec![
+                    if first {
+                        course.course.to_string()
+                    } else {
+                        String::new()
+                    },
+                    state.to_string(),
+                    if !first {
+                        format!("  {}", string.interval)
+                    } else {
+                        match &course.pitch_before {
+                            Some(old) if *old != course.pitch_after => format!("{old} → {pitch}"),
+                            _ => pitch,
+                        }
+                    },
+                    format!("{:.2}", string.after.pitch_hz),
+                ];
+                if show_length {
+                    row.push(if first {
+                        length(course.length_after_m, view.length)
+                    } else {
+                        String::new()
+                    });
+                }
+                if view.wide {
+                    row.extend([
+                        before.map_or("(new course)".to_string(), |b| user(&b.string).into_owned()),
+                        maybe(before.and_then(|b| b.diameter_mm), |d| {
+                            diameter(d, view.length)
+                        }),
+                        maybe(before.map(|b| b.tension_n), |t| force(t, view.force)),
+                    ]);
+                }
+                row.extend([
+                    user(&string.after.string).into_owned(),
+                    maybe(string.after.diameter_mm, |d| diameter(d, view.length)),
+                    force(string.after.tension_n, view.force),
+                    maybe(string.tension_change_pct, |c| change(c, 1)),
+                    stress_bar(string.after.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
+                    match &string.slot {
+                        Some(fit) if !fit.fits => format!("+{:.2} mm", fit.wider_by_mm),
+                        Some(_) => "fits".to_string(),
+                        None => "-".to_string(),
+                    },
+                ]);
+                if view.wide {
+                    row.extend(feel::cells(&string.feel_after));
+                }
+                grid.row(row);
+            }
+        }
+        let mut out = paragraph(
+            &format!(
+                "{} ({}) → {} ({}) · set now {}",
+                user(&self.instrument_before),
+                user(&self.tuning_before),
+                user(&self.instrument_after),
+                user(&self.tuning_after),
+                user(&self.set)
+            ),
+            view.width,
+        );
+        let (table, hidden) = grid.render(view.width);
+        out.push_str(&table);
+        out.push_str(&hidden_note(&hidden, view.wide, view.width));
+        if let Some(first) = self.courses.first() {
+            if let Some(before) = first.length_before_m {
+                if (before - first.length_after_m).abs() > 1e-9 {
+                    out.push_str(&format!(
+                        "Scale length {} → {} {}.\n",
+                        length(before, view.length),
+                        length(first.length_after_m, view.length),
+                        view.length.symbol()
+                    ));
+                }
+            }
+        }
+        let strings = self.courses.iter().flat_map(|c| &c.strings);
+        let added = strings.clone().filter(|s| s.before.is_none()).count();
+        let kept = strings.clone().filter(|s| s.kept).count();
+        let replaced = strings.filter(|s| !s.kept && s.before.is_some()).count();
+        let mut counts = vec![
+            format!(
+                "{replaced} {} replaced",
+                plural(replaced, "string", "strings")
+            ),
+            format!("{kept} kept"),
+        ];
+        if added > 0 {
+            counts.push(format!("{added} new on added courses"));
+        }
+        out.push_str(&paragraph(&format!("{}.", counts.join(", ")), view.width));
+        if let Some(shift) = &self.transpose {
+            out.push_str(&paragraph(
+                &format!(
+                    "Transposed by {}: the pitches after are named anew.",
+                    shift.describe()
+                ),
+                view.width,
+            ));
+        }
+        out.push_str(&paragraph(
+            &self.rule.sentence(
+                self.courses
+                    .first()
+                    .and_then(|c| c.strings.first())
+                    .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents),
+            ),
+            view.width,
+        ));
+        for change in &self.kept_tension_changes {
+            out.push_str(&crate::cli::layout::wrap(
+                &user(&change.message),
+                view.width,
+                "  ",
+                "    ",
+            ));
+        }
+        if !self.removed_courses.is_empty() {
+            out.push_str(&paragraph(
+                &format!(
+                    "Courses no longer on the instrument: {}.",
+                    self.removed_courses
+                        .iter()
+                        .map(u32::to_string)
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                ),
+                view.width,
+            ));
+        }
+        let gauges: Vec<Vec<(f64, bool)>> = self
+            .courses
+            .iter()
+            .map(|course| {
+                course
+                    .strings
+                    .iter()
+                    .filter_map(|s| {
+                        s.after
+                            .diameter_mm
+                            .map(|d| (d, s.after.string.contains("wound")))
+                    })
+                    .collect()
+            })
+            .collect();
+        out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
+        let mut total = format!(
+            "Total load {} → {} ({})",
+            force_with_unit(self.total_before_n, view.force),
+            force_with_unit(self.total_after_n, view.force),
+            change(self.total_change_pct, 1)
+        );
+        if let Some(rated) = self.rated_load_n {
+            total.push_str(&format!(
+                ", {:.0}% of the rated {}",
+                self.total_after_n / rated * 100.0,
+                force_with_unit(rated, view.force)
+            ));
+        }
+        total.push('.');
+        out.push_str(&paragraph(&total, view.width));
+        if view.wide {
+            out.push_str(&feel_legend(
+                self.courses
+                    .first()
+                    .and_then(|c| c.strings.first())
+                    .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents),
+                view,
+            ));
+        }
+        let load: Vec<String> = self
+            .load_caution
+            .iter()
+            .map(|c| user(c).into_owned())
+            .collect();
+        out.push_str(&warnings_and_cautions(
+            &self.warnings,
+            &load,
+            &self.cautions,
+            view,
+        ));
+        out
+    }
+
+    fn csv(&self) -> Result<String> {
+        let mut rows = Vec::new();
+        for course in &self.courses {
+            for (index, string) in course.strings.iter().enumerate() {
+                let before = string.before.as_ref();
+                rows.push(ConvertRow {
+                    course: course.course,
+                    string: index + 1,
+                    interval: &string.interval,
+                    pitch_before: course.pitch_before.as_deref(),
+                    pitch: &course.pitch_after,
+                    note_name: &course.note_name,
+                    pitch_hz: sig(string.after.pitch_hz),
+                    length_before_m: sig_opt(course.length_before_m),
+                    length_m: sig(course.length_after_m),
+                    kind_before: before.map(|b| b.string.as_str()),
+                    diameter_mm_before: sig_opt(before.and_then(|b| b.diameter_mm)),
+                    tension_n_before: sig_opt(before.map(|b| b.tension_n)),
+                    kind: &string.after.string,
+                    gauge: string.after.gauge.as_deref(),
+                    diameter_mm: sig_opt(string.after.diameter_mm),
+                    diameter_in: sig_opt(string.after.diameter_in),
+                    unit_mass_kg_per_m: sig(string.after.unit_mass_kg_per_m),
+                    target_tension_n: sig(string.target_tension_n),
+                    tension_n: sig(string.after.tension_n),
+                    tension_change_pct: sig_opt(string.tension_change_pct),
+                    stress_ratio: sig_opt(string.after.stress_ratio),
+                    break_pitch_hz: sig_opt(string.after.break_pitch_hz),
+                    kept: string.kept,
+                    slot_fits: string.slot.as_ref().map(|fit| fit.fits),
+                    warnings: course
+                        .warnings
+                        .iter()
+                        .filter(|w| w.string == Some(index + 1))
+                        .map(|w| w.kind.name())
+                        .collect::<Vec<_>>()
+                        .join(";"),
+                });
+            }
+        }
+        csv_text(rows)
+    }
+}
+
+pub(super) fn plural(count: usize, one: &'static str, many: &'static str) -> &'static str {
+    if count == 1 {
+        one
+    } else {
+        many
+    }
+}
+
+/// One CSV row of a conversion: the plan's field names for the new string, `_before` for the
+/// old one.
+#[derive(Serialize)]
+pub(super) struct ConvertRow<'a> {
+    course: u32,
+    string: usize,
+    interval: &'a str,
+    pitch_before: Option<&'a str>,
+    pitch: &'a str,
+    note_name: &'a str,
+    pitch_hz: f64,
+    length_before_m: Option<f64>,
+    length_m: f64,
+    kind_before: Option<&'a str>,
+    diameter_mm_before: Option<f64>,
+    tension_n_before: Option<f64>,
+    kind: &'a str,
+    gauge: Option<&'a str>,
+    diameter_mm: Option<f64>,
+    diameter_in: Option<f64>,
+    unit_mass_kg_per_m: f64,
+    target_tension_n: f64,
+    tension_n: f64,
+    tension_change_pct: Option<f64>,
+    stress_ratio: Option<f64>,
+    break_pitch_hz: Option<f64>,
+    kept: bool,
+    slot_fits: Option<bool>,
+    warnings: String,
+}
+
+/// Ends every warning of a conversion with what would fix it.
+pub(super) fn attach_fixes(report: &mut Conversion, stock: &Stock) {
+    let builds: Vec<(u32, usize, Build)> = report
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                (
+                    course.course,
+                    index + 1,
+                    build_of_kind(stock, &string.after.string),
+                )
+            })
+        })
+        .collect();
+    remedy::attach_by_string(
+        report
+            .courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut report.warnings)),
+        &builds,
+    );
+}

@@ -1,0 +1,84 @@
+use super::*;
+
+#[test]
+fn status_marks_are_coloured_only_where_they_are_marks() {
+    let table =
+        "│ 1   E4   53%   DANGER  │\n│ 2   B3   31%           │\n│ 3  no  yes, with care │\n";
+    let coloured = colour_marks(table);
+    assert!(
+        coloured.contains("\x1b[1;38;5;160mDANGER\x1b[0m  │"),
+        "{coloured}"
+    );
+    assert!(
+        coloured.contains("\x1b[38;5;172myes, with care\x1b[0m │"),
+        "{coloured}"
+    );
+    assert!(!coloured.contains("mno"), "{coloured}");
+    let plain: String = coloured
+        .replace("\x1b[1;38;5;160m", "")
+        .replace("\x1b[38;5;172m", "")
+        .replace("\x1b[0m", "");
+    assert_eq!(plain, table);
+    let list = "  caution stress_caution: Course 1 …\nNo warnings.\n  note    x: y\n";
+    let coloured = colour_marks(list);
+    assert!(coloured.starts_with("  \x1b[38;5;172mcaution\x1b[0m stress_caution"));
+    assert!(coloured.contains("No warnings.\n"));
+    assert!(coloured.contains("\x1b[38;5;67mnote\x1b[0m    x"));
+}
+
+#[test]
+fn status_words_leading_a_report_row_are_coloured() {
+    let table = "#  status  pitch\n─────\n 1  ok      ~E4 -5.3c  0.25\n12  DANGER  G3\n 3  no fit  C2\n 4  note    ok\nok, then  DANGER\n";
+    let coloured = colour_marks(table);
+    assert!(
+        coloured.contains(" 1  \x1b[38;5;71mok\x1b[0m      ~E4"),
+        "{coloured}"
+    );
+    assert!(
+        coloured.contains("12  \x1b[1;38;5;160mDANGER\x1b[0m  G3"),
+        "{coloured}"
+    );
+    assert!(
+        coloured.contains(" 3  \x1b[1;38;5;160mno fit\x1b[0m  C2"),
+        "{coloured}"
+    );
+    // Only the status cell: a later `ok` and a line of prose are left alone.
+    assert!(
+        coloured.contains("\x1b[38;5;67mnote\x1b[0m    ok\n"),
+        "{coloured}"
+    );
+    assert!(coloured.ends_with("ok, then  DANGER\n"), "{coloured}");
+    assert!(coloured.starts_with("#  status  pitch\n"), "{coloured}");
+}
+
+#[test]
+fn pitch_labels_show_the_note_only_when_it_adds_something() {
+    assert_eq!(pitch_with_note("A2", "A2", 0.0), "A2");
+    assert_eq!(pitch_with_note("~E4", "E4", -5.26), "~E4 -5.3c");
+    assert_eq!(pitch_with_note("~A2", "A2", 0.01), "~A2");
+    assert_eq!(pitch_with_note("3/4", "E4", 1.96), "3/4 E4+2.0c");
+}
+
+#[test]
+fn a_change_that_rounds_to_zero_has_no_sign() {
+    assert_eq!(change(-0.3, 0), "0%");
+    assert_eq!(change(0.04, 1), "0.0%");
+    assert_eq!(change(-1.6, 0), "-2%");
+    assert_eq!(change(38.2, 0), "+38%");
+}
+
+#[test]
+fn the_stress_bar_fills_with_the_stress() {
+    assert_eq!(stress_bar(Some(0.5), 0.65, 0.85), "▰▰▰▰▱▱▱▱   50%");
+    assert!(stress_bar(Some(0.9), 0.65, 0.85).contains('!'));
+    assert_eq!(stress_bar(Some(1.4), 0.65, 0.85), "▰▰▰▰▰▰▰▰! 140%");
+    // Just above the caution limit reads as above it, not as the limit itself.
+    assert!(stress_bar(Some(0.652), 0.65, 0.85).ends_with("65.2%"));
+}
+
+#[test]
+fn diameters_follow_the_length_unit() {
+    assert_eq!(diameter(0.254, LengthUnit::In), "10");
+    assert_eq!(diameter(0.3429, LengthUnit::In), "13.5");
+    assert_eq!(diameter(0.254, LengthUnit::Mm), "0.25");
+}
