@@ -235,3 +235,43 @@ fn the_pictures_in_readme_are_current() {
         assert!(fresh == shipped, "examples/pictures/{name} is out of date");
     }
 }
+
+#[test]
+fn a_chart_goes_to_standard_output_as_svg_when_the_report_goes_elsewhere() {
+    let folder = tempfile::tempdir().unwrap();
+    let root = Path::new(env!("CARGO_MANIFEST_DIR"));
+    let layout = root.join("examples/psaltery-layout.yaml");
+    let output = taut()
+        .current_dir(folder.path())
+        .args([
+            "lengths",
+            layout.to_str().unwrap(),
+            "--plot",
+            "-",
+            "-o",
+            "report.txt",
+        ])
+        .output()
+        .unwrap();
+    assert!(output.status.success());
+    let svg = String::from_utf8(output.stdout).unwrap();
+    assert!(
+        svg.starts_with("<svg") && svg.contains("vibrating length"),
+        "{svg}"
+    );
+    assert!(folder.path().join("report.txt").is_file());
+    // The report and the chart cannot both take standard output: refused before anything is
+    // written.
+    for args in [
+        vec!["lengths", layout.to_str().unwrap(), "--plot", "-"],
+        vec!["plan", "guitar-19edo", "--plot", "-"],
+    ] {
+        let output = taut()
+            .current_dir(folder.path())
+            .args(&args)
+            .output()
+            .unwrap();
+        assert_eq!(output.status.code(), Some(2), "{args:?}");
+        assert!(output.stdout.is_empty(), "{args:?}");
+    }
+}

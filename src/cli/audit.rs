@@ -215,7 +215,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
     attach_fixes(&mut report, &stock);
     if !plots.is_empty() {
         let charts = taut::charts::build::audit(&report, &instrument);
-        pictures::write(&plots, size, &charts, &inputs)?;
+        pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
     }
     output::emit_in(&report, &args.output, Some(&args.units), &inputs)
 }

@@ -130,7 +130,7 @@ pub fn run(args: LengthsArgs) -> Result<()> {
     }
     if !plots.is_empty() {
         let charts = taut::charts::build::layout(&report);
-        pictures::write(&plots, size, &charts, &inputs)?;
+        pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
     }
     output::emit_in(&report, &args.output, Some(&args.units), &inputs)
 }

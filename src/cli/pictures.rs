@@ -86,7 +86,12 @@ impl PlotArgs {
                 return Err(Error::input("the file name is empty").in_origin("--plot"));
             }
             let path = PathBuf::from(file);
-            let format = picture_format(&path, "--plot")?;
+            // `-` is standard output, as SVG text (a PNG's bytes do not belong on a terminal).
+            let format = if file == "-" {
+                Picture::Svg
+            } else {
+                picture_format(&path, "--plot")?
+            };
             requests.push(PlotRequest {
                 chart,
                 path,
@@ -146,23 +151,35 @@ pub fn add(
             Picture::Svg => draw::svg(&named.chart, size)?.into_bytes(),
             Picture::Png => draw::png(&named.chart, size)?,
         };
-        outputs.add(
-            "--plot",
-            Some(output::Target::Path(request.path.clone())),
-            bytes,
-        );
+        let target = if request.path.as_os_str() == "-" {
+            output::Target::Stdout
+        } else {
+            output::Target::Path(request.path.clone())
+        };
+        outputs.add("--plot", Some(target), bytes);
     }
     Ok(())
 }
 
 /// Draws the requested charts and writes them under the rules of every output (never over one
-/// of `inputs`, each file whole or not at all, all of them or none).
+/// of `inputs`, each file whole or not at all, all of them or none). `report` is where the
+/// report itself goes (`None`: standard output), so that a chart and the report never both
+/// claim standard output.
 pub fn write(
     requests: &[PlotRequest],
     size: Size,
     charts: &[Named],
     inputs: &output::Inputs,
+    report: Option<&output::Target>,
 ) -> Result<()> {
+    let report_on_stdout = matches!(report, None | Some(output::Target::Stdout));
+    if report_on_stdout && requests.iter().any(|r| r.path.as_os_str() == "-") {
+        return Err(Error::input(
+            "--plot - and the report both go to standard output; give each its own place",
+        )
+        .in_origin("--plot")
+        .help("write the report with `-o FILE`, or the chart to a file"));
+    }
     let mut outputs = output::Outputs::new(inputs);
     add(&mut outputs, requests, size, charts)?;
     outputs.write()

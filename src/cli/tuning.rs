@@ -170,7 +170,7 @@ pub fn run(args: TuningArgs) -> Result<()> {
             let inputs = inputs(&[&args.tuning]);
             if !plots.is_empty() {
                 let charts = taut::charts::build::fit(&report);
-                pictures::write(&plots, size, &charts, &inputs)?;
+                pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
             }
             emit(&report, &args.output, &inputs)
         }
