@@ -16,7 +16,7 @@ pub fn user(text: &str) -> std::borrow::Cow<'_, str> {
     shown(text)
 }
 
-use super::layout::{paragraph, wrap};
+use super::layout::{paragraph, wrap, Column, Give};
 use super::output::View;
 
 mod colour;
@@ -103,6 +103,30 @@ pub fn pitch_with_note(label: &str, note_name: &str, note_offset_cents: f64) -> 
     } else {
         format!("{label} {note_name}{offset}")
     }
+}
+
+/// Whether a per-string report shows a length column: in the wide view, or when the courses'
+/// lengths differ (a fanned board, a harp).
+pub fn shows_length(lengths: impl IntoIterator<Item = f64>, view: &View) -> bool {
+    let mut lengths = lengths.into_iter();
+    let first = lengths.next();
+    view.wide || first.is_some_and(|first| lengths.any(|l| (l - first).abs() > 1e-9))
+}
+
+/// The columns a per-string report leads with: the course number, the status word under
+/// `status`, the pitch, Hz, and the length when `show_length`.
+pub fn leading_columns(status: &str, show_length: bool, view: &View) -> Vec<Column> {
+    let mut columns = vec![
+        Column::figure("#"),
+        Column::text(status),
+        Column::text("pitch").give(Give::Shorten(8)),
+        Column::figure("Hz").give(Give::Drop(3)),
+    ];
+    if show_length {
+        columns
+            .push(Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)));
+    }
+    columns
 }
 
 /// A course's pitch as written, with the nearest 12-EDO note when that adds something.

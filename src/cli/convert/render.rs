@@ -2,25 +2,12 @@
 
 #[allow(unused_imports)]
 use super::*;
+use crate::cli::text::{leading_columns, shows_length};
 
 impl Render for Conversion {
     fn table(&self, view: &View) -> String {
-        let lengths_vary = self
-            .courses
-            .windows(2)
-            .any(|pair| (pair[0].length_after_m - pair[1].length_after_m).abs() > 1e-9);
-        let show_length = view.wide || lengths_vary;
-        let mut columns = vec![
-            Column::figure("#"),
-            Column::text("status"),
-            Column::text("pitch").give(Give::Shorten(8)),
-            Column::figure("Hz").give(Give::Drop(3)),
-        ];
-        if show_length {
-            columns.push(
-                Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)),
-            );
-        }
+        let show_length = shows_length(self.courses.iter().map(|c| c.length_after_m), view);
+        let mut columns = leading_columns("status", show_length, view);
         if view.wide {
             columns.extend([
                 Column::text("string before").give(Give::Shorten(10)),

@@ -12,7 +12,7 @@ use crate::cli::layout::{hidden_note, paragraph, Column, Give, Grid};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
     cautions_for, course_pitch_text, diameter, diameter_symbol, force, force_with_unit, gauge_line,
-    length, status, stress_bar, user, warnings_and_cautions,
+    leading_columns, length, shows_length, status, stress_bar, user, warnings_and_cautions,
 };
 
 /// A tension in newtons and, unless the unit is N, also in that unit.
@@ -47,22 +47,10 @@ fn string_warnings(
 /// The terminal table: each string led by its status, its tension beside its aim and its
 /// stress as a bar; then totals, the set's gauges on one line, warnings and cautions.
 pub fn table(plan: &Plan, view: &View) -> String {
-    let lengths_vary = plan
-        .courses
-        .windows(2)
-        .any(|pair| (pair[0].length_m - pair[1].length_m).abs() > 1e-9);
     let force_unit = view.force.symbol();
     let length_unit = view.length.symbol();
-    let mut columns = vec![
-        Column::figure("#"),
-        Column::text("status"),
-        Column::text("pitch").give(Give::Shorten(8)),
-        Column::figure("Hz").give(Give::Drop(3)),
-    ];
-    let show_length = view.wide || lengths_vary;
-    if show_length {
-        columns.push(Column::figure(&format!("length {length_unit}")).give(Give::Drop(2)));
-    }
+    let show_length = shows_length(plan.courses.iter().map(|c| c.length_m), view);
+    let mut columns = leading_columns("status", show_length, view);
     columns.extend([
         Column::text("string").give(Give::Shorten(10)),
         Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
