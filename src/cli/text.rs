@@ -70,7 +70,7 @@ pub fn diameter(mm: f64, unit: LengthUnit) -> String {
                 format!("{thousandths:.1}")
             }
         }
-        _ => format!("{mm:.2}"),
+        _ => format!("{mm:.3}"),
     }
 }
 

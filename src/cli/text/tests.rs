@@ -80,5 +80,8 @@ fn the_stress_bar_fills_with_the_stress() {
 fn diameters_follow_the_length_unit() {
     assert_eq!(diameter(0.254, LengthUnit::In), "10");
     assert_eq!(diameter(0.3429, LengthUnit::In), "13.5");
-    assert_eq!(diameter(0.254, LengthUnit::Mm), "0.25");
+    // Millimetres to the micrometre: 0.010 in is 0.254 mm, and a catalog's 0.0005 in steps
+    // (12.7 µm) stay apart (common practice).
+    assert_eq!(diameter(0.254, LengthUnit::Mm), "0.254");
+    assert_eq!(diameter(0.2667, LengthUnit::Mm), "0.267");
 }
