@@ -26,7 +26,7 @@ use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
-    force_with_unit, length, maybe, stress_bar, user, warnings_and_cautions,
+    force_with_unit, length, maybe, share_of_rated, stress_bar, user, warnings_and_cautions,
 };
 use taut::plan::solve::tuning_for;
 

@@ -22,7 +22,8 @@ use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, diameter, diameter_symbol, feel_legend, force, force_with_unit,
-    gauge_line, length, maybe, pitch_with_note, status, stress_bar, user, warnings_and_cautions,
+    gauge_line, length, maybe, pitch_with_note, share_of_rated, status, stress_bar, user,
+    warnings_and_cautions,
 };
 use taut::plan::solve::tuning_for;
 

@@ -21,7 +21,8 @@ use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
-    force_with_unit, gauge_line, length, maybe, status, stress_bar, user, warnings_and_cautions,
+    force_with_unit, gauge_line, length, maybe, share_of_rated, status, stress_bar, user,
+    warnings_and_cautions,
 };
 
 /// Arguments of `taut lengths`.
@@ -236,11 +237,7 @@ impl Render for Layout {
                 if self.string_count == 1 { "string" } else { "strings" },
                 self.courses.len(),
                 if self.courses.len() == 1 { "course" } else { "courses" },
-                self.rated_load_n.map_or(String::new(), |rated| format!(
-                    ", {:.0}% of the rated {}",
-                    self.total_tension_n / rated * 100.0,
-                    force_with_unit(rated, view.force)
-                )),
+                self.rated_load_n.map_or(String::new(), |rated| format!(", {}", share_of_rated(self.total_tension_n, rated, view.force))),
                 self.max_step * 100.0
             ),
             view.width,

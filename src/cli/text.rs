@@ -74,6 +74,15 @@ pub fn diameter(mm: f64, unit: LengthUnit) -> String {
     }
 }
 
+/// A total load as a share of the maker's rated load: `56% of the rated 800.0 N`.
+pub fn share_of_rated(total_n: f64, rated_n: f64, unit: ForceUnit) -> String {
+    format!(
+        "{:.0}% of the rated {}",
+        total_n / rated_n * 100.0,
+        force_with_unit(rated_n, unit)
+    )
+}
+
 /// A signed percentage change with no "-0%": a change that rounds to zero is `0%`.
 pub fn change(percent: f64, decimals: usize) -> String {
     let text = format!("{percent:+.decimals$}%");

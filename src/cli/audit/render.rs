@@ -116,9 +116,8 @@ impl Render for Audit {
         }
         if let Some(rated) = self.rated_load_n {
             total.push_str(&format!(
-                ", {:.0}% of the rated {}",
-                self.total_tension_n / rated * 100.0,
-                force_with_unit(rated, view.force)
+                ", {}",
+                share_of_rated(self.total_tension_n, rated, view.force)
             ));
         }
         total.push('.');

@@ -8,7 +8,7 @@ use crate::cli::layout::{paragraph, wrap, Column, Give, Grid};
 use crate::cli::output::{Render, View};
 use crate::cli::text::{
     diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe,
-    side_by_side, tuning_legend, user, warnings_and_cautions,
+    share_of_rated, side_by_side, tuning_legend, user, warnings_and_cautions,
 };
 
 /// A short verdict for a cell.
@@ -169,9 +169,8 @@ impl Render for SeveralAudit {
             ));
             if let Some(rated) = block.audit.rated_load_n {
                 out.push_str(&format!(
-                    " ({:.0}% of the rated {})",
-                    block.audit.total_tension_n / rated * 100.0,
-                    force_with_unit(rated, view.force)
+                    " ({})",
+                    share_of_rated(block.audit.total_tension_n, rated, view.force)
                 ));
             }
             out.push('\n');

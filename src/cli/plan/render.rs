@@ -12,7 +12,8 @@ use crate::cli::layout::{hidden_note, paragraph, Column, Give, Grid};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
     cautions_for, course_pitch_text, diameter, diameter_symbol, force, force_with_unit, gauge_line,
-    leading_columns, length, shows_length, status, stress_bar, user, warnings_and_cautions,
+    leading_columns, length, share_of_rated, shows_length, status, stress_bar, user,
+    warnings_and_cautions,
 };
 
 /// A tension in newtons and, unless the unit is N, also in that unit.
@@ -158,9 +159,8 @@ pub fn table(plan: &Plan, view: &View) -> String {
     );
     if let Some(rated) = plan.rated_load_n {
         total.push_str(&format!(
-            ", {:.0}% of the rated {}",
-            plan.total_tension_n / rated * 100.0,
-            force_with_unit(rated, view.force)
+            ", {}",
+            share_of_rated(plan.total_tension_n, rated, view.force)
         ));
     }
     total.push('.');

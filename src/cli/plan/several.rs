@@ -11,8 +11,8 @@ use super::render::{self, worst_severity};
 use crate::cli::layout::{paragraph, Column, Give, Grid};
 use crate::cli::output::View;
 use crate::cli::text::{
-    force, force_with_unit, letter, lettered_warnings, severity_flag, side_by_side, tuning_legend,
-    user, warnings_and_cautions,
+    force, force_with_unit, letter, lettered_warnings, severity_flag, share_of_rated, side_by_side,
+    tuning_legend, user, warnings_and_cautions,
 };
 
 fn agreement_text(agreement: Agreement) -> &'static str {
@@ -164,9 +164,8 @@ pub fn table(plan: &SeveralPlan, view: &View) -> String {
         );
         if let Some(rated) = block.plan.rated_load_n {
             line.push_str(&format!(
-                " ({:.0}% of the rated {})",
-                block.plan.total_tension_n / rated * 100.0,
-                force_with_unit(rated, view.force)
+                " ({})",
+                share_of_rated(block.plan.total_tension_n, rated, view.force)
             ));
         }
         out.push_str(&line);
