@@ -21,6 +21,7 @@ use std::str::FromStr;
 
 use serde::Deserialize;
 
+pub use crate::input::yaml::field_name;
 pub use entry::StringEntryFile;
 pub use frets::FretSettings;
 pub use interval::Interval;
@@ -300,11 +301,7 @@ impl Instrument {
             },
             other => other,
         };
-        let mut error = error.field(field_name(path));
-        if let Some((line, column)) = yaml::locate(&self.text, path) {
-            error = error.at(line, column);
-        }
-        error.in_origin(self.origin.clone())
+        yaml::point(error, &self.text, &self.origin, path)
     }
 
     /// The number shown for the course at `index`: its own `course`, or its position from 1.
@@ -353,23 +350,6 @@ impl Instrument {
             string: course.string.as_ref(),
         })
     }
-}
-
-/// Renders a path as `courses[3].pitch`.
-pub fn field_name(path: &[PathStep<'_>]) -> String {
-    let mut out = String::new();
-    for step in path {
-        match step {
-            PathStep::Key(key) => {
-                if !out.is_empty() {
-                    out.push('.');
-                }
-                out.push_str(key);
-            }
-            PathStep::Index(index) => out.push_str(&format!("[{index}]")),
-        }
-    }
-    out
 }
 
 #[cfg(test)]

@@ -56,7 +56,7 @@ use crate::error::{Error, Result};
 use crate::input::units::Force;
 use crate::input::units::METRES_PER_INCH;
 use crate::input::yaml::{self, PathStep};
-use crate::instrument::{field_name, CourseString, Interval, Percent, TensionSpec};
+use crate::instrument::{CourseString, Interval, Percent, TensionSpec};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
 use crate::sets::matching::cautions_for;

@@ -193,15 +193,6 @@ impl LayoutInput {
 
     /// Attaches this file's name, the field and, where found, its line to an error.
     pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
-        let mut error = error.field(field_name(path));
-        let mut search = path;
-        while !search.is_empty() {
-            if let Some((line, column)) = yaml::locate(&self.text, search) {
-                error = error.at(line, column);
-                break;
-            }
-            search = &search[..search.len() - 1];
-        }
-        error.in_origin(self.origin.clone())
+        yaml::point(error, &self.text, &self.origin, path)
     }
 }

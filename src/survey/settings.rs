@@ -321,11 +321,7 @@ impl Settings {
 
     /// Attaches this file's name and the line of `path` to an error.
     pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
-        let mut error = error.field(crate::instrument::field_name(path));
-        if let Some((line, column)) = yaml::locate(&self.text, path) {
-            error = error.at(line, column);
-        }
-        error.in_origin(self.origin.clone())
+        yaml::point(error, &self.text, &self.origin, path)
     }
 
     /// The spec of tuning `index` for [`crate::tuning::load`]: a relative file path is taken

@@ -167,3 +167,30 @@ pub(super) fn split_item_prefix(line: &str) -> (usize, &str) {
         }
     }
 }
+
+/// Renders a path as `courses[3].pitch`.
+pub fn field_name(path: &[PathStep<'_>]) -> String {
+    let mut out = String::new();
+    for step in path {
+        match step {
+            PathStep::Key(key) => {
+                if !out.is_empty() {
+                    out.push('.');
+                }
+                out.push_str(key);
+            }
+            PathStep::Index(index) => out.push_str(&format!("[{index}]")),
+        }
+    }
+    out
+}
+
+/// `error` naming the field at `path` and, where the text has it, its line and column (the
+/// deepest ancestor [`locate`] finds), in `origin`.
+pub fn point(error: Error, text: &str, origin: &str, path: &[PathStep<'_>]) -> Error {
+    let mut error = error.field(field_name(path));
+    if let Some((line, column)) = locate(text, path) {
+        error = error.at(line, column);
+    }
+    error.in_origin(origin.to_string())
+}

@@ -120,17 +120,7 @@ impl StringSet {
 
     /// Attaches this file's name, the field and, where found, its line to an error.
     pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
-        let mut error = error.field(crate::instrument::field_name(path));
-        // The key itself may be missing (a required field left out): fall back to its parent.
-        let mut search = path;
-        while !search.is_empty() {
-            if let Some((line, column)) = yaml::locate(&self.text, search) {
-                error = error.at(line, column);
-                break;
-            }
-            search = &search[..search.len() - 1];
-        }
-        error.in_origin(self.origin.clone())
+        yaml::point(error, &self.text, &self.origin, path)
     }
 
     /// The course with this number.
