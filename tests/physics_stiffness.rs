@@ -148,3 +148,20 @@ proptest! {
         prop_assert!((back / rise - 1.0).abs() < 1e-6, "{rise} -> {force} N -> {back}");
     }
 }
+
+proptest! {
+    #[test]
+    fn the_displacement_for_a_push_gives_back_that_push(
+        force in 1e-4f64..500.0,
+        tension in 5.0f64..400.0,
+        stiffness in 1e2f64..1e6,
+    ) {
+        // The inverse of the statics F(δ) = 2·T'·δ/ℓ, from tiny pushes to ones far beyond a
+        // player's hand, on slack and stiff strings alike.
+        let g = guitar_geometry();
+        let delta = physics::bend_displacement_for_force(g, stiffness, tension, force);
+        prop_assert!(delta > 0.0 && delta.is_finite());
+        let back = physics::bend_force(g, stiffness, tension, delta);
+        prop_assert!((back / force - 1.0).abs() < 1e-12, "{force} N -> {delta} m -> {back} N");
+    }
+}

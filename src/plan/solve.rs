@@ -222,9 +222,16 @@ pub fn gauge_label(diameter_m: f64) -> String {
     let inches = diameter_m / METRES_PER_INCH;
     let half_thousandths = inches * 2000.0;
     if (half_thousandths - half_thousandths.round()).abs() < 1e-6 {
-        let text = format!("{inches:.4}");
-        let text = text.strip_suffix('0').unwrap_or(&text);
-        format!("{text} in")
+        // On the grid the label is exact in ten-thousandths of an inch, so integers print it
+        // (a float's four-decimal formatting costs more than the rest of the description).
+        let ten_thousandths = half_thousandths.round() as u64 * 5;
+        let whole = ten_thousandths / 10_000;
+        let fraction = ten_thousandths % 10_000;
+        if fraction % 10 == 0 {
+            format!("{whole}.{:03} in", fraction / 10)
+        } else {
+            format!("{whole}.{fraction:04} in")
+        }
     } else {
         format!("{:.2} mm", diameter_m * 1000.0)
     }
@@ -239,5 +246,8 @@ mod tests {
         assert_eq!(gauge_label(0.010 * METRES_PER_INCH), "0.010 in");
         assert_eq!(gauge_label(0.0105 * METRES_PER_INCH), "0.0105 in");
         assert_eq!(gauge_label(0.00080), "0.80 mm");
+        // Whole inches and the last half-thousandth keep their digits.
+        assert_eq!(gauge_label(1.0 * METRES_PER_INCH), "1.000 in");
+        assert_eq!(gauge_label(0.0595 * METRES_PER_INCH), "0.0595 in");
     }
 }

@@ -234,31 +234,41 @@ impl Tuning {
         }
     }
 
-    /// Cents of degree k above degree 0 and its exact ratio to degree 0, or `None` when k does
-    /// not exist.
-    fn absolute_cents(&self, k: i64) -> Option<(f64, Option<ExactRatio>)> {
+    /// Cents of degree k above degree 0, or `None` when k does not exist: the figure of
+    /// [`Tuning::absolute_cents`] without its exact ratio, whose powers cost far more than the
+    /// cents (nearest-degree searches compare cents only).
+    fn absolute_cents_only(&self, k: i64) -> Option<f64> {
         match &self.layout {
             Layout::Periodic { period, steps } => {
                 let n = steps.len() as i64;
-                let periods = k.div_euclid(n);
                 let step = &steps[k.rem_euclid(n) as usize];
-                let cents = periods as f64 * period.cents + step.cents;
-                let ratio = match (&period.ratio, &step.ratio) {
-                    (Some(period), Some(step)) => {
-                        checked_ratio_pow(period, periods).and_then(|p| p.checked_mul(step))
-                    }
-                    _ => None,
-                };
-                Some((cents, ratio))
+                Some(k.div_euclid(n) as f64 * period.cents + step.cents)
             }
             Layout::Absolute { hz } => {
                 let index = usize::try_from(k).ok()?;
                 let first = *hz.first()?;
-                let value = *hz.get(index)?;
-                let ratio = (index == 0).then(|| Ratio::from_integer(1));
-                Some((cents(value / first), ratio))
+                Some(cents(*hz.get(index)? / first))
             }
         }
+    }
+
+    /// Cents of degree k above degree 0 and its exact ratio to degree 0, or `None` when k does
+    /// not exist.
+    fn absolute_cents(&self, k: i64) -> Option<(f64, Option<ExactRatio>)> {
+        let cents = self.absolute_cents_only(k)?;
+        let ratio = match &self.layout {
+            Layout::Periodic { period, steps } => {
+                let n = steps.len() as i64;
+                match (&period.ratio, &steps[k.rem_euclid(n) as usize].ratio) {
+                    (Some(period), Some(step)) => {
+                        checked_ratio_pow(period, k.div_euclid(n)).and_then(|p| p.checked_mul(step))
+                    }
+                    _ => None,
+                }
+            }
+            Layout::Absolute { .. } => (k == 0).then(|| Ratio::from_integer(1)),
+        };
+        Some((cents, ratio))
     }
 
     /// Frequency, cents from the reference and exact ratio of degree k (negative too, in any
@@ -316,7 +326,7 @@ impl Tuning {
         if !hz.is_finite() || hz <= 0.0 {
             return None;
         }
-        let (reference_cents, _) = self.absolute_cents(self.reference.degree)?;
+        let reference_cents = self.absolute_cents_only(self.reference.degree)?;
         let target = cents(hz / self.reference.hz) + reference_cents;
         let k = self.nearest_by_absolute_cents(target)?;
         self.degree(k).ok()
@@ -327,7 +337,8 @@ impl Tuning {
         if !target.is_finite() {
             return None;
         }
-        let candidates: Vec<i64> = match &self.layout {
+        // Two or four degrees around the target; `None` marks an unused place.
+        let candidates: [Option<i64>; 4] = match &self.layout {
             Layout::Periodic { period, steps } => {
                 let periods = (target / period.cents).floor();
                 // Beyond 2^53 periods, degrees no longer have distinct float positions.
@@ -338,17 +349,18 @@ impl Tuning {
                 let within = target - periods as f64 * period.cents;
                 let index = steps.partition_point(|s| s.cents < within) as i64;
                 let base = periods * steps.len() as i64;
-                vec![base + index - 1, base + index, base - 1, base]
+                [base + index - 1, base + index, base - 1, base].map(Some)
             }
             Layout::Absolute { hz } => {
                 let first = *hz.first()?;
                 let index = hz.partition_point(|&f| cents(f / first) < target) as i64;
-                vec![index - 1, index]
+                [Some(index - 1), Some(index), None, None]
             }
         };
         candidates
             .into_iter()
-            .filter_map(|k| self.absolute_cents(k).map(|(c, _)| (k, (c - target).abs())))
+            .flatten()
+            .filter_map(|k| self.absolute_cents_only(k).map(|c| (k, (c - target).abs())))
             .min_by(|a, b| a.1.total_cmp(&b.1).then(a.0.cmp(&b.0)))
             .map(|(k, _)| k)
     }
@@ -362,7 +374,7 @@ impl Tuning {
 
     /// Cents of degree k above degree 0 (not above the reference), when k exists.
     pub fn cents_above_degree_zero(&self, k: i64) -> Option<f64> {
-        self.absolute_cents(k).map(|(c, _)| c)
+        self.absolute_cents_only(k)
     }
 }
 
