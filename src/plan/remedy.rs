@@ -69,7 +69,8 @@ pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
     for warning in warnings {
         if let Some(fix) = remedy(warning.kind, warning.value, build_of(warning)) {
             if !warning.message.ends_with(fix) {
-                warning.message = format!("{} {fix}", warning.message);
+                warning.message.push(' ');
+                warning.message.push_str(fix);
             }
         }
     }
@@ -82,13 +83,20 @@ pub fn attach_by_string<'w>(
     lists: impl IntoIterator<Item = &'w mut Vec<Warning>>,
     builds: &[(u32, usize, Build)],
 ) {
+    // Sorted once so each warning finds its string by binary search: a 200-course plan has
+    // hundreds of warnings, and a scan per warning made this step quadratic. The stable sort
+    // keeps the first of any repeated (course, string) first, as a scan would find it.
+    let mut sorted = builds.to_vec();
+    sorted.sort_by_key(|&(course, string, _)| (course, string));
     let build_of = |warning: &Warning| {
-        builds
-            .iter()
-            .find(|(course, string, _)| {
-                Some(*course) == warning.course && Some(*string) == warning.string
-            })
-            .map_or(Build::Unknown, |(_, _, build)| *build)
+        let (Some(course), Some(string)) = (warning.course, warning.string) else {
+            return Build::Unknown;
+        };
+        let first = sorted.partition_point(|&(c, s, _)| (c, s) < (course, string));
+        sorted
+            .get(first)
+            .filter(|&&(c, s, _)| (c, s) == (course, string))
+            .map_or(Build::Unknown, |&(_, _, build)| build)
     };
     for list in lists {
         attach(list, build_of);
@@ -110,5 +118,22 @@ mod tests {
         assert!(wound.contains("thicker core"));
         let slack = remedy(WarningKind::TensionBelowWindow, 30.0, Build::Plain).unwrap();
         assert!(slack.contains("heavier gauge") && slack.contains("wound"));
+    }
+
+    #[test]
+    fn each_warning_gets_the_fix_for_its_own_string_whatever_the_order_of_builds() {
+        use crate::plan::warning::StringRef;
+        let danger = |course, string| {
+            StringRef { course, string }.stress(WarningKind::StressDanger, 1.2, 0.85, 90.0, 100.0)
+        };
+        let mut warnings = vec![danger(1, 1), danger(2, 1), danger(3, 1)];
+        // Course 3 has no build listed: its fix is the one for a string of unknown build.
+        let builds = [(2, 1, Build::Wound), (1, 1, Build::Plain)];
+        attach_by_string([&mut warnings], &builds);
+        let fix = |build| remedy(WarningKind::StressDanger, 1.2, build).unwrap();
+        assert!(warnings[0].message.ends_with(fix(Build::Plain)));
+        assert!(warnings[1].message.ends_with(fix(Build::Wound)));
+        assert!(warnings[2].message.ends_with(fix(Build::Unknown)));
+        assert_ne!(fix(Build::Plain), fix(Build::Wound));
     }
 }
