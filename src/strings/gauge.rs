@@ -1,7 +1,8 @@
 //! Gauge catalogs: the diameters a kind of string is available in.
 //!
-//! The shipped catalogs (`src/strings/data/gauges.yaml`) hold the usual trade steps (PRACTICE). A user can
-//! list what is on their own shelf in a file of the same schema ([`load_catalogs_file`]).
+//! The shipped catalogs (`src/strings/data/gauges.yaml`) hold the usual trade steps (PRACTICE);
+//! they reach the binary as JSON converted at build time ([`crate::input::shipped`]). A user can
+//! list what is on their own shelf in a YAML file of the same schema ([`load_catalogs_file`]).
 
 use std::sync::OnceLock;
 
@@ -78,16 +79,22 @@ impl Entry for GaugeCatalog {
     }
 }
 
-/// The shipped gauge catalogs.
+/// The shipped gauge catalogs, as written (the source of [`GaugeCatalogs::builtin`]).
 pub const BUILTIN_GAUGES_YAML: &str = include_str!("data/gauges.yaml");
 
+/// The same data converted to JSON by the build script (`src/build.rs`), fast to read.
+const BUILTIN_GAUGES_JSON: &str = include_str!(concat!(env!("OUT_DIR"), "/gauges.json"));
+
 impl Registry<GaugeCatalog> {
-    /// The catalogs shipped with `taut`, parsed once.
+    /// The catalogs shipped with `taut`, read once from their build-time JSON copy and checked
+    /// as a user's file is.
     pub fn builtin() -> Result<&'static GaugeCatalogs> {
         static BUILTIN: OnceLock<std::result::Result<GaugeCatalogs, String>> = OnceLock::new();
         BUILTIN
             .get_or_init(|| {
-                load_catalogs_file(BUILTIN_GAUGES_YAML, "built-in gauges.yaml")
+                let origin = "built-in gauges.yaml";
+                crate::input::shipped::parse(BUILTIN_GAUGES_JSON, BUILTIN_GAUGES_YAML, origin)
+                    .and_then(|file| catalogs_from_file(file, BUILTIN_GAUGES_YAML, origin))
                     .map_err(|err| err.to_string())
             })
             .as_ref()
@@ -99,6 +106,12 @@ impl Registry<GaugeCatalog> {
 /// naming `origin`, line and field on bad input.
 pub fn load_catalogs_file(text: &str, origin: &str) -> Result<GaugeCatalogs> {
     let file: CatalogsFile = crate::input::yaml::parse(text, origin)?;
+    catalogs_from_file(file, text, origin)
+}
+
+/// Checks a read catalogs file and expands its ranges; `text` is the YAML it was read from (or
+/// converted from), for the line of a problem.
+fn catalogs_from_file(file: CatalogsFile, text: &str, origin: &str) -> Result<GaugeCatalogs> {
     let mut catalogs = GaugeCatalogs::default();
     for (index, spec) in file.catalogs.into_iter().enumerate() {
         let place = |err: Error, field: &str, sub: Option<usize>| {

@@ -2,7 +2,8 @@
 //! catalog (e.g. `nickel-wound` = hexagonal music-wire core, nickel-plated steel wrap, inch
 //! gauges). Instrument files refer to kinds by id.
 //!
-//! The shipped kinds live in `src/strings/data/kinds.yaml`. Resolving a kind computes, once, every gauge's
+//! The shipped kinds live in `src/strings/data/kinds.yaml` and reach the binary as JSON converted
+//! at build time ([`crate::input::shipped`]). Resolving a kind computes, once, every gauge's
 //! linear density and breaking tension, so that the selector only reads precomputed numbers.
 
 use std::sync::OnceLock;
@@ -142,24 +143,27 @@ impl Entry for StringKind {
     }
 }
 
-/// The shipped string kinds.
+/// The shipped string kinds, as written (the source of [`StringKinds::builtin`]).
 pub const BUILTIN_KINDS_YAML: &str = include_str!("data/kinds.yaml");
 
+/// The same data converted to JSON by the build script (`src/build.rs`), fast to read.
+const BUILTIN_KINDS_JSON: &str = include_str!(concat!(env!("OUT_DIR"), "/kinds.json"));
+
 impl Registry<StringKind> {
-    /// The kinds shipped with `taut`, resolved against the shipped materials and catalogs, once.
+    /// The kinds shipped with `taut`, read once from their build-time JSON copy and resolved
+    /// against the shipped materials and catalogs as a user's file is.
     pub fn builtin() -> Result<&'static StringKinds> {
         static BUILTIN: OnceLock<std::result::Result<StringKinds, String>> = OnceLock::new();
         BUILTIN
             .get_or_init(|| {
                 let materials = Materials::builtin().map_err(|e| e.to_string())?;
                 let catalogs = GaugeCatalogs::builtin().map_err(|e| e.to_string())?;
-                load_kinds_file(
-                    BUILTIN_KINDS_YAML,
-                    "built-in kinds.yaml",
-                    materials,
-                    catalogs,
-                )
-                .map_err(|err| err.to_string())
+                let origin = "built-in kinds.yaml";
+                crate::input::shipped::parse(BUILTIN_KINDS_JSON, BUILTIN_KINDS_YAML, origin)
+                    .and_then(|file| {
+                        kinds_from_file(file, BUILTIN_KINDS_YAML, origin, materials, catalogs)
+                    })
+                    .map_err(|err| err.to_string())
             })
             .as_ref()
             .map_err(|message| {

@@ -1,8 +1,9 @@
 //! String materials: density, elastic modulus, breaking strength, and where each number comes from.
 //!
 //! The shipped materials live in `src/strings/data/materials.yaml` (values and provenance from
-//! `REFERENCES.md` §2–§4), read once through [`crate::input::yaml::parse`]. Users can add their own
-//! with [`load_materials_file`], in the same schema.
+//! `REFERENCES.md` §2–§4); the build script converts them to JSON, read once through
+//! [`crate::input::shipped::parse`]. Users can add their own with [`load_materials_file`], in the
+//! same schema, read through [`crate::input::yaml::parse`]; both run the same checks.
 
 use std::fmt;
 use std::sync::OnceLock;
@@ -206,12 +207,15 @@ impl Entry for Material {
 }
 
 impl Registry<Material> {
-    /// The materials shipped with `taut` (`src/strings/data/materials.yaml`), parsed once.
+    /// The materials shipped with `taut` (`src/strings/data/materials.yaml`), read once from
+    /// their build-time JSON copy and checked as a user's file is.
     pub fn builtin() -> Result<&'static Materials> {
         static BUILTIN: OnceLock<std::result::Result<Materials, String>> = OnceLock::new();
         BUILTIN
             .get_or_init(|| {
-                load_materials_file(BUILTIN_MATERIALS_YAML, "built-in materials.yaml")
+                let origin = "built-in materials.yaml";
+                crate::input::shipped::parse(BUILTIN_MATERIALS_JSON, BUILTIN_MATERIALS_YAML, origin)
+                    .and_then(|file| materials_from_file(file, BUILTIN_MATERIALS_YAML, origin))
                     .map_err(|err| err.to_string())
             })
             .as_ref()
@@ -221,13 +225,22 @@ impl Registry<Material> {
     }
 }
 
-/// The shipped material data.
+/// The shipped material data, as written (the source of [`Materials::builtin`]).
 pub const BUILTIN_MATERIALS_YAML: &str = include_str!("data/materials.yaml");
+
+/// The same data converted to JSON by the build script (`src/build.rs`), fast to read.
+const BUILTIN_MATERIALS_JSON: &str = include_str!(concat!(env!("OUT_DIR"), "/materials.json"));
 
 /// Reads a materials file (`materials:` list, schema as `src/strings/data/materials.yaml`), naming
 /// `origin`, line and field on bad input.
 pub fn load_materials_file(text: &str, origin: &str) -> Result<Materials> {
     let file: MaterialsFile = crate::input::yaml::parse(text, origin)?;
+    materials_from_file(file, text, origin)
+}
+
+/// Checks a read materials file and collects its materials; `text` is the YAML it was read from
+/// (or converted from), for the line of a problem.
+fn materials_from_file(file: MaterialsFile, text: &str, origin: &str) -> Result<Materials> {
     let mut materials = Materials::default();
     for (index, material) in file.materials.into_iter().enumerate() {
         if material.source.trim().is_empty() {

@@ -11,7 +11,8 @@
 //! | [`stock`] | the user's own materials, catalogs and kinds over the shipped ones |
 //! | [`feel`] | stiffness (inharmonicity) and bend feel of one string on its course |
 //!
-//! The shipped data lives in `src/strings/data/*.yaml` and is compiled in.
+//! The shipped data lives in `src/strings/data/*.yaml` and is compiled in as JSON, converted at
+//! build time by `src/build.rs` and read through [`crate::input::shipped`].
 
 pub mod construction;
 pub mod feel;

@@ -116,6 +116,18 @@ pub fn load_kinds_file(
     catalogs: &GaugeCatalogs,
 ) -> Result<StringKinds> {
     let file: KindsFile = crate::input::yaml::parse(text, origin)?;
+    kinds_from_file(file, text, origin, materials, catalogs)
+}
+
+/// Checks a read kinds file and resolves its ids; `text` is the YAML it was read from (or
+/// converted from), for the line of a problem.
+pub(super) fn kinds_from_file(
+    file: KindsFile,
+    text: &str,
+    origin: &str,
+    materials: &Materials,
+    catalogs: &GaugeCatalogs,
+) -> Result<StringKinds> {
     let mut kinds = StringKinds::default();
     for (index, spec) in file.kinds.into_iter().enumerate() {
         let place = |err: Error, path: &[&str]| {
