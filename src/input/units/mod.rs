@@ -262,7 +262,7 @@ macro_rules! positive_quantity {
 
         impl<'de> Deserialize<'de> for $name {
             fn deserialize<D: serde::Deserializer<'de>>(deserializer: D) -> std::result::Result<Self, D::Error> {
-                let raw = QuantityText::deserialize(deserializer)?;
+                let raw = deserializer.deserialize_any(QuantityVisitor($dimension))?;
                 match raw {
                     QuantityText::Text(text) => text.parse().map_err(|err: Error| serde::de::Error::custom(err.plain_message())),
                     QuantityText::Number(number) => Err(serde::de::Error::custom(format!(
@@ -291,11 +291,44 @@ positive_quantity!(
 );
 
 /// A YAML scalar that should hold a quantity: text such as `648mm`, or a bare number (refused).
-#[derive(Deserialize)]
-#[serde(untagged)]
 enum QuantityText {
     Number(f64),
     Text(String),
+}
+
+/// Reads a [`QuantityText`] of one dimension. A visitor rather than an untagged enum: the
+/// untagged form buffered every value and built an error message for each failed variant, which
+/// made quantities the costliest part of reading a file; the visitor also names the dimension
+/// when the value is of the wrong type (a list, a mapping, `true`).
+struct QuantityVisitor(Dimension);
+
+impl<'de> serde::de::Visitor<'de> for QuantityVisitor {
+    type Value = QuantityText;
+
+    fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(
+            f,
+            "{} with its unit, e.g. `{}`",
+            self.0.noun(),
+            self.0.example()
+        )
+    }
+
+    fn visit_str<E: serde::de::Error>(self, text: &str) -> std::result::Result<QuantityText, E> {
+        Ok(QuantityText::Text(text.to_string()))
+    }
+
+    fn visit_f64<E: serde::de::Error>(self, number: f64) -> std::result::Result<QuantityText, E> {
+        Ok(QuantityText::Number(number))
+    }
+
+    fn visit_i64<E: serde::de::Error>(self, number: i64) -> std::result::Result<QuantityText, E> {
+        Ok(QuantityText::Number(number as f64))
+    }
+
+    fn visit_u64<E: serde::de::Error>(self, number: u64) -> std::result::Result<QuantityText, E> {
+        Ok(QuantityText::Number(number as f64))
+    }
 }
 
 positive_quantity!(

@@ -81,6 +81,21 @@ fn deserialize_names_the_problem() {
     );
     let ok: Probe = crate::input::yaml::parse("length: 25.5in\n", "p.yaml").unwrap();
     assert_relative_eq!(ok.length.si(), 0.6477, epsilon = 1e-12);
+    // A value of the wrong type is told what a length looks like, at its line.
+    for wrong in [
+        "length: [648mm]\n",
+        "length: {a: 1}\n",
+        "length: true\n",
+        "length: ~\n",
+    ] {
+        let err = crate::input::yaml::parse::<Probe>(wrong, "p.yaml")
+            .unwrap_err()
+            .to_string();
+        assert!(
+            err.contains("p.yaml:1:") && err.contains("a length with its unit, e.g. `648mm`"),
+            "{wrong}: {err}"
+        );
+    }
 }
 
 #[test]
