@@ -143,13 +143,10 @@ impl Grid {
         let count = self.columns.len();
         // Every cell is counted once; laying out and writing the rows reuse the counts.
         let header_cells: Vec<usize> = self.columns.iter().map(|c| cells(&c.header)).collect();
-        let row_cells: Vec<Vec<usize>> = self
-            .rows
-            .iter()
-            .map(|row| row.iter().map(|text| cells(text)).collect())
-            .collect();
+        // Row after row, `count` cells each (`row` makes every row that long).
+        let row_cells: Vec<usize> = self.rows.iter().flatten().map(|text| cells(text)).collect();
         let mut widths = header_cells.clone();
-        for counts in &row_cells {
+        for counts in row_cells.chunks_exact(count.max(1)) {
             for (widest, &cell) in widths.iter_mut().zip(counts) {
                 *widest = (*widest).max(cell);
             }
@@ -250,7 +247,8 @@ impl Grid {
         out.extend(std::iter::repeat_n('─', line_width));
         out.push('\n');
         let mut texts: Vec<&str> = Vec::with_capacity(count);
-        for (row, counts) in self.rows.iter().zip(&row_cells) {
+        for (index, row) in self.rows.iter().enumerate() {
+            let counts = &row_cells[index * count..(index + 1) * count];
             texts.clear();
             texts.extend(row.iter().map(String::as_str));
             line(out, &texts, counts);
