@@ -117,16 +117,62 @@ pub fn shown(text: &str) -> std::borrow::Cow<'_, str> {
     fn needs_escape(c: char) -> bool {
         c.is_control() || matches!(c, '\u{202a}'..='\u{202e}' | '\u{2066}'..='\u{2069}')
     }
-    if !text.chars().any(needs_escape) {
-        return std::borrow::Cow::Borrowed(text);
+    /// Whether the character at `at` (a character boundary) is one to escape, read from its
+    /// bytes: C0 controls and DEL are single bytes, the C1 controls are `C2 80`..`C2 9F`, the
+    /// bidirectional marks `E2 80 AA`..`E2 80 AE` and `E2 81 A6`..`E2 81 A9`.
+    fn escape_at(bytes: &[u8], at: usize) -> bool {
+        let byte_after = |count: usize| bytes.get(at + count).copied().unwrap_or(0);
+        match bytes[at] {
+            byte if byte < 0x20 || byte == 0x7f => true,
+            0xc2 => matches!(byte_after(1), 0x80..=0x9f),
+            0xe2 => match byte_after(1) {
+                0x80 => matches!(byte_after(2), 0xaa..=0xae),
+                0x81 => matches!(byte_after(2), 0xa6..=0xa9),
+                _ => false,
+            },
+            _ => false,
+        }
     }
+    /// Where the first character to escape starts. Whole reports pass through here and nearly
+    /// all of them need nothing escaped, so the bytes are first tested a block at a time for
+    /// any that can start such a character (a branch-free test the compiler runs on the whole
+    /// block), and only a block that has one is looked at byte by byte.
+    fn first_to_escape(text: &str) -> Option<usize> {
+        const BLOCK: usize = 16;
+        let bytes = text.as_bytes();
+        let mut blocks = bytes.chunks_exact(BLOCK);
+        let mut from = 0;
+        for block in &mut blocks {
+            let mut may_start = 0u8;
+            for &byte in block {
+                may_start |= u8::from(byte < 0x20)
+                    | u8::from(byte == 0x7f)
+                    | u8::from(byte == 0xc2)
+                    | u8::from(byte == 0xe2);
+            }
+            if may_start != 0 {
+                if let Some(at) = (from..from + BLOCK).find(|&at| escape_at(bytes, at)) {
+                    return Some(at);
+                }
+            }
+            from += BLOCK;
+        }
+        (from..bytes.len()).find(|&at| escape_at(bytes, at))
+    }
+    let Some(start) = first_to_escape(text) else {
+        return std::borrow::Cow::Borrowed(text);
+    };
     let mut out = String::with_capacity(text.len() + 8);
-    for c in text.chars() {
+    out.push_str(&text[..start]);
+    for c in text[start..].chars() {
         match c {
             '\n' => out.push_str("\\n"),
             '\r' => out.push_str("\\r"),
             '\t' => out.push_str("\\t"),
-            c if needs_escape(c) => out.push_str(&format!("\\u{{{:x}}}", u32::from(c))),
+            c if needs_escape(c) => {
+                // Writing to a String cannot fail.
+                let _ = fmt::Write::write_fmt(&mut out, format_args!("\\u{{{:x}}}", u32::from(c)));
+            }
             c => out.push(c),
         }
     }
@@ -326,6 +372,45 @@ mod tests {
             err.to_string(),
             "a\\nb.yaml: name `x\\u{1b}[2Jy` is odd\n  help: no \\u{7}bell"
         );
+    }
+
+    #[test]
+    fn each_character_is_escaped_by_its_own_rule_wherever_it_stands() {
+        fn escaped_one_by_one(text: &str) -> String {
+            text.chars()
+                .map(|c| match c {
+                    '\n' => "\\n".to_string(),
+                    '\r' => "\\r".to_string(),
+                    '\t' => "\\t".to_string(),
+                    c if c.is_control()
+                        || matches!(c, '\u{202a}'..='\u{202e}' | '\u{2066}'..='\u{2069}') =>
+                    {
+                        format!("\\u{{{:x}}}", u32::from(c))
+                    }
+                    c => c.to_string(),
+                })
+                .collect()
+        }
+        // Every character of the first planes, then a sample of the rest, at every place in a
+        // block of the scan, among characters that share their first bytes.
+        let characters = (0..0x3000u32)
+            .chain((0x3000..=0x10_ffff).step_by(97))
+            .filter_map(char::from_u32);
+        for c in characters {
+            // The scan tests 16 bytes at a time: these put `c` in, across and after a block.
+            for lead in [0, 1, 13, 14, 15, 16, 31] {
+                let text = format!("{}{c}─▰…·é\u{2060}z", "x".repeat(lead));
+                let expected = escaped_one_by_one(&text);
+                let got = shown(&text);
+                assert_eq!(got, expected, "U+{:04X} after {lead}", u32::from(c));
+                assert_eq!(
+                    matches!(got, std::borrow::Cow::Borrowed(_)),
+                    expected == text,
+                    "U+{:04X}",
+                    u32::from(c)
+                );
+            }
+        }
     }
 
     #[test]

@@ -5,6 +5,7 @@
 mod files;
 mod finite;
 
+use std::borrow::Cow;
 use std::io::{self, Write};
 use std::process::ExitCode;
 
@@ -228,12 +229,25 @@ pub fn json_text<T: Serialize + ?Sized>(value: &T) -> Result<String> {
 /// A table report made safe for a terminal: ends in a newline, and any control character other
 /// than the line breaks the table is made of is shown escaped (renderers escape the user's text
 /// cell by cell already; this is the last guard).
-pub fn terminal_text(text: String) -> String {
-    let mut lines: Vec<String> = text.split('\n').map(|l| shown(l).into_owned()).collect();
-    if lines.last().is_some_and(|l| !l.is_empty()) {
-        lines.push(String::new());
+pub fn terminal_text(mut text: String) -> String {
+    // Nearly every report has nothing to escape: it is kept as it is, without a copy.
+    let clean = text
+        .split('\n')
+        .all(|line| matches!(shown(line), Cow::Borrowed(_)));
+    if !clean {
+        let mut escaped = String::with_capacity(text.len() + 64);
+        for (index, line) in text.split('\n').enumerate() {
+            if index > 0 {
+                escaped.push('\n');
+            }
+            escaped.push_str(&shown(line));
+        }
+        text = escaped;
     }
-    lines.join("\n")
+    if !text.is_empty() && !text.ends_with('\n') {
+        text.push('\n');
+    }
+    text
 }
 
 /// Prints an error (if any) and turns the run's result into the process exit code.
@@ -257,5 +271,12 @@ mod tests {
         let text = terminal_text("a\u{1b}[31mb\nc\u{7}".to_string());
         assert_eq!(text, "a\\u{1b}[31mb\nc\\u{7}\n");
         assert_eq!(terminal_text("x\n".to_string()), "x\n");
+        assert_eq!(terminal_text(String::new()), "");
+        assert_eq!(terminal_text("\n\n".to_string()), "\n\n");
+        assert_eq!(terminal_text("a\r\n\tb".to_string()), "a\\r\n\\tb\n");
+        assert_eq!(
+            terminal_text("─ ▰▱ … é\u{202e}".to_string()),
+            "─ ▰▱ … é\\u{202e}\n"
+        );
     }
 }

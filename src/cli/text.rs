@@ -3,6 +3,8 @@
 //! list and the safety cautions, all wrapped to the report's width, and the colours of status
 //! marks.
 
+use std::fmt::Write as _;
+
 use taut::error::shown;
 use taut::input::units::{ForceUnit, LengthUnit, METRES_PER_INCH};
 use taut::plan::remedy::Build;
@@ -16,13 +18,16 @@ pub fn user(text: &str) -> std::borrow::Cow<'_, str> {
     shown(text)
 }
 
-use super::layout::{paragraph, wrap, Column, Give};
+use super::layout::{paragraph, wrap_into, Column, Give};
 use super::output::View;
 
 mod colour;
 #[allow(unused_imports)]
 use colour::*;
 pub use colour::*;
+mod fixed;
+pub use fixed::fixed;
+use fixed::{push_fixed, push_signed_fixed};
 #[cfg(test)]
 mod tests;
 
@@ -33,7 +38,7 @@ pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
 
 /// A force in the chosen unit, without its symbol (the column header names it).
 pub fn force(newtons: f64, unit: ForceUnit) -> String {
-    format!("{:.1}", unit.from_newtons(newtons))
+    fixed(unit.from_newtons(newtons), 1)
 }
 
 /// A force in the chosen unit, with its symbol.
@@ -43,11 +48,12 @@ pub fn force_with_unit(newtons: f64, unit: ForceUnit) -> String {
 
 /// A vibrating length in the chosen unit, without its symbol.
 pub fn length(metres: f64, unit: LengthUnit) -> String {
-    match unit {
-        LengthUnit::Mm => format!("{:.1}", unit.from_metres(metres)),
-        LengthUnit::In => format!("{:.2}", unit.from_metres(metres)),
-        LengthUnit::M => format!("{:.4}", unit.from_metres(metres)),
-    }
+    let decimals = match unit {
+        LengthUnit::Mm => 1,
+        LengthUnit::In => 2,
+        LengthUnit::M => 4,
+    };
+    fixed(unit.from_metres(metres), decimals)
 }
 
 /// The symbol of the diameter unit that goes with a length unit: thousandths of an inch with
@@ -61,16 +67,23 @@ pub fn diameter_symbol(unit: LengthUnit) -> &'static str {
 
 /// A diameter in the unit that goes with the length unit (see [`diameter_symbol`]).
 pub fn diameter(mm: f64, unit: LengthUnit) -> String {
+    let mut text = String::with_capacity(8);
+    push_diameter(&mut text, mm, unit);
+    text
+}
+
+/// [`diameter`], appended to `out`.
+fn push_diameter(out: &mut String, mm: f64, unit: LengthUnit) {
     match unit {
         LengthUnit::In => {
             let thousandths = mm / 1000.0 / METRES_PER_INCH * 1000.0;
             if (thousandths - thousandths.round()).abs() < 0.05 {
-                format!("{thousandths:.0}")
+                push_fixed(out, thousandths, 0);
             } else {
-                format!("{thousandths:.1}")
+                push_fixed(out, thousandths, 1);
             }
         }
-        _ => format!("{mm:.3}"),
+        _ => push_fixed(out, mm, 3),
     }
 }
 
@@ -97,21 +110,21 @@ pub fn change(percent: f64, decimals: usize) -> String {
 /// A pitch as written, followed by the nearest 12-EDO note's offset when that adds something:
 /// `~E4 -5.3c`, `A2`, `3/4 E4+2.0c`.
 pub fn pitch_with_note(label: &str, note_name: &str, note_offset_cents: f64) -> String {
-    let offset = if note_offset_cents.abs() < 0.05 || !note_offset_cents.is_finite() {
-        String::new()
-    } else {
-        format!("{note_offset_cents:+.1}c")
-    };
-    let bare = label.trim_start_matches('~');
-    if bare == note_name {
-        if offset.is_empty() {
-            label.to_string()
-        } else {
-            format!("{label} {offset}")
-        }
-    } else {
-        format!("{label} {note_name}{offset}")
+    let shows_offset = note_offset_cents.abs() >= 0.05 && note_offset_cents.is_finite();
+    let names_note = label.trim_start_matches('~') != note_name;
+    let mut text = String::with_capacity(label.len() + note_name.len() + 8);
+    text.push_str(label);
+    if names_note || shows_offset {
+        text.push(' ');
     }
+    if names_note {
+        text.push_str(note_name);
+    }
+    if shows_offset {
+        push_signed_fixed(&mut text, note_offset_cents, 1);
+        text.push('c');
+    }
+    text
 }
 
 /// Whether a per-string report shows a length column: in the wide view, or when the courses'
@@ -177,34 +190,57 @@ pub fn stress_bar(ratio: Option<f64>, caution: f64, danger: f64) -> String {
     };
     let filled = ((ratio * BAR_CELLS as f64).round() as usize).min(BAR_CELLS);
     let mark = if ratio > danger { '!' } else { ' ' };
-    format!(
-        "{}{}{mark}{:>5}",
-        "▰".repeat(filled),
-        "▱".repeat(BAR_CELLS - filled),
-        taut::plan::warning::percent_beside(ratio, [caution, danger])
-    )
+    // Each cell of the bar takes three bytes.
+    let mut bar = String::with_capacity(3 * BAR_CELLS + 8);
+    bar.extend(std::iter::repeat_n('▰', filled));
+    bar.extend(std::iter::repeat_n('▱', BAR_CELLS - filled));
+    bar.push(mark);
+    // Writing to a String cannot fail.
+    let _ = write!(bar, "{:>5}", percent_beside(ratio, [caution, danger]));
+    bar
+}
+
+/// [`taut::plan::warning::percent_beside`], written with [`fixed`]: every row of a table shows
+/// one, and a stress past a limit makes the general float formatter write the limit too, the
+/// slow way.
+fn percent_beside<const N: usize>(fraction: f64, limits: [f64; N]) -> String {
+    for decimals in 0..3 {
+        let mut shown = fixed(fraction * 100.0, decimals);
+        let misreads = limits
+            .iter()
+            .any(|&limit| fraction > limit && shown == fixed(limit * 100.0, decimals));
+        if !misreads {
+            shown.push('%');
+            return shown;
+        }
+    }
+    let mut shown = fixed(fraction * 100.0, 3);
+    shown.push('%');
+    shown
 }
 
 /// The gauges of a set on one line, course by course in the table's order, `w` marking wound
 /// strings and `+` joining the strings of one course: `10 13 17 26w 36w 46w`.
 pub fn gauge_line(courses: &[Vec<(f64, bool)>], unit: LengthUnit) -> String {
-    let courses: Vec<String> = courses
-        .iter()
-        .map(|strings| {
-            strings
-                .iter()
-                .map(|&(mm, wound)| {
-                    format!("{}{}", diameter(mm, unit), if wound { "w" } else { "" })
-                })
-                .collect::<Vec<_>>()
-                .join("+")
-        })
-        .collect();
-    format!(
-        "Gauges ({}, w = wound): {}",
-        diameter_symbol(unit),
-        courses.join(" ")
-    )
+    let mut line = String::with_capacity(32 + 8 * courses.len());
+    line.push_str("Gauges (");
+    line.push_str(diameter_symbol(unit));
+    line.push_str(", w = wound): ");
+    for (index, strings) in courses.iter().enumerate() {
+        if index > 0 {
+            line.push(' ');
+        }
+        for (position, &(mm, wound)) in strings.iter().enumerate() {
+            if position > 0 {
+                line.push('+');
+            }
+            push_diameter(&mut line, mm, unit);
+            if wound {
+                line.push('w');
+            }
+        }
+    }
+    line
 }
 
 /// How a kind is built, from its id in the stock.
@@ -225,6 +261,19 @@ pub fn severity_flag(severity: Severity) -> &'static str {
     }
 }
 
+/// What leads a warning's first line: its severity's tag, padded so the messages line up under
+/// [`WARNING_INDENT`].
+fn warning_lead(severity: Severity) -> &'static str {
+    match severity {
+        Severity::Danger => "  DANGER   ",
+        Severity::Caution => "  caution  ",
+        Severity::Note => "  note     ",
+    }
+}
+
+/// The hanging indent of a warning's later lines.
+const WARNING_INDENT: &str = "           ";
+
 /// The warnings list (with any report-wide cautions first) and the safety cautions (the full
 /// list when given, else the one-line reminder), wrapped to the view's width.
 pub fn warnings_and_cautions(
@@ -234,38 +283,59 @@ pub fn warnings_and_cautions(
     view: &View,
 ) -> String {
     let mut out = String::new();
+    push_warnings_and_cautions(&mut out, warnings, extra_cautions, cautions, view);
+    out
+}
+
+/// [`warnings_and_cautions`], appended to `out`.
+pub fn push_warnings_and_cautions(
+    out: &mut String,
+    warnings: &[Warning],
+    extra_cautions: &[String],
+    cautions: &[impl AsRef<str>],
+    view: &View,
+) {
+    let text_bytes: usize = warnings.iter().map(|w| w.message.len()).sum::<usize>()
+        + extra_cautions.iter().map(String::len).sum::<usize>()
+        + cautions.iter().map(|c| c.as_ref().len()).sum::<usize>();
+    // Room for the texts, their leads and indents, and the reminder.
+    out.reserve(text_bytes + 32 * (warnings.len() + extra_cautions.len() + cautions.len()) + 512);
     let count = warnings.len() + extra_cautions.len();
     if count == 0 {
         out.push_str("No warnings.\n");
     } else {
-        out.push_str(&format!("\nWarnings ({count}):\n"));
+        // Writing to a String cannot fail.
+        let _ = writeln!(out, "\nWarnings ({count}):");
         for caution in extra_cautions {
-            out.push_str(&wrap(
+            wrap_into(
+                out,
                 &shown(caution),
                 view.width,
-                "  caution  ",
-                "           ",
-            ));
+                warning_lead(Severity::Caution),
+                WARNING_INDENT,
+            );
         }
+        let mut tagged = String::new();
         for warning in warnings {
-            let first = format!("  {:<7}  ", severity_flag(warning.severity));
-            let text = if view.wide {
-                format!("{} [{}]", shown(&warning.message), warning.kind.name())
+            let lead = warning_lead(warning.severity);
+            let message = shown(&warning.message);
+            if view.wide {
+                tagged.clear();
+                let _ = write!(tagged, "{message} [{}]", warning.kind.name());
+                wrap_into(out, &tagged, view.width, lead, WARNING_INDENT);
             } else {
-                shown(&warning.message).into_owned()
-            };
-            out.push_str(&wrap(&text, view.width, &first, "           "));
+                wrap_into(out, &message, view.width, lead, WARNING_INDENT);
+            }
         }
     }
     if cautions.is_empty() {
-        out.push_str(&paragraph(SAFETY_REMINDER, view.width));
+        wrap_into(out, SAFETY_REMINDER, view.width, "", "");
     } else {
         out.push_str("\nBefore you string this up:\n");
         for caution in cautions {
-            out.push_str(&wrap(&shown(caution.as_ref()), view.width, "  - ", "    "));
+            wrap_into(out, &shown(caution.as_ref()), view.width, "  - ", "    ");
         }
     }
-    out
 }
 
 /// The safety cautions a report shows when any warning is a caution or a danger.

@@ -1,6 +1,8 @@
 //! Renderers of a [`Plan`]: a terminal table, JSON, CSV and YAML. Each reads the plain model
 //! and nothing else, so all four say the same thing.
 
+use std::fmt::Write as _;
+
 use serde::Serialize;
 
 use taut::error::Result;
@@ -8,12 +10,12 @@ use taut::input::units::{ForceUnit, METRES_PER_INCH};
 use taut::plan::warning::Severity;
 use taut::plan::{CoursePlan, Plan, Standing, StringChoice};
 
-use crate::cli::layout::{hidden_note, paragraph, Column, Give, Grid};
+use crate::cli::layout::{hidden_note, wrap_into, Column, Give, Grid};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
-    cautions_for, course_pitch_text, diameter, diameter_symbol, force, force_with_unit, gauge_line,
-    leading_columns, length, share_of_rated, shows_length, status, stress_bar, user,
-    warnings_and_cautions,
+    cautions_for, course_pitch_text, diameter, diameter_symbol, fixed, force, force_with_unit,
+    gauge_line, leading_columns, length, push_warnings_and_cautions, share_of_rated, shows_length,
+    status, stress_bar, user,
 };
 
 /// A tension in newtons and, unless the unit is N, also in that unit.
@@ -83,7 +85,7 @@ pub fn table(plan: &Plan, view: &View) -> String {
                 } else {
                     format!("  {}", string.interval)
                 },
-                format!("{:.2}", string.pitch_hz),
+                fixed(string.pitch_hz, 2),
             ];
             if show_length {
                 row.push(if first {
@@ -92,13 +94,12 @@ pub fn table(plan: &Plan, view: &View) -> String {
                     String::new()
                 });
             }
+            let mut kind = user(&choice.kind).into_owned();
+            if choice.standing == Standing::Fixed {
+                kind.push_str(" (fixed)");
+            }
             row.extend([
-                user(&if choice.standing == Standing::Fixed {
-                    format!("{} (fixed)", choice.kind)
-                } else {
-                    choice.kind.clone()
-                })
-                .into_owned(),
+                kind,
                 diameter(choice.diameter_mm, view.length),
                 force(choice.tension_n, view.force),
                 force(string.target_tension_n, view.force),
@@ -110,8 +111,8 @@ pub fn table(plan: &Plan, view: &View) -> String {
             ]);
             if view.wide {
                 row.extend([
-                    format!("{:.4}", choice.unit_mass_kg_per_m * 1000.0),
-                    format!("{:.1}", choice.break_pitch_hz),
+                    fixed(choice.unit_mass_kg_per_m * 1000.0, 4),
+                    fixed(choice.break_pitch_hz, 1),
                     choice
                         .inharmonicity
                         .map_or_else(|| "-".to_string(), |b| format!("{b:.2e}")),
@@ -120,25 +121,21 @@ pub fn table(plan: &Plan, view: &View) -> String {
             grid.row(row);
         }
     }
-    let (table, hidden) = grid.render(view.width);
-    let mut out = paragraph(
-        &format!("{} · tuning {}", user(&plan.instrument), user(&plan.tuning)),
-        view.width,
-    );
-    if !show_length {
-        if let Some(first) = plan.courses.first() {
-            out = paragraph(
-                &format!(
-                    "{} · tuning {} · {} {length_unit} scale",
-                    user(&plan.instrument),
-                    user(&plan.tuning),
-                    length(first.length_m, view.length)
-                ),
-                view.width,
-            );
-        }
+    let warning_bytes: usize = plan.warnings.iter().map(|w| w.message.len()).sum();
+    // Room for the rows (about 110 bytes in the compact view, 150 in the wide one: a stress
+    // bar takes three bytes a cell), the warnings with their indents and the lines around
+    // them, so the report is written in one piece.
+    let mut out = String::with_capacity(plan.string_count() * 160 + warning_bytes * 5 / 4 + 4096);
+    let mut title = format!("{} · tuning {}", user(&plan.instrument), user(&plan.tuning));
+    if let Some(first) = plan.courses.first().filter(|_| !show_length) {
+        let _ = write!(
+            title,
+            " · {} {length_unit} scale",
+            length(first.length_m, view.length)
+        );
     }
-    out.push_str(&table);
+    wrap_into(&mut out, &title, view.width, "", "");
+    let hidden = grid.render_into(&mut out, view.width);
     out.push_str(&hidden_note(&hidden, view.wide, view.width));
     let gauges: Vec<Vec<(f64, bool)>> = plan
         .courses
@@ -151,26 +148,34 @@ pub fn table(plan: &Plan, view: &View) -> String {
                 .collect()
         })
         .collect();
-    out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
+    wrap_into(
+        &mut out,
+        &gauge_line(&gauges, view.length),
+        view.width,
+        "",
+        "",
+    );
     let mut total = format!(
         "Total tension {} over {} strings",
         force_with_unit(plan.total_tension_n, view.force),
         plan.string_count()
     );
     if let Some(rated) = plan.rated_load_n {
-        total.push_str(&format!(
+        let _ = write!(
+            total,
             ", {}",
             share_of_rated(plan.total_tension_n, rated, view.force)
-        ));
+        );
     }
     total.push('.');
-    out.push_str(&paragraph(&total, view.width));
-    out.push_str(&warnings_and_cautions(
+    wrap_into(&mut out, &total, view.width, "", "");
+    push_warnings_and_cautions(
+        &mut out,
         &plan.warnings,
         &[],
         cautions_for(&plan.warnings),
         view,
-    ));
+    );
     out
 }
 

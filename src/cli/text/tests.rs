@@ -85,3 +85,61 @@ fn diameters_follow_the_length_unit() {
     assert_eq!(diameter(0.254, LengthUnit::Mm), "0.254");
     assert_eq!(diameter(0.2667, LengthUnit::Mm), "0.267");
 }
+
+#[test]
+fn the_stress_percentage_reads_as_the_plan_writes_it() {
+    let limits = [[0.65, 0.85], [0.5, 0.7], [0.333, 0.999]];
+    for limits in limits {
+        // Every step of a tenth of a per mille from 0 to 150 %, and around each limit.
+        let sweep = (0..15_000).map(|step| f64::from(step) / 10_000.0);
+        let near_limits = limits
+            .iter()
+            .flat_map(|&limit| (-50..50).map(move |step| limit + f64::from(step) * 1e-6));
+        for fraction in sweep.chain(near_limits) {
+            assert_eq!(
+                percent_beside(fraction, limits),
+                taut::plan::warning::percent_beside(fraction, limits),
+                "{fraction} beside {limits:?}"
+            );
+        }
+    }
+}
+
+#[test]
+fn signed_offsets_in_pitch_labels_keep_their_sign() {
+    assert_eq!(pitch_with_note("~C2", "C2", -48.04), "~C2 -48.0c");
+    assert_eq!(
+        pitch_with_note("65.8351 Hz", "C2", 11.7),
+        "65.8351 Hz C2+11.7c"
+    );
+    assert_eq!(pitch_with_note("x", "C2", -0.05), "x C2-0.1c");
+    assert_eq!(pitch_with_note("x", "C2", f64::NAN), "x C2");
+}
+
+#[test]
+fn warnings_line_up_under_their_severity() {
+    for severity in [Severity::Danger, Severity::Caution, Severity::Note] {
+        let lead = warning_lead(severity);
+        assert_eq!(lead, format!("  {:<7}  ", severity_flag(severity)));
+        assert_eq!(lead.len(), WARNING_INDENT.len());
+    }
+}
+
+#[test]
+fn the_gauge_line_joins_courses_and_marks_wound_strings() {
+    let courses = vec![
+        vec![(0.254, false)],
+        vec![(0.3429, false), (0.3429, false)],
+        vec![],
+        vec![(1.118, true)],
+    ];
+    assert_eq!(
+        gauge_line(&courses, LengthUnit::Mm),
+        "Gauges (mm, w = wound): 0.254 0.343+0.343  1.118w"
+    );
+    assert_eq!(
+        gauge_line(&courses, LengthUnit::In),
+        "Gauges (in/1000, w = wound): 10 13.5+13.5  44w"
+    );
+    assert_eq!(gauge_line(&[], LengthUnit::Mm), "Gauges (mm, w = wound): ");
+}
