@@ -25,9 +25,8 @@ mod colour;
 #[allow(unused_imports)]
 use colour::*;
 pub use colour::*;
-mod fixed;
-pub use fixed::fixed;
-use fixed::{push_fixed, push_signed_fixed};
+pub use taut::input::units::fixed;
+use taut::input::units::{push_fixed, push_signed_fixed};
 #[cfg(test)]
 mod tests;
 
@@ -196,27 +195,12 @@ pub fn stress_bar(ratio: Option<f64>, caution: f64, danger: f64) -> String {
     bar.extend(std::iter::repeat_n('▱', BAR_CELLS - filled));
     bar.push(mark);
     // Writing to a String cannot fail.
-    let _ = write!(bar, "{:>5}", percent_beside(ratio, [caution, danger]));
+    let _ = write!(
+        bar,
+        "{:>5}",
+        taut::plan::warning::percent_beside(ratio, [caution, danger])
+    );
     bar
-}
-
-/// [`taut::plan::warning::percent_beside`], written with [`fixed`]: every row of a table shows
-/// one, and a stress past a limit makes the general float formatter write the limit too, the
-/// slow way.
-fn percent_beside<const N: usize>(fraction: f64, limits: [f64; N]) -> String {
-    for decimals in 0..3 {
-        let mut shown = fixed(fraction * 100.0, decimals);
-        let misreads = limits
-            .iter()
-            .any(|&limit| fraction > limit && shown == fixed(limit * 100.0, decimals));
-        if !misreads {
-            shown.push('%');
-            return shown;
-        }
-    }
-    let mut shown = fixed(fraction * 100.0, 3);
-    shown.push('%');
-    shown
 }
 
 /// The gauges of a set on one line, course by course in the table's order, `w` marking wound

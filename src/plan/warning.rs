@@ -3,6 +3,7 @@
 //!
 //! The wording lives here, in one place, so every renderer says the same thing.
 
+use crate::input::units::fixed;
 use serde::{Deserialize, Serialize};
 
 // The stress limits and the tension tolerance are the selector's (`crate::strings::select`), where their
@@ -340,16 +341,21 @@ const SLACK: &str = ": it will be slack, buzz or flap, and will not hold its pit
 /// decimals when the whole number would read as a limit the value is above. A limit is
 /// inclusive (a value at it does not fire), so `65%` beside a 65 % limit would misread.
 pub fn percent_beside<const N: usize>(fraction: f64, limits: [f64; N]) -> String {
+    // Through `fixed`, not `format!`: every row of a table shows one, and the general float
+    // formatter was a visible share of writing a large plan.
     for decimals in 0..3 {
-        let shown = format!("{:.decimals$}", fraction * 100.0);
+        let mut shown = fixed(fraction * 100.0, decimals);
         let misreads = limits
             .iter()
-            .any(|&limit| fraction > limit && shown == format!("{:.decimals$}", limit * 100.0));
+            .any(|&limit| fraction > limit && shown == fixed(limit * 100.0, decimals));
         if !misreads {
-            return format!("{shown}%");
+            shown.push('%');
+            return shown;
         }
     }
-    format!("{:.3}%", fraction * 100.0)
+    let mut shown = fixed(fraction * 100.0, 3);
+    shown.push('%');
+    shown
 }
 
 /// A report's warnings: every course's, in course order, then the instrument's own when the
@@ -399,6 +405,37 @@ pub const SAFETY_REMINDER: &str = "Strings can break: wear eye protection, bring
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn the_stress_percentage_reads_as_the_general_formatter_would_write_it() {
+        // The reference: the same rule written with `format!`, as it was before `fixed`.
+        fn by_format<const N: usize>(fraction: f64, limits: [f64; N]) -> String {
+            for decimals in 0..3 {
+                let shown = format!("{:.decimals$}", fraction * 100.0);
+                let misreads = limits.iter().any(|&limit| {
+                    fraction > limit && shown == format!("{:.decimals$}", limit * 100.0)
+                });
+                if !misreads {
+                    return format!("{shown}%");
+                }
+            }
+            format!("{:.3}%", fraction * 100.0)
+        }
+        for limits in [[0.65, 0.85], [0.5, 0.7], [0.333, 0.999]] {
+            // Every step of a tenth of a per mille from 0 to 150 %, and around each limit.
+            let sweep = (0..15_000).map(|step| f64::from(step) / 10_000.0);
+            let near_limits = limits
+                .iter()
+                .flat_map(|&limit| (-50..50).map(move |step| limit + f64::from(step) * 1e-6));
+            for fraction in sweep.chain(near_limits) {
+                assert_eq!(
+                    percent_beside(fraction, limits),
+                    by_format(fraction, limits),
+                    "{fraction} beside {limits:?}"
+                );
+            }
+        }
+    }
 
     #[test]
     fn names_match_serde() {

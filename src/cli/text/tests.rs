@@ -87,25 +87,6 @@ fn diameters_follow_the_length_unit() {
 }
 
 #[test]
-fn the_stress_percentage_reads_as_the_plan_writes_it() {
-    let limits = [[0.65, 0.85], [0.5, 0.7], [0.333, 0.999]];
-    for limits in limits {
-        // Every step of a tenth of a per mille from 0 to 150 %, and around each limit.
-        let sweep = (0..15_000).map(|step| f64::from(step) / 10_000.0);
-        let near_limits = limits
-            .iter()
-            .flat_map(|&limit| (-50..50).map(move |step| limit + f64::from(step) * 1e-6));
-        for fraction in sweep.chain(near_limits) {
-            assert_eq!(
-                percent_beside(fraction, limits),
-                taut::plan::warning::percent_beside(fraction, limits),
-                "{fraction} beside {limits:?}"
-            );
-        }
-    }
-}
-
-#[test]
 fn signed_offsets_in_pitch_labels_keep_their_sign() {
     assert_eq!(pitch_with_note("~C2", "C2", -48.04), "~C2 -48.0c");
     assert_eq!(

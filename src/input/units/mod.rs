@@ -18,6 +18,8 @@ use crate::error::{Error, Result};
 mod bounds;
 #[allow(unused_imports)]
 use bounds::*;
+mod fixed;
+pub use fixed::{fixed, push_fixed, push_signed_fixed};
 
 #[cfg(test)]
 mod tests;
