@@ -1,0 +1,167 @@
+//! Tests of the report layout: widths, tables and wrapping.
+
+use super::*;
+
+fn widest(text: &str) -> usize {
+    text.lines().map(cells).max().unwrap_or(0)
+}
+
+#[test]
+fn wraps_with_a_hanging_indent_and_never_overflows() {
+    let text = "one two three four five six seven eight nine ten eleven twelve";
+    let out = wrap(text, 20, "- ", "  ");
+    assert!(widest(&out) <= 20, "{out}");
+    assert!(out.starts_with("- one"));
+    assert!(
+        out.lines().skip(1).all(|line| line.starts_with("  ")),
+        "{out}"
+    );
+    let long = wrap(&"x".repeat(50), 20, "  ", "  ");
+    assert!(widest(&long) <= 20, "{long}");
+    assert_eq!(long.matches('x').count(), 50);
+}
+
+/// Wrapping as first written: every line rebuilt and recounted for each word. The one-pass
+/// [`wrap`] must write the same text.
+fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String {
+    let mut out = String::new();
+    let mut line = first.to_string();
+    let mut empty = true;
+    for word in text.split_whitespace() {
+        let room = width.saturating_sub(cells(&line));
+        let needed = cells(word) + usize::from(!empty);
+        if !empty && needed > room {
+            out.push_str(line.trim_end());
+            out.push('\n');
+            line = rest.to_string();
+            empty = true;
+        }
+        let mut word = word.to_string();
+        while cells(&line) + cells(&word) + usize::from(!empty) > width
+            && cells(&word) > width.saturating_sub(cells(rest)).max(1)
+        {
+            let room = width
+                .saturating_sub(cells(&line) + usize::from(!empty))
+                .max(1);
+            let head: String = word.chars().take(room).collect();
+            if !empty {
+                line.push(' ');
+            }
+            line.push_str(&head);
+            out.push_str(line.trim_end());
+            out.push('\n');
+            line = rest.to_string();
+            empty = true;
+            word = word.chars().skip(room).collect();
+        }
+        if !empty {
+            line.push(' ');
+        }
+        line.push_str(&word);
+        empty = false;
+    }
+    out.push_str(line.trim_end());
+    out.push('\n');
+    out
+}
+
+#[test]
+fn wraps_as_recounting_every_line_does() {
+    // Words of every length, blanks of every kind (ASCII, no-break, ideographic, vertical
+    // tab) and characters of one to four bytes.
+    let pieces = [
+        "a",
+        "bc",
+        "def",
+        "ghij",
+        "klmnopqrstu",
+        "é",
+        "─▰",
+        "…",
+        "𝄞x",
+        "0.254w",
+        "averyveryveryverylongwordthatmustbebroken",
+        " ",
+        "  ",
+        "\t",
+        "\n",
+        "\u{a0}",
+        "\u{3000}",
+        "\u{b}",
+        "\u{85}",
+        "\u{1b}",
+    ];
+    let mut state: u64 = 0x9e37_79b9_7f4a_7c15;
+    let mut next = move |bound: usize| {
+        state ^= state << 13;
+        state ^= state >> 7;
+        state ^= state << 17;
+        (state % bound as u64) as usize
+    };
+    let indents = [
+        ("", ""),
+        ("- ", "  "),
+        ("  caution  ", "           "),
+        ("x", " "),
+    ];
+    for _ in 0..3000 {
+        let text: String = (0..next(30)).map(|_| pieces[next(pieces.len())]).collect();
+        let width = next(70);
+        let (first, rest) = indents[next(indents.len())];
+        assert_eq!(
+            wrap(&text, width, first, rest),
+            wrap_recounting(&text, width, first, rest),
+            "{text:?} at {width}"
+        );
+    }
+    let mut out = String::from("kept\n");
+    wrap_into(&mut out, "one two three", 8, "> ", "  ");
+    assert_eq!(out, "kept\n> one\n  two\n  three\n");
+}
+
+#[test]
+fn cells_too_wide_are_cut_with_an_ellipsis_and_rows_end_without_blanks() {
+    let mut grid = Grid::new(vec![
+        Column::figure("#"),
+        Column::text("name").give(Give::Shorten(4)),
+        Column::text("note"),
+    ]);
+    grid.row(vec!["1".into(), "éèêëēĕėęě".into(), String::new()]);
+    grid.row(vec![String::new(), "ab".into()]);
+    let (table, hidden) = grid.render(13);
+    assert!(hidden.is_empty());
+    assert_eq!(
+        table, "#  name  note\n─────────────\n1  éèê…\n   ab\n",
+        "{table}"
+    );
+}
+
+#[test]
+fn a_wide_table_shortens_then_drops_columns() {
+    let mut grid = Grid::new(vec![
+        Column::figure("#"),
+        Column::text("name").give(Give::Shorten(6)),
+        Column::figure("extra").give(Give::Drop(1)),
+        Column::figure("value"),
+    ]);
+    grid.row(vec![
+        "1".into(),
+        "a rather long name indeed".into(),
+        "12345678".into(),
+        "9.5".into(),
+    ]);
+    let (wide, hidden) = grid.render(100);
+    assert!(hidden.is_empty());
+    assert!(wide.contains("a rather long name indeed"));
+    // A little too wide: the name gives up a few characters, nothing is left out.
+    let (narrow, hidden) = grid.render(38);
+    assert!(widest(&narrow) <= 38, "{narrow}");
+    assert!(narrow.contains('…'), "{narrow}");
+    assert!(hidden.is_empty(), "{hidden:?}");
+    // Much too wide: a column is left out rather than the name cut to a stub.
+    let (tight, hidden) = grid.render(30);
+    assert!(widest(&tight) <= 30, "{tight}");
+    assert_eq!(hidden, vec!["extra".to_string()]);
+    let (tiny, _) = grid.render(20);
+    assert!(widest(&tiny) <= 20, "{tiny}");
+}
