@@ -51,6 +51,7 @@ fn agrees_with_the_plain_solver(instrument: &Instrument, settings_text: &str) ->
     let mut settings = Settings::from_text(settings_text.to_string(), "settings").unwrap();
     let size_guess = 100_000;
     settings.top = size_guess;
+    settings.every_offset = true;
     let survey = Survey::prepare(instrument, &settings, kinds()).unwrap();
     let candidates = survey.size().candidates;
     assert!(candidates < size_guess as u64);
@@ -175,34 +176,78 @@ courses: {modes_of: [2, 2, 1, 2, 2, 2, 1]}
     assert!(stringable > 0);
 }
 
-#[test]
-fn the_ranking_is_the_same_on_one_thread_and_on_two() {
-    let instrument = Instrument::from_text(FOURTHS.to_string(), "fourths").unwrap();
-    let settings = Settings::from_text(
+/// The fourths example over every EDO, with a coarse offset step: a few thousand stringable
+/// candidates, few enough to list them all.
+fn coarse_fourths_settings(every_offset: bool, top: usize) -> Settings {
+    let mut settings = Settings::from_text(
         "\
 tunings: {edos: {from: 5, to: 72}}
 course_1: E2
 offset_cents: {from: -600, to: 600, step: 1.3}
 courses: {nearest_to: 4/3}
-top: 200
 "
         .to_string(),
         "settings",
     )
     .unwrap();
-    let survey = Survey::prepare(&instrument, &settings, kinds()).unwrap();
-    let on = |threads: usize| {
-        rayon::ThreadPoolBuilder::new()
-            .num_threads(threads)
-            .build()
-            .unwrap()
-            .install(|| search(&survey))
-    };
-    let (one, two) = (on(1), on(2));
-    assert_eq!(one.results.len(), 200);
-    assert_eq!(one.results, two.results);
-    assert_eq!(one.stringable, two.stringable);
-    assert_eq!(one.rejected, two.rejected);
+    settings.every_offset = every_offset;
+    settings.top = top;
+    settings
+}
+
+#[test]
+fn the_ranking_is_the_same_on_one_thread_and_on_two() {
+    let instrument = Instrument::from_text(FOURTHS.to_string(), "fourths").unwrap();
+    for (every_offset, expected) in [(true, 200), (false, 40)] {
+        let settings = coarse_fourths_settings(every_offset, expected);
+        let survey = Survey::prepare(&instrument, &settings, kinds()).unwrap();
+        let on = |threads: usize| {
+            rayon::ThreadPoolBuilder::new()
+                .num_threads(threads)
+                .build()
+                .unwrap()
+                .install(|| search(&survey))
+        };
+        let (one, two) = (on(1), on(2));
+        assert_eq!(one.results.len(), expected);
+        assert_eq!(one.results, two.results);
+        assert_eq!(one.stringable, two.stringable);
+        assert_eq!(one.rejected, two.rejected);
+    }
+}
+
+#[test]
+fn by_default_each_setting_is_listed_once_at_its_best_offset() {
+    // The reference: every stringable candidate ranked, then the first (best) row of each
+    // tuning and course pattern, in order.
+    let instrument = Instrument::from_text(FOURTHS.to_string(), "fourths").unwrap();
+    let every = coarse_fourths_settings(true, taut::survey::settings::MAX_TOP);
+    let every = search(&Survey::prepare(&instrument, &every, kinds()).unwrap());
+    assert!((every.results.len() as u64) == every.stringable && every.stringable > 100);
+    let mut expected: Vec<&taut::survey::Ranked> = Vec::new();
+    for result in &every.results {
+        if !expected.iter().any(|seen| {
+            seen.tuning == result.tuning && seen.course_pattern == result.course_pattern
+        }) {
+            expected.push(result);
+        }
+    }
+    let top = 25;
+    assert!(expected.len() > top);
+    let once = coarse_fourths_settings(false, top);
+    let once = search(&Survey::prepare(&instrument, &once, kinds()).unwrap());
+    assert!(!once.every_offset && once.ranking_rule.contains("at its best offset"));
+    let listed: Vec<(u64, &str)> = once
+        .results
+        .iter()
+        .map(|r| (r.candidate, r.tuning.as_str()))
+        .collect();
+    let reference: Vec<(u64, &str)> = expected[..top]
+        .iter()
+        .map(|r| (r.candidate, r.tuning.as_str()))
+        .collect();
+    assert_eq!(listed, reference);
+    assert_eq!(once.stringable, every.stringable);
 }
 
 #[test]
@@ -298,6 +343,30 @@ fn the_example_runs_through_the_binary_as_json() {
     ] {
         assert!(results[0].get(key).is_some(), "{key}");
     }
+    // Each tuning once by default; `--every-offset` lists the best one's neighbouring offsets.
+    let tunings: Vec<&str> = results
+        .iter()
+        .filter_map(|r| r["tuning"].as_str())
+        .collect();
+    assert!(
+        tunings[0] != tunings[1] && tunings[1] != tunings[2],
+        "{tunings:?}"
+    );
+    assert_eq!(report["every_offset"], false);
+    let every = json(&[
+        "survey",
+        "examples/fanned-8-fourths.yaml",
+        "examples/survey-fourths.yaml",
+        "--top",
+        "3",
+        "--every-offset",
+    ]);
+    let every_results = every["results"].as_array().unwrap();
+    assert_eq!(every["every_offset"], true);
+    assert_eq!(every_results[0], results[0]);
+    assert!(every_results
+        .iter()
+        .all(|r| r["tuning"] == results[0]["tuning"]));
     // The best candidate's full plan, from the plan solver, is stringable too.
     let plan = &report["best_plan"];
     assert_eq!(plan["courses"].as_array().unwrap().len(), 8);

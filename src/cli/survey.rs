@@ -51,6 +51,9 @@ pub struct SurveyArgs {
     /// Rank by this rule instead of the settings' `rank_by`.
     #[arg(long, value_enum, value_name = "RULE")]
     pub rank_by: Option<RankChoice>,
+    /// List every stringable offset, not each tuning and course pattern once at its best offset.
+    #[arg(long)]
+    pub every_offset: bool,
     /// Use this many threads (default: one per core).
     #[arg(long, value_name = "N")]
     pub threads: Option<usize>,
@@ -73,6 +76,9 @@ pub fn run(args: &SurveyArgs) -> Result<()> {
             .in_origin("--top"));
         }
         settings.top = top;
+    }
+    if args.every_offset {
+        settings.every_offset = true;
     }
     if let Some(rule) = args.rank_by {
         settings.rank_by = match rule {

@@ -151,8 +151,11 @@ pub struct Report {
     pub instrument: String,
     /// The ranking rule's name.
     pub rank_by: RankRule,
-    /// The ranking rule in words.
+    /// The ranking rule in words, with how the list treats offsets of one setting.
     pub ranking_rule: String,
+    /// Whether the results list every stringable offset (`every_offset`), rather than each
+    /// tuning and course pattern once, at its best offset.
+    pub every_offset: bool,
     /// Candidates tried.
     pub candidates: u64,
     /// Candidates × courses.

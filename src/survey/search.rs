@@ -165,11 +165,12 @@ pub(super) fn evaluate(
     }
 }
 
-/// A ranked entry: sort key, candidate number, measures.
+/// A ranked entry: sort key, candidate number, its tuning-and-pattern pair, measures.
 #[derive(Debug, Clone, Copy)]
 struct Entry {
     key: [f64; 3],
     index: u64,
+    pair: usize,
     metrics: Metrics,
 }
 
@@ -185,22 +186,28 @@ fn order(a: &Entry, b: &Entry) -> Ordering {
 struct Found {
     best: Vec<Entry>,
     top: usize,
+    /// Whether a tuning-and-pattern pair may fill several places (`every_offset`).
+    every_offset: bool,
     stringable: u64,
     rejected: Rejections,
 }
 
 impl Found {
-    fn new(top: usize) -> Found {
+    fn new(top: usize, every_offset: bool) -> Found {
         Found {
             best: Vec::with_capacity(top + 1),
             top,
+            every_offset,
             stringable: 0,
             rejected: Rejections::default(),
         }
     }
 
-    /// Keeps `entry` if it is among the best `top`; never grows past `top + 1`, so never
-    /// reallocates.
+    /// Keeps `entry` if it is among the best `top` (each pair once, at its best, unless
+    /// `every_offset`); never grows past `top + 1`, so never reallocates.
+    ///
+    /// One place per pair stays exact when offers arrive in any order and lists are merged: a
+    /// pair pushed out had `top` other pairs ahead of it, and those only get better.
     fn offer(&mut self, entry: Entry) {
         if self.best.len() == self.top
             && self
@@ -209,6 +216,14 @@ impl Found {
                 .is_some_and(|worst| order(&entry, worst).is_ge())
         {
             return;
+        }
+        if !self.every_offset {
+            if let Some(held) = self.best.iter().position(|e| e.pair == entry.pair) {
+                if order(&entry, &self.best[held]).is_ge() {
+                    return;
+                }
+                self.best.remove(held);
+            }
         }
         let at = self.best.partition_point(|e| order(e, &entry).is_lt());
         self.best.insert(at, entry);
@@ -242,6 +257,7 @@ impl Survey<'_> {
         let started = Instant::now();
         let rule = self.settings.rank_by;
         let top = self.settings.top;
+        let every_offset = self.settings.every_offset;
         let offsets = self.size.offsets;
         let chunks: Vec<(usize, u64)> = (0..self.pairs.len())
             .flat_map(|pair| (0..offsets.div_ceil(CHUNK)).map(move |c| (pair, c * CHUNK)))
@@ -251,7 +267,7 @@ impl Survey<'_> {
             .fold(
                 || {
                     (
-                        Found::new(top),
+                        Found::new(top, every_offset),
                         Vec::<usize>::with_capacity(self.strings.len()),
                     )
                 },
@@ -280,6 +296,7 @@ impl Survey<'_> {
                             found.offer(Entry {
                                 key: metrics.key(rule),
                                 index: base + offset,
+                                pair: pair_index,
                                 metrics,
                             });
                         } else {
@@ -291,7 +308,7 @@ impl Survey<'_> {
                 },
             )
             .map(|(found, _)| found)
-            .reduce(|| Found::new(top), Found::merge);
+            .reduce(|| Found::new(top, every_offset), Found::merge);
         let elapsed_s = started.elapsed().as_secs_f64();
         let results = found
             .best
@@ -303,7 +320,15 @@ impl Survey<'_> {
             best_candidate: found.best.first().map(|best| best.index),
             instrument: self.instrument.name.clone(),
             rank_by: rule,
-            ranking_rule: rule.statement().to_string(),
+            ranking_rule: if every_offset {
+                format!("{}; every stringable offset listed", rule.statement())
+            } else {
+                format!(
+                    "{}; each tuning and course pattern once, at its best offset",
+                    rule.statement()
+                )
+            },
+            every_offset,
             candidates: self.size.candidates,
             course_checks: self.size.course_checks,
             stringable: found.stringable,

@@ -9,6 +9,7 @@
 //!   nearest_to: 4/3                # or `steps: [5, 5, 5, 4, 5]` or `modes_of: [2, 2, 1, 2, 2, 2, 1]`
 //! rank_by: spread                  # spread | stress | load | target
 //! top: 10
+//! every_offset: false              # true: every stringable offset, not each setting once
 //! ```
 
 use std::path::{Path, PathBuf};
@@ -131,6 +132,9 @@ pub struct Settings {
     pub rank_by: RankRule,
     /// How many results to list.
     pub top: usize,
+    /// List every stringable offset, rather than each tuning and course pattern once at its
+    /// best offset (the default: neighbouring offsets of one setting would fill the list).
+    pub every_offset: bool,
     origin: String,
     text: String,
     folder: Option<PathBuf>,
@@ -148,6 +152,8 @@ struct SettingsFile {
     rank_by: RankRule,
     #[serde(default)]
     top: Option<usize>,
+    #[serde(default)]
+    every_offset: bool,
 }
 
 #[derive(Deserialize)]
@@ -208,6 +214,7 @@ impl Settings {
             pattern: PatternRule::Steps(Vec::new()),
             rank_by: file.rank_by,
             top: file.top.unwrap_or(DEFAULT_TOP),
+            every_offset: file.every_offset,
             origin: origin.to_string(),
             text,
             folder: None,
