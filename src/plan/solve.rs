@@ -10,7 +10,7 @@
 use std::ops::Range;
 
 use crate::error::{Error, Result};
-use crate::input::units::METRES_PER_INCH;
+use crate::input::units::{fixed, METRES_PER_INCH};
 use crate::input::yaml::PathStep;
 use crate::instrument::{field_name, CourseInput, Instrument, TensionSpec};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
@@ -221,19 +221,19 @@ pub(crate) fn flag_names(flags: Warnings) -> Vec<String> {
 pub fn gauge_label(diameter_m: f64) -> String {
     let inches = diameter_m / METRES_PER_INCH;
     let half_thousandths = inches * 2000.0;
+    // Through `fixed`, which writes what `format!` would without the general float formatter
+    // (a description is written four times per planned string).
     if (half_thousandths - half_thousandths.round()).abs() < 1e-6 {
-        // On the grid the label is exact in ten-thousandths of an inch, so integers print it
-        // (a float's four-decimal formatting costs more than the rest of the description).
-        let ten_thousandths = half_thousandths.round() as u64 * 5;
-        let whole = ten_thousandths / 10_000;
-        let fraction = ten_thousandths % 10_000;
-        if fraction % 10 == 0 {
-            format!("{whole}.{:03} in", fraction / 10)
-        } else {
-            format!("{whole}.{fraction:04} in")
+        let mut text = fixed(inches, 4);
+        if text.ends_with('0') {
+            text.pop();
         }
+        text.push_str(" in");
+        text
     } else {
-        format!("{:.2} mm", diameter_m * 1000.0)
+        let mut text = fixed(diameter_m * 1000.0, 2);
+        text.push_str(" mm");
+        text
     }
 }
 
