@@ -65,7 +65,7 @@ fn agrees_with_the_plain_solver(instrument: &Instrument, settings_text: &str) ->
             .flat_map(|course| &course.strings)
             .map(|string| {
                 (
-                    string.choice.kind.clone(),
+                    string.choice.kind.to_string(),
                     string.choice.diameter_mm / 1000.0,
                 )
             })

@@ -151,10 +151,10 @@ pub fn plan(plan: &Plan, windows: &[Option<(f64, f64)>]) -> Vec<Named> {
             let point = Point::at(x, choice.diameter_mm);
             match by_construction
                 .iter_mut()
-                .find(|(name, _)| *name == choice.construction)
+                .find(|(name, _)| *name == choice.construction.as_str())
             {
                 Some((_, points)) => points.push(point),
-                None => by_construction.push((choice.construction.clone(), vec![point])),
+                None => by_construction.push((choice.construction.to_string(), vec![point])),
             }
         }
         if let Some(first) = course.strings.first() {

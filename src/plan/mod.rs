@@ -4,8 +4,10 @@
 //! The JSON layout is documented in README ("The plan's JSON"); field names are a stable
 //! interface for scripts.
 
+mod flags;
 pub mod remedy;
 pub mod several;
+mod shared;
 pub mod solve;
 pub mod warning;
 
@@ -13,6 +15,8 @@ use serde::{Deserialize, Serialize};
 
 use crate::plan::warning::{Severity, Warning};
 pub use crate::tuning::course_pitch::CoursePitch;
+pub use flags::StringFlags;
+pub use shared::SharedText;
 
 /// A solved instrument.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -83,13 +87,13 @@ pub struct StringPlan {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct StringChoice {
     /// Id of the string kind (construction, materials and catalog).
-    pub kind: String,
+    pub kind: SharedText,
     /// `plain` or `wound` (or the kind's own construction name).
-    pub construction: String,
+    pub construction: SharedText,
     /// Material in words, e.g. `carbon steel` or `phosphor bronze on steel`.
-    pub material: String,
+    pub material: SharedText,
     /// The catalog's name for this gauge, e.g. `0.010 in` or `0.80 mm`.
-    pub gauge: String,
+    pub gauge: SharedText,
     /// Outer diameter in millimetres.
     pub diameter_mm: f64,
     /// Outer diameter in inches.
@@ -110,7 +114,7 @@ pub struct StringChoice {
     /// The selector's flags for this string on this course (`stress_caution`,
     /// `thicker_than_catalog`, …), in a fixed order; empty when nothing is amiss.
     #[serde(default)]
-    pub flags: Vec<String>,
+    pub flags: StringFlags,
 }
 
 /// How a string stands against the choice rule (README, "How a string is chosen").

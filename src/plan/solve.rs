@@ -24,6 +24,8 @@ mod course;
 #[allow(unused_imports)]
 pub(crate) use course::*;
 mod fixed;
+mod words;
+pub(crate) use words::PlanWords;
 
 /// The tuning used when neither the command line nor the instrument names one: 12 equal
 /// divisions of the octave at A4 = 440 Hz (ISO 16:1975).
@@ -79,6 +81,7 @@ pub fn solve(
     let mut best_per_kind = vec![None; lists.longest];
     let mut courses = Vec::with_capacity(instrument.courses.len());
     let mut string_slot = 0;
+    let words = PlanWords::default();
     for index in 0..instrument.courses.len() {
         let course = instrument
             .course_input(index, tension)
@@ -90,6 +93,7 @@ pub fn solve(
             limits,
             tolerance,
             stock,
+            words: &words,
         };
         let ranges = &lists.per_string[string_slot..string_slot + course.strings.len()];
         string_slot += course.strings.len();
@@ -181,39 +185,6 @@ fn construction_words(kind: &StringKind) -> (&'static str, String) {
                 .map_or_else(|| "unknown".to_string(), |m| m.id.as_str().to_string()),
         ),
     }
-}
-
-/// The plan's description of one evaluated gauge.
-fn describe(kind: &StringKind, choice: &Choice, request: &Request) -> StringChoice {
-    let (construction, material) = construction_words(kind);
-    StringChoice {
-        kind: kind.id.as_str().to_string(),
-        construction: construction.to_string(),
-        material,
-        gauge: gauge_label(choice.diameter),
-        diameter_mm: choice.diameter * 1000.0,
-        diameter_in: choice.diameter / METRES_PER_INCH,
-        unit_mass_kg_per_m: choice.unit_mass,
-        tension_n: choice.tension,
-        stress_ratio: choice.stress_ratio,
-        break_pitch_hz: choice.break_frequency,
-        inharmonicity: kind
-            .construction(choice.diameter)
-            .inharmonicity(choice.tension, request.length),
-        standing: select::standing(choice, request.tolerance).into(),
-        flags: {
-            let mut flags = flag_names(choice.warnings);
-            if choice.tension_error.abs() > request.tolerance {
-                flags.push("off_target".to_string());
-            }
-            flags
-        },
-    }
-}
-
-/// The selector's flag names in the snake_case of the plan's other names.
-pub(crate) fn flag_names(flags: Warnings) -> Vec<String> {
-    flags.names().map(|name| name.replace('-', "_")).collect()
 }
 
 /// The way the trade writes this diameter: inches for gauges on the half-thousandth grid of

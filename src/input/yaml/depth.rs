@@ -37,6 +37,14 @@ pub(super) struct TooDeep {
 /// follows `- `, `? `, `: ` at its start) counts as one block level below the nodes left of it,
 /// which can only make the estimate deeper, never shallower.
 pub(super) fn first_too_deep(text: &str) -> Option<TooDeep> {
+    if cannot_nest_too_deep(text) {
+        return None;
+    }
+    scan_too_deep(text)
+}
+
+/// The pass of [`first_too_deep`], without its quick bound.
+fn scan_too_deep(text: &str) -> Option<TooDeep> {
     #[derive(PartialEq)]
     enum State {
         Outside,
@@ -162,4 +170,52 @@ pub(super) fn first_too_deep(text: &str) -> Option<TooDeep> {
         previous = Some(c);
     }
     None
+}
+
+/// Whether `text` is too small to nest too deep, by two byte counts far quicker than the pass of
+/// [`first_too_deep`]: flow depth never exceeds the number of `[` and `{`, and the open block
+/// nodes sit at strictly increasing columns, so block depth never exceeds the longest line.
+fn cannot_nest_too_deep(text: &str) -> bool {
+    let openers = text.bytes().filter(|&b| b == b'[' || b == b'{').count();
+    openers <= MAX_FLOW_DEPTH && text.split('\n').all(|line| line.len() <= MAX_BLOCK_DEPTH)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use proptest::prelude::*;
+
+    proptest! {
+        // The quick bound may only skip texts that the full pass finds shallow enough.
+        #[test]
+        fn the_quick_bound_never_hides_deep_nesting(
+            lines in proptest::collection::vec("[-?:\\[\\]{} #\"'a]{0,140}", 0..20)
+        ) {
+            let text = lines.join("\n");
+            if cannot_nest_too_deep(&text) {
+                prop_assert_eq!(scan_too_deep(&text), None);
+            }
+        }
+    }
+
+    #[test]
+    fn the_quick_bound_holds_at_its_edges() {
+        let flow_at_limit = "[".repeat(MAX_FLOW_DEPTH);
+        assert!(cannot_nest_too_deep(&flow_at_limit));
+        let flow_past_limit = "[".repeat(MAX_FLOW_DEPTH + 1);
+        assert!(!cannot_nest_too_deep(&flow_past_limit));
+        assert_eq!(
+            first_too_deep(&flow_past_limit).map(|deep| deep.kind),
+            Some(Nesting::Flow)
+        );
+        // 65 `- ` marks make a 130-byte line: past the bound, so the full pass runs.
+        let block = "- ".repeat(65);
+        assert!(!cannot_nest_too_deep(&block));
+        assert_eq!(first_too_deep(&block), None);
+        let deep_block = "- ".repeat(MAX_BLOCK_DEPTH + 1);
+        assert_eq!(
+            first_too_deep(&deep_block).map(|deep| deep.kind),
+            Some(Nesting::Block)
+        );
+    }
 }

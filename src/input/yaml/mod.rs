@@ -200,6 +200,12 @@ pub fn parse<T: DeserializeOwned>(text: &str, origin: &str) -> Result<T> {
             .in_origin(origin)
             .help(help));
     }
+    // Tracking the field path costs about a tenth of the parse; a document that reads cleanly
+    // needs no path, so the path is tracked only when reading again to explain an error (the
+    // same text fails the same way).
+    if let Ok(value) = T::deserialize(serde_yaml::Deserializer::from_str(text)) {
+        return Ok(value);
+    }
     let deserializer = serde_yaml::Deserializer::from_str(text);
     serde_path_to_error::deserialize(deserializer).map_err(|err| {
         let mut path = err.path().to_string();

@@ -16,7 +16,7 @@ use serde::Serialize;
 use crate::error::{Error, Result};
 use crate::input::yaml::PathStep;
 use crate::instrument::{Instrument, TensionSpec};
-use crate::plan::solve::{finish_plan, stress_limits, CourseContext, KindLists};
+use crate::plan::solve::{finish_plan, stress_limits, CourseContext, KindLists, PlanWords};
 use crate::plan::warning::{Severity, SAFETY_CAUTIONS};
 use crate::plan::{CoursePlan, Plan, StringPlan};
 use crate::strings::select::several::{self, Agreement, Balance};
@@ -145,6 +145,7 @@ pub fn solve(
     let mut shared_courses = Vec::with_capacity(instrument.courses.len());
     let mut conflicts = Vec::new();
     let mut string_slot = 0;
+    let words = PlanWords::default();
     for index in 0..instrument.courses.len() {
         let mut contexts = Vec::with_capacity(list.len());
         let mut pitches = Vec::with_capacity(list.len());
@@ -160,6 +161,7 @@ pub fn solve(
                 limits,
                 tolerance,
                 stock,
+                words: &words,
             };
             pitches.push(variant.instrument.course_pitch(&course, &variant.tuning)?);
             contexts.push(context);
@@ -293,8 +295,8 @@ fn summarize(
     let first = in_each.first();
     SharedString {
         string: string_index + 1,
-        kind: first.map_or_else(String::new, |s| s.choice.kind.clone()),
-        gauge: first.map_or_else(String::new, |s| s.choice.gauge.clone()),
+        kind: first.map_or_else(String::new, |s| s.choice.kind.to_string()),
+        gauge: first.map_or_else(String::new, |s| s.choice.gauge.to_string()),
         agreement: shared.agreement,
         worst_deviation: in_each
             .iter()

@@ -124,6 +124,8 @@ pub(crate) struct CourseContext<'a> {
     pub(crate) limits: StressLimits,
     pub(crate) tolerance: f64,
     pub(crate) stock: &'a Stock,
+    /// The kind and gauge words of this solve, shared by its strings.
+    pub(crate) words: &'a PlanWords,
 }
 
 impl CourseContext<'_> {
@@ -235,7 +237,7 @@ impl CourseContext<'_> {
             kind,
             pitch_hz,
         );
-        let choice_of = |choice: &Choice| describe(kinds[choice.kind], choice, request);
+        let choice_of = |choice: &Choice| self.words.describe(kinds[choice.kind], choice, request);
         let feel = crate::strings::feel::feel(
             &kind.construction(chosen.diameter),
             chosen.tension,

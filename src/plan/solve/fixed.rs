@@ -113,10 +113,10 @@ impl CourseContext<'_> {
                 request.frequency,
             ),
             choice: StringChoice {
-                kind: written.label(),
-                construction: construction_name.to_string(),
-                material,
-                gauge: gauge_label(diameter),
+                kind: written.label().into(),
+                construction: construction_name.into(),
+                material: material.into(),
+                gauge: gauge_label(diameter).into(),
                 diameter_mm: diameter * 1000.0,
                 diameter_in: diameter / METRES_PER_INCH,
                 unit_mass_kg_per_m: evaluation.unit_mass,
@@ -125,7 +125,7 @@ impl CourseContext<'_> {
                 break_pitch_hz,
                 inharmonicity: construction.inharmonicity(evaluation.tension, request.length),
                 standing: crate::plan::Standing::Fixed,
-                flags: flag_names(evaluation.warnings),
+                flags: crate::plan::StringFlags::new(evaluation.warnings, false),
             },
             alternatives: Alternatives::default(),
             feel: Some(feel::feel(

@@ -164,7 +164,7 @@ impl StringSet {
                     .iter()
                     .map(|string| {
                         string.fixed.clone().unwrap_or_else(|| SetString::Kind {
-                            kind: string.choice.kind.clone(),
+                            kind: string.choice.kind.to_string(),
                             diameter: string.choice.diameter_mm / 1000.0,
                             core_diameter: None,
                         })
