@@ -45,11 +45,15 @@ fn push_figure(out: &mut String, value: f64, decimals: usize, plus: bool) {
             } else if plus {
                 out.push('+');
             }
+            let mut digits = itoa::Buffer::new();
+            out.push_str(digits.format(scaled / unit));
             if decimals > 0 {
-                write!(out, "{}.{:0decimals$}", scaled / unit, scaled % unit)
-            } else {
-                write!(out, "{scaled}")
+                out.push('.');
+                let fraction = digits.format(scaled % unit);
+                out.extend(std::iter::repeat_n('0', decimals - fraction.len()));
+                out.push_str(fraction);
             }
+            Ok(())
         }
         None if plus => write!(out, "{value:+.decimals$}"),
         None => write!(out, "{value:.decimals$}"),
