@@ -1590,3 +1590,41 @@ fn closed_standard_output() {
     );
     assert_eq!(snapshot(dir.path()), before);
 }
+
+#[test]
+fn output_thrown_away_by_a_parent_program() {
+    // A parent that throws the report away: write-only /dev/null (a shell's `>/dev/null`) is
+    // an open standard output; read-write /dev/null (Python's `subprocess.DEVNULL`, Node's
+    // `'ignore'`) cannot be told from a closed one, so the message says how to avoid it, and
+    // `-o /dev/null` works either way.
+    let dir = scratch(&[("probe.yaml", BASE.as_bytes())]);
+    let null = |read: bool| {
+        std::fs::File::options()
+            .read(read)
+            .write(true)
+            .open("/dev/null")
+            .expect("open /dev/null")
+    };
+    let run = |stdout: std::fs::File, extra: &[&str]| {
+        std::process::Command::new(env!("CARGO_BIN_EXE_taut"))
+            .current_dir(dir.path())
+            .args(["plan", "probe.yaml"])
+            .args(extra)
+            .stdout(stdout)
+            .output()
+            .expect("run taut")
+    };
+    let write_only = run(null(false), &[]);
+    assert_eq!(write_only.status.code(), Some(0));
+    let read_write = run(null(true), &[]);
+    let stderr = String::from_utf8_lossy(&read_write.stderr);
+    assert_eq!(read_write.status.code(), Some(1), "{stderr}");
+    assert!(stderr.contains("subprocess.DEVNULL"), "{stderr}");
+    let named = run(null(true), &["-o", "/dev/null"]);
+    assert_eq!(
+        named.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&named.stderr)
+    );
+}

@@ -8,8 +8,9 @@ use common::{bad_input, json, write_file};
 use taut::instrument::Instrument;
 use taut::plan::warning::WarningKind;
 use taut::plan::Plan;
+use taut::strings::select::Warnings;
 use taut::strings::stock::Stock;
-use taut::survey::{Metrics, Report, Settings, Survey};
+use taut::survey::{Metrics, Rejections, Report, Settings, Survey};
 
 const FOURTHS: &str = include_str!("../examples/fanned-8-fourths.yaml");
 
@@ -46,7 +47,7 @@ fn close(a: f64, b: f64) -> bool {
 
 /// Every candidate of the survey solved by the plain plan solver and by the fast path: the same
 /// string on every course, the same verdict, the same measures; then the parallel sweep lists
-/// exactly the stringable ones with those measures.
+/// exactly the stringable ones with those measures, and counts the refused ones' reasons alike.
 fn agrees_with_the_plain_solver(instrument: &Instrument, settings_text: &str) -> usize {
     let mut settings = Settings::from_text(settings_text.to_string(), "settings").unwrap();
     let size_guess = 100_000;
@@ -56,6 +57,7 @@ fn agrees_with_the_plain_solver(instrument: &Instrument, settings_text: &str) ->
     let candidates = survey.size().candidates;
     assert!(candidates < size_guess as u64);
     let mut stringable = Vec::new();
+    let mut rejected = Rejections::default();
     for index in 0..candidates {
         let plan = survey.candidate_plan(index).unwrap();
         let (metrics, chosen): (Metrics, _) = survey.check(index);
@@ -106,10 +108,23 @@ fn agrees_with_the_plain_solver(instrument: &Instrument, settings_text: &str) ->
         );
         if plan_stringable {
             stringable.push((index, metrics));
+        } else {
+            let has = |reason: Warnings| u64::from(metrics.flags & reason.bits() != 0);
+            rejected.stress_danger += has(Warnings::STRESS_DANGER);
+            rejected.outside_catalog +=
+                has(Warnings::THINNER_THAN_CATALOG.union(Warnings::THICKER_THAN_CATALOG));
+            rejected.outside_window += has(Warnings::BELOW_WINDOW.union(Warnings::ABOVE_WINDOW));
+            rejected.wider_than_slot += has(Warnings::WIDER_THAN_SLOT);
+            rejected.strength_unknown += has(Warnings::STRENGTH_UNKNOWN);
+            rejected.over_rated_load += u64::from(metrics.over_rated_load);
         }
     }
     let report = search(&survey);
     assert_eq!(report.candidates, candidates);
+    // The sweep counts the reasons of a candidate refused for its strings without measuring
+    // it: the same counts as measuring every candidate.
+    assert_eq!(report.rejected, rejected);
+    assert!(rejected.stress_danger + rejected.outside_catalog + rejected.outside_window > 0);
     assert_eq!(report.stringable as usize, stringable.len());
     assert_eq!(report.results.len(), stringable.len());
     for result in &report.results {

@@ -98,14 +98,19 @@ pub struct Rejections {
 
 impl Rejections {
     fn count(&mut self, metrics: &Metrics) {
-        let has = |flags: Warnings| u64::from(metrics.flags & flags.bits() != 0);
+        self.count_flags(metrics.flags);
+        self.over_rated_load += u64::from(metrics.over_rated_load);
+    }
+
+    /// Counts the reasons in a refused candidate's combined string flags.
+    fn count_flags(&mut self, flags: u16) {
+        let has = |reason: Warnings| u64::from(flags & reason.bits() != 0);
         self.stress_danger += has(Warnings::STRESS_DANGER);
         self.outside_catalog +=
             has(Warnings::THINNER_THAN_CATALOG.union(Warnings::THICKER_THAN_CATALOG));
         self.outside_window += has(Warnings::BELOW_WINDOW.union(Warnings::ABOVE_WINDOW));
         self.wider_than_slot += has(Warnings::WIDER_THAN_SLOT);
         self.strength_unknown += has(Warnings::STRENGTH_UNKNOWN);
-        self.over_rated_load += u64::from(metrics.over_rated_load);
     }
 
     fn add(&mut self, other: &Rejections) {
@@ -128,17 +133,48 @@ pub(super) fn evaluate(
     segments: &mut [usize],
     rated_load_n: Option<f64>,
 ) -> Metrics {
+    let flags = place(strings, factors, ratio, segments);
+    measure(strings, factors, ratio, segments, flags, rated_load_n)
+}
+
+/// Moves every string of a candidate to its segment and combines their flags: all that a
+/// candidate refused for its strings needs (most of a survey's candidates are).
+#[inline]
+pub(super) fn place(
+    strings: &[StringSlot<'_>],
+    factors: &[f64],
+    ratio: f64,
+    segments: &mut [usize],
+) -> u16 {
+    let mut flags = 0u16;
+    for ((slot, factor), segment) in strings.iter().zip(factors).zip(segments.iter_mut()) {
+        let two_l_f = factor * ratio;
+        *segment = slot.table.walk(*segment, two_l_f * two_l_f);
+        flags |= slot.table.flags[*segment];
+    }
+    flags
+}
+
+/// The measures of a candidate whose strings [`place`] has put on their segments, with the
+/// flags it combined.
+#[inline]
+pub(super) fn measure(
+    strings: &[StringSlot<'_>],
+    factors: &[f64],
+    ratio: f64,
+    segments: &[usize],
+    flags: u16,
+    rated_load_n: Option<f64>,
+) -> Metrics {
     let mut total = 0.0;
     let mut lowest = f64::INFINITY;
     let mut highest = f64::NEG_INFINITY;
     let mut stress = 0.0_f64;
     let mut target = 0.0_f64;
-    let mut flags = 0u16;
-    for ((slot, factor), segment) in strings.iter().zip(factors).zip(segments.iter_mut()) {
+    for ((slot, factor), &segment) in strings.iter().zip(factors).zip(segments) {
         let two_l_f = factor * ratio;
         let s = two_l_f * two_l_f;
-        *segment = slot.table.walk(*segment, s);
-        let outcome = &slot.table.outcomes[*segment];
+        let outcome = &slot.table.outcomes[segment];
         let tension = outcome.unit_mass * s;
         total += tension;
         // Plain comparisons compile to single min/max instructions, where f64::min and max
@@ -153,7 +189,6 @@ pub(super) fn evaluate(
         };
         let error = (outcome.unit_mass_over_target * s - 1.0).abs();
         target = if error > target { error } else { target };
-        flags |= outcome.flags;
     }
     Metrics {
         total_load_n: total,
@@ -284,11 +319,20 @@ impl Survey<'_> {
                     ));
                     let base = pair_index as u64 * offsets;
                     for offset in first..last {
-                        let metrics = evaluate(
+                        let ratio = self.offset_ratios[offset as usize];
+                        let flags = place(&self.strings, &pair.factors, ratio, &mut segments);
+                        // Refused for its strings: only the reasons are counted, unless a rated
+                        // load asks for the total too.
+                        if flags & reject_mask() != 0 && self.rated_load_n.is_none() {
+                            found.rejected.count_flags(flags);
+                            continue;
+                        }
+                        let metrics = measure(
                             &self.strings,
                             &pair.factors,
-                            self.offset_ratios[offset as usize],
-                            &mut segments,
+                            ratio,
+                            &segments,
+                            flags,
                             self.rated_load_n,
                         );
                         if metrics.stringable() {

@@ -53,6 +53,9 @@ pub struct StringTable {
     pub bounds: Vec<f64>,
     /// One outcome per segment; `outcomes.len() == bounds.len() + 1`.
     pub outcomes: Vec<Outcome>,
+    /// Each outcome's flags again, packed: a candidate refused for its strings reads only
+    /// these.
+    pub flags: Vec<u16>,
 }
 
 /// What one string asks, besides its frequency.
@@ -101,6 +104,7 @@ impl StringTable {
         let mut table = StringTable {
             bounds: Vec::with_capacity(cuts.len()),
             outcomes: Vec::with_capacity(cuts.len() + 1),
+            flags: Vec::new(),
         };
         let mut scratch = [None; crate::plan::solve::MAX_KINDS_PER_LIST];
         let probe = |s: f64, scratch: &mut [Option<select::Choice>]| -> Outcome {
@@ -155,6 +159,7 @@ impl StringTable {
             }
         }
         table.outcomes.push(current);
+        table.flags = table.outcomes.iter().map(|outcome| outcome.flags).collect();
         table
     }
 

@@ -145,8 +145,11 @@ fn closed_at_start() -> bool {
 
 fn standard_output() -> io::Result<File> {
     if !STDOUT_OPEN_AT_START.get().copied().unwrap_or(true) {
+        // Indistinguishable from a closed one: /dev/null opened for reading and writing, as
+        // Python's `subprocess.DEVNULL` and Node's `'ignore'` open it (measured: the same
+        // `/proc/self/fdinfo/1` flags as the runtime's reopening), so say how to avoid it.
         return Err(io::Error::other(
-            "standard output is closed; give `-o FILE` or redirect it",
+            "standard output is closed; give `-o FILE` or redirect it (a /dev/null opened for reading and writing, as Python's `subprocess.DEVNULL` and Node's `'ignore'` give, looks the same: open it for writing only)",
         ));
     }
     // A duplicate of descriptor 1 as a plain file: the standard library's own handle treats a
