@@ -16,19 +16,6 @@ pub struct StringFlags {
     off_target: bool,
 }
 
-/// The plan's name of each selector flag, in the order reports list them.
-const NAMES: [(Warnings, &str); 9] = [
-    (Warnings::STRESS_CAUTION, "stress_caution"),
-    (Warnings::STRESS_DANGER, "stress_danger"),
-    (Warnings::THINNER_THAN_CATALOG, "thinner_than_catalog"),
-    (Warnings::THICKER_THAN_CATALOG, "thicker_than_catalog"),
-    (Warnings::WIDER_THAN_SLOT, "wider_than_slot"),
-    (Warnings::BELOW_WINDOW, "below_window"),
-    (Warnings::ABOVE_WINDOW, "above_window"),
-    (Warnings::NONE_WITHIN_TOLERANCE, "none_within_tolerance"),
-    (Warnings::STRENGTH_UNKNOWN, "strength_unknown"),
-];
-
 /// The name of the flag that is not the selector's.
 const OFF_TARGET: &str = "off_target";
 
@@ -48,10 +35,8 @@ impl StringFlags {
 
     /// The names of the set flags (`stress_caution`, …, `off_target` last), in a fixed order.
     pub fn names(&self) -> impl Iterator<Item = &'static str> + '_ {
-        NAMES
-            .iter()
-            .filter(|(flag, _)| self.warnings.contains(*flag))
-            .map(|(_, name)| *name)
+        self.warnings
+            .plan_names()
             .chain(self.off_target.then_some(OFF_TARGET))
     }
 
@@ -93,11 +78,11 @@ impl<'de> Deserialize<'de> for StringFlags {
                 while let Some(name) = list.next_element::<std::borrow::Cow<'de, str>>()? {
                     if name == OFF_TARGET {
                         flags.off_target = true;
-                    } else if let Some((flag, _)) = NAMES.iter().find(|(_, known)| *known == name) {
-                        flags.warnings.insert(*flag);
+                    } else if let Some(flag) = Warnings::from_plan_name(&name) {
+                        flags.warnings.insert(flag);
                     } else {
-                        let mut known: Vec<&str> = NAMES.iter().map(|(_, known)| *known).collect();
-                        known.push(OFF_TARGET);
+                        let known: Vec<&str> =
+                            Warnings::every_plan_name().chain([OFF_TARGET]).collect();
                         return Err(de::Error::custom(format!(
                             "unknown flag `{name}`; known flags: {}",
                             known.join(", ")
@@ -118,9 +103,10 @@ mod tests {
     #[test]
     fn names_follow_the_selector_and_read_back() {
         // Each plan name is the selector's own name in snake_case, in the selector's order.
-        let every = NAMES
-            .iter()
-            .fold(Warnings::NONE, |all, (flag, _)| all.union(*flag));
+        let every = Warnings::every_plan_name()
+            .filter_map(Warnings::from_plan_name)
+            .fold(Warnings::NONE, Warnings::union);
+        assert_eq!(every.names().count(), 9);
         let selector: Vec<String> = every.names().map(|name| name.replace('-', "_")).collect();
         let flags = StringFlags::new(every, true);
         let ours: Vec<&str> = flags.names().collect();

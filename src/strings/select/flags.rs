@@ -29,16 +29,38 @@ impl Warnings {
     /// The breaking strength is unknown (a measured string without a material).
     pub const STRENGTH_UNKNOWN: Warnings = Warnings(1 << 8);
 
-    const NAMES: [(Warnings, &'static str); 9] = [
-        (Warnings::STRESS_CAUTION, "stress-caution"),
-        (Warnings::STRESS_DANGER, "stress-danger"),
-        (Warnings::THINNER_THAN_CATALOG, "thinner-than-catalog"),
-        (Warnings::THICKER_THAN_CATALOG, "thicker-than-catalog"),
-        (Warnings::WIDER_THAN_SLOT, "wider-than-slot"),
-        (Warnings::BELOW_WINDOW, "below-window"),
-        (Warnings::ABOVE_WINDOW, "above-window"),
-        (Warnings::NONE_WITHIN_TOLERANCE, "none-within-tolerance"),
-        (Warnings::STRENGTH_UNKNOWN, "strength-unknown"),
+    /// Each flag with its stable name and the name plans give it (snake_case, as their other
+    /// field names), in the order reports list them.
+    const NAMES: [(Warnings, &'static str, &'static str); 9] = [
+        (Warnings::STRESS_CAUTION, "stress-caution", "stress_caution"),
+        (Warnings::STRESS_DANGER, "stress-danger", "stress_danger"),
+        (
+            Warnings::THINNER_THAN_CATALOG,
+            "thinner-than-catalog",
+            "thinner_than_catalog",
+        ),
+        (
+            Warnings::THICKER_THAN_CATALOG,
+            "thicker-than-catalog",
+            "thicker_than_catalog",
+        ),
+        (
+            Warnings::WIDER_THAN_SLOT,
+            "wider-than-slot",
+            "wider_than_slot",
+        ),
+        (Warnings::BELOW_WINDOW, "below-window", "below_window"),
+        (Warnings::ABOVE_WINDOW, "above-window", "above_window"),
+        (
+            Warnings::NONE_WITHIN_TOLERANCE,
+            "none-within-tolerance",
+            "none_within_tolerance",
+        ),
+        (
+            Warnings::STRENGTH_UNKNOWN,
+            "strength-unknown",
+            "strength_unknown",
+        ),
     ];
 
     /// Whether every flag of `other` is set.
@@ -75,7 +97,28 @@ impl Warnings {
     pub fn names(self) -> impl Iterator<Item = &'static str> {
         Warnings::NAMES
             .into_iter()
-            .filter(move |(flag, _)| self.contains(*flag))
-            .map(|(_, name)| name)
+            .filter(move |(flag, _, _)| self.contains(*flag))
+            .map(|(_, name, _)| name)
+    }
+
+    /// The names plans give the set flags, e.g. `stress_caution`, in the same order.
+    pub fn plan_names(self) -> impl Iterator<Item = &'static str> {
+        Warnings::NAMES
+            .into_iter()
+            .filter(move |(flag, _, _)| self.contains(*flag))
+            .map(|(_, _, name)| name)
+    }
+
+    /// The flag a plan names `name` (`stress_caution`, …), if any.
+    pub fn from_plan_name(name: &str) -> Option<Warnings> {
+        Warnings::NAMES
+            .into_iter()
+            .find(|(_, _, plan_name)| *plan_name == name)
+            .map(|(flag, _, _)| flag)
+    }
+
+    /// Every plan name, in order.
+    pub fn every_plan_name() -> impl Iterator<Item = &'static str> {
+        Warnings::NAMES.into_iter().map(|(_, _, name)| name)
     }
 }
