@@ -149,7 +149,7 @@ fn standard_output() -> io::Result<File> {
         // Python's `subprocess.DEVNULL` and Node's `'ignore'` open it (measured: the same
         // `/proc/self/fdinfo/1` flags as the runtime's reopening), so say how to avoid it.
         return Err(io::Error::other(
-            "standard output is closed; give `-o FILE` or redirect it (a /dev/null opened for reading and writing, as Python's `subprocess.DEVNULL` and Node's `'ignore'` give, looks the same: open it for writing only)",
+            "standard output is closed; give `-o FILE` or redirect it\n  help: a read-write /dev/null (Python's `subprocess.DEVNULL`) looks closed too: give `-o /dev/null`",
         ));
     }
     // A duplicate of descriptor 1 as a plain file: the standard library's own handle treats a
