@@ -117,7 +117,7 @@ impl<'de, S: FromStr<Err = Error> + Expecting> Deserialize<'de> for Wrapped<S> {
     }
 }
 
-/// [`scalar`] for an optional field (use with `#[serde(default)]`).
+/// `scalar` for an optional field (use with `#[serde(default)]`).
 pub fn optional_scalar<'de, D, S>(deserializer: D) -> Result<Option<S>, D::Error>
 where
     D: Deserializer<'de>,

@@ -9,7 +9,7 @@
 //! {mass: 1.43g, length: 900mm, diameter: 1.1mm}                        # weighed: μ = m/l
 //! ```
 //!
-//! Reading checks each key's value where the line is known; [`check_entry`] checks the
+//! Reading checks each key's value where the line is known; `check_entry` checks the
 //! combination and the ids against the kinds and materials in stock.
 
 use std::fmt::Write as _;
@@ -53,7 +53,7 @@ where
 }
 
 /// One string as written (in a set, a layout or an instrument file): every key optional here, the valid combinations checked in
-/// [`check_form`] and [`check_entry`] by whoever read it, where the line can still be found.
+/// `check_form` and `check_entry` by whoever read it, where the line can still be found.
 #[derive(Debug, Clone, PartialEq, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct StringEntryFile {
