@@ -151,7 +151,7 @@ pub fn plan(plan: &Plan, windows: &[Option<(f64, f64)>]) -> Vec<Named> {
             let point = Point::at(x, choice.diameter_mm);
             match by_construction
                 .iter_mut()
-                .find(|(name, _)| *name == choice.construction.as_str())
+                .find(|(name, _)| *name == *choice.construction)
             {
                 Some((_, points)) => points.push(point),
                 None => by_construction.push((choice.construction.to_string(), vec![point])),

@@ -258,7 +258,7 @@ fn attach_fixes(plan: &mut Plan) {
         .iter()
         .flat_map(|course| {
             course.strings.iter().enumerate().map(|(index, string)| {
-                let build = match string.choice.construction.as_str() {
+                let build = match &*string.choice.construction {
                     "plain" => Build::Plain,
                     "wound" => Build::Wound,
                     _ => Build::Unknown,

@@ -7,16 +7,16 @@
 mod flags;
 pub mod remedy;
 pub mod several;
-mod shared;
 pub mod solve;
 pub mod warning;
+
+use std::sync::Arc;
 
 use serde::{Deserialize, Serialize};
 
 use crate::plan::warning::{Severity, Warning};
 pub use crate::tuning::course_pitch::CoursePitch;
 pub use flags::StringFlags;
-pub use shared::SharedText;
 
 /// A solved instrument.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -84,16 +84,18 @@ pub struct StringPlan {
 }
 
 /// A catalog string at this string's pitch and length: what it is and how it behaves there.
+/// Its words (kind, construction, material, gauge) are shared with every other string of the
+/// plan that repeats them, so describing a string copies pointers instead of allocating.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct StringChoice {
     /// Id of the string kind (construction, materials and catalog).
-    pub kind: SharedText,
+    pub kind: Arc<str>,
     /// `plain` or `wound` (or the kind's own construction name).
-    pub construction: SharedText,
+    pub construction: Arc<str>,
     /// Material in words, e.g. `carbon steel` or `phosphor bronze on steel`.
-    pub material: SharedText,
+    pub material: Arc<str>,
     /// The catalog's name for this gauge, e.g. `0.010 in` or `0.80 mm`.
-    pub gauge: SharedText,
+    pub gauge: Arc<str>,
     /// Outer diameter in millimetres.
     pub diameter_mm: f64,
     /// Outer diameter in inches.

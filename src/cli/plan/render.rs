@@ -144,7 +144,7 @@ pub fn table(plan: &Plan, view: &View) -> String {
             course
                 .strings
                 .iter()
-                .map(|s| (s.choice.diameter_mm, s.choice.construction == "wound"))
+                .map(|s| (s.choice.diameter_mm, &*s.choice.construction == "wound"))
                 .collect()
         })
         .collect();

@@ -3,10 +3,11 @@
 //! them, so describing a string allocates nothing once its kind and gauge have been seen.
 
 use std::cell::RefCell;
+use std::sync::Arc;
 
 #[allow(unused_imports)]
 use super::*;
-use crate::plan::{SharedText, StringFlags};
+use crate::plan::StringFlags;
 
 /// The words of each kind and gauge met so far in one solve.
 #[derive(Default)]
@@ -17,11 +18,11 @@ pub(crate) struct PlanWords {
 
 /// One kind's words, and the labels of those of its gauges met so far.
 struct KindWords {
-    id: SharedText,
-    construction: SharedText,
-    material: SharedText,
+    id: Arc<str>,
+    construction: Arc<str>,
+    material: Arc<str>,
     /// By gauge index: the diameter's bits and its label.
-    gauges: Vec<Option<(u64, SharedText)>>,
+    gauges: Vec<Option<(u64, Arc<str>)>>,
 }
 
 impl PlanWords {
@@ -62,7 +63,7 @@ impl PlanWords {
         kind: &StringKind,
         gauge: usize,
         diameter: f64,
-    ) -> (SharedText, SharedText, SharedText, SharedText) {
+    ) -> (Arc<str>, Arc<str>, Arc<str>, Arc<str>) {
         let mut kinds = self.kinds.borrow_mut();
         let address = std::ptr::from_ref(kind) as usize;
         let position = match kinds.iter().position(|(at, _)| *at == address) {
@@ -72,9 +73,9 @@ impl PlanWords {
                 kinds.push((
                     address,
                     KindWords {
-                        id: SharedText::from(kind.id.as_str()),
-                        construction: SharedText::from(construction),
-                        material: SharedText::from(material),
+                        id: Arc::from(kind.id.as_str()),
+                        construction: Arc::from(construction),
+                        material: Arc::from(material),
                         gauges: vec![None; kind.gauges().len()],
                     },
                 ));
@@ -86,12 +87,12 @@ impl PlanWords {
         let label = match words.gauges.get_mut(gauge) {
             Some(Some((seen, label))) if *seen == bits => label.clone(),
             Some(slot) => {
-                let label = SharedText::from(gauge_label(diameter));
+                let label: Arc<str> = Arc::from(gauge_label(diameter));
                 *slot = Some((bits, label.clone()));
                 label
             }
             // Not a catalog step (a measured string): written each time.
-            None => SharedText::from(gauge_label(diameter)),
+            None => Arc::from(gauge_label(diameter)),
         };
         (
             words.id.clone(),
