@@ -42,14 +42,7 @@ impl StringFlags {
 
     /// The names joined with `separator`.
     pub fn join(&self, separator: &str) -> String {
-        let mut text = String::new();
-        for (index, name) in self.names().enumerate() {
-            if index > 0 {
-                text.push_str(separator);
-            }
-            text.push_str(name);
-        }
-        text
+        self.names().collect::<Vec<_>>().join(separator)
     }
 }
 

@@ -93,20 +93,21 @@ impl Warnings {
         self.0
     }
 
-    /// Stable names of the set flags, e.g. `stress-caution`, in a fixed order.
-    pub fn names(self) -> impl Iterator<Item = &'static str> {
+    /// The table's entries of the set flags, in order.
+    fn set_entries(self) -> impl Iterator<Item = (Warnings, &'static str, &'static str)> {
         Warnings::NAMES
             .into_iter()
             .filter(move |(flag, _, _)| self.contains(*flag))
-            .map(|(_, name, _)| name)
+    }
+
+    /// Stable names of the set flags, e.g. `stress-caution`, in a fixed order.
+    pub fn names(self) -> impl Iterator<Item = &'static str> {
+        self.set_entries().map(|(_, name, _)| name)
     }
 
     /// The names plans give the set flags, e.g. `stress_caution`, in the same order.
     pub fn plan_names(self) -> impl Iterator<Item = &'static str> {
-        Warnings::NAMES
-            .into_iter()
-            .filter(move |(flag, _, _)| self.contains(*flag))
-            .map(|(_, _, name)| name)
+        self.set_entries().map(|(_, _, name)| name)
     }
 
     /// The flag a plan names `name` (`stress_caution`, …), if any.
