@@ -6,7 +6,7 @@
 //! serde_json reads the same data in tens of microseconds. Converting once here keeps the YAML
 //! as the one source and makes loading the shipped stock nearly free. The runtime side is
 //! `src/input/shipped.rs`; it runs the same validation as for user files, and a test
-//! (`tests/strings_data.rs`) checks that reading the YAML and reading this JSON give identical
+//! (`tests/it/strings_data.rs`) checks that reading the YAML and reading this JSON give identical
 //! materials, catalogs and kinds.
 //!
 //! Only the syntax is converted here (YAML values to the same JSON values); every check of the

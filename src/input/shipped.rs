@@ -6,7 +6,7 @@
 //! value in JSON once, at build time; [`parse`] reads that JSON with serde_json in tens of
 //! microseconds into the very structs a user's YAML file is read into, and the callers then run
 //! the same checks as for a user's file. The YAML stays the one source people edit, and
-//! `tests/strings_data.rs` checks that both readings give identical data.
+//! `tests/it/strings_data.rs` checks that both readings give identical data.
 //!
 //! Every user file is still read as YAML through [`crate::input::yaml`]; this module is the only
 //! other reader of definition data, so the JSON crate, like the YAML one, is named in one place.
