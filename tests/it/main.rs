@@ -46,3 +46,4 @@ mod tuning_output;
 mod tuning_properties;
 mod tuning_reference_values;
 mod tuning_show;
+mod table_snapshots;
