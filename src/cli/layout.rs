@@ -1,5 +1,5 @@
-//! The one look of every report: a title, a table of plain columns under a rule, and notes
-//! wrapped to the terminal's width.
+//! The one look of every report: a title, a table of plain columns under a rule (drawn by
+//! comfy-table with the house preset), and notes wrapped to the terminal's width.
 //!
 //! Width: `COLUMNS` when set, else the terminal's width, else 100 columns (a file or a pipe).
 //! A table that is wider than that first shortens its flexible columns (names, with `…`), then
@@ -29,9 +29,14 @@ pub fn width() -> usize {
     }
 }
 
-/// Characters a text takes on screen (every character the reports use is one cell wide).
+/// Columns a text takes on screen: its display width, so a wide (CJK) character counts two
+/// and a combining mark none, as a terminal and comfy-table count them.
 pub fn cells(text: &str) -> usize {
-    text.chars().count()
+    if text.is_ascii() {
+        text.len()
+    } else {
+        unicode_width::UnicodeWidthStr::width(text)
+    }
 }
 
 /// How a column gives way when the table is too wide.
@@ -78,41 +83,24 @@ impl Column {
     }
 }
 
-/// A table: columns and rows of text.
+/// A table: columns and rows of text, drawn by comfy-table in the house look.
 #[derive(Debug, Clone, Default)]
 pub struct Grid {
     columns: Vec<Column>,
     rows: Vec<Vec<String>>,
 }
 
-/// The gap between columns.
-const GAP: &str = "  ";
+/// The blank between two columns.
+const GAP: usize = 2;
 
-/// Writes `text` in a cell `width` characters wide, given that it takes `text_cells`: whole when
-/// it fits, else cut and ended with `…`.
-fn push_cell(out: &mut String, text: &str, text_cells: usize, width: usize) {
-    if text_cells <= width {
-        out.push_str(text);
-    } else if width > 0 {
-        let cut = text
-            .char_indices()
-            .nth(width - 1)
-            .map_or(text.len(), |(index, _)| index);
-        out.push_str(&text[..cut]);
-        out.push('…');
-    }
-}
+/// The house look as a comfy-table preset, one character per `TableComponent` in its order:
+/// no borders and no lines between columns, only the rule under the header (`HeaderLines`).
+const HOUSE_PRESET: &str = "     ─             ";
 
-/// Writes `count` spaces.
-fn push_spaces(out: &mut String, count: usize) {
-    out.extend(std::iter::repeat_n(' ', count));
-}
-
-/// Ends the line that starts at `line_start` in `out`: trailing blanks go, a newline follows.
-fn end_line(out: &mut String, line_start: usize) {
-    let kept = out[line_start..].trim_end().len();
-    out.truncate(line_start + kept);
-    out.push('\n');
+/// Which columns a table shows, and how wide each is, to fit a width.
+struct Fit {
+    widths: Vec<usize>,
+    shown: Vec<bool>,
 }
 
 impl Grid {
@@ -140,18 +128,25 @@ impl Grid {
     /// [`Grid::render`], appending the table to `out`; returns the headers of the columns left
     /// out.
     pub fn render_into(&self, out: &mut String, width: usize) -> Vec<String> {
+        let fit = self.fit(width);
+        self.draw(out, &fit);
+        (0..self.columns.len())
+            .filter(|&i| !fit.shown[i])
+            .map(|i| self.columns[i].header.clone())
+            .collect()
+    }
+
+    /// The widths that fit `width`: the part comfy-table cannot decide, since it knows neither
+    /// which columns a report needs least nor how short a name may become before a column should
+    /// rather go.
+    fn fit(&self, width: usize) -> Fit {
         let count = self.columns.len();
-        // Every cell is counted once; laying out and writing the rows reuse the counts.
-        let header_cells: Vec<usize> = self.columns.iter().map(|c| cells(&c.header)).collect();
-        // Row after row, `count` cells each (`row` makes every row that long).
-        let row_cells: Vec<usize> = self.rows.iter().flatten().map(|text| cells(text)).collect();
-        let mut widths = header_cells.clone();
-        for counts in row_cells.chunks_exact(count.max(1)) {
-            for (widest, &cell) in widths.iter_mut().zip(counts) {
-                *widest = (*widest).max(cell);
+        let mut natural: Vec<usize> = self.columns.iter().map(|c| cells(&c.header)).collect();
+        for row in &self.rows {
+            for (widest, text) in natural.iter_mut().zip(row) {
+                *widest = (*widest).max(cells(text));
             }
         }
-        let mut shown = vec![true; count];
         let total = |widths: &[usize], shown: &[bool]| {
             let (sum, visible) = widths
                 .iter()
@@ -160,11 +155,10 @@ impl Grid {
                 .fold((0, 0), |(sum, visible), (&width, _)| {
                     (sum + width, visible + 1)
                 });
-            sum + GAP.len() * usize::saturating_sub(visible, 1)
+            sum + GAP * usize::saturating_sub(visible, 1)
         };
         // Leave out as few columns as lets the flexible ones keep most of their width; if
         // none does, as few as lets them fit at all.
-        let natural = widths.clone();
         let mut droppable: Vec<(u8, usize)> = (0..count)
             .filter_map(|i| match self.columns[i].give {
                 Give::Drop(rank) => Some((rank, i)),
@@ -195,68 +189,81 @@ impl Grid {
                     None => break,
                 }
             }
-            (total(&widths, &shown) <= width).then_some((widths, shown))
+            (total(&widths, &shown) <= width).then_some(Fit { widths, shown })
         };
-        let chosen = (0..=droppable.len())
+        let mut fit = (0..=droppable.len())
             .find_map(|dropped| attempt(dropped, true))
-            .or_else(|| (0..=droppable.len()).find_map(|dropped| attempt(dropped, false)));
-        if let Some((fitted, visible)) = chosen {
-            widths = fitted;
-            shown = visible;
-        } else {
-            for &(_, i) in &droppable {
-                shown[i] = false;
-            }
-        }
+            .or_else(|| (0..=droppable.len()).find_map(|dropped| attempt(dropped, false)))
+            .unwrap_or_else(|| {
+                let mut shown = vec![true; count];
+                for &(_, i) in &droppable {
+                    shown[i] = false;
+                }
+                Fit {
+                    widths: natural.clone(),
+                    shown,
+                }
+            });
         // Last resort: shorten the widest column, whatever it is.
-        while total(&widths, &shown) > width {
+        while total(&fit.widths, &fit.shown) > width {
             let widest = (0..count)
-                .filter(|&i| shown[i] && widths[i] > 3)
-                .max_by_key(|&i| widths[i]);
+                .filter(|&i| fit.shown[i] && fit.widths[i] > 3)
+                .max_by_key(|&i| fit.widths[i]);
             match widest {
-                Some(i) => widths[i] -= 1,
+                Some(i) => fit.widths[i] -= 1,
                 None => break,
             }
         }
-        let visible: Vec<usize> = (0..count).filter(|&i| shown[i]).collect();
-        let line_width = total(&widths, &shown);
-        let text_bytes: usize = self.rows.iter().flatten().map(String::len).sum();
-        // Room for every cell, its padding and the rule ('─' takes three bytes).
-        out.reserve(text_bytes + (self.rows.len() + 1) * (line_width + 1) + 3 * line_width + 1);
-        let line = |out: &mut String, texts: &[&str], counts: &[usize]| {
-            let line_start = out.len();
-            for (position, &i) in visible.iter().enumerate() {
-                let pad = widths[i].saturating_sub(counts[i]);
-                if position > 0 {
-                    out.push_str(GAP);
-                }
-                if self.columns[i].right {
-                    push_spaces(out, pad);
-                    push_cell(out, texts[i], counts[i], widths[i]);
-                } else {
-                    push_cell(out, texts[i], counts[i], widths[i]);
-                    if position + 1 < visible.len() {
-                        push_spaces(out, pad);
-                    }
-                }
-            }
-            end_line(out, line_start);
+        fit
+    }
+
+    /// Draws the table with comfy-table at the fitted widths: a cell too wide for its column
+    /// keeps one line, cut and ended with `…`.
+    fn draw(&self, out: &mut String, fit: &Fit) {
+        use comfy_table::{
+            Cell, CellAlignment, ColumnConstraint, ContentArrangement, Row, Table, Width,
         };
-        let headers: Vec<&str> = self.columns.iter().map(|c| c.header.as_str()).collect();
-        line(out, &headers, &header_cells);
-        out.extend(std::iter::repeat_n('─', line_width));
-        out.push('\n');
-        let mut texts: Vec<&str> = Vec::with_capacity(count);
-        for (index, row) in self.rows.iter().enumerate() {
-            let counts = &row_cells[index * count..(index + 1) * count];
-            texts.clear();
-            texts.extend(row.iter().map(String::as_str));
-            line(out, &texts, counts);
+        // A character no cell holds, so a long cell is cut where the width ends rather than at
+        // its last space.
+        const NEVER_SPLIT: char = '\u{0}';
+        let row = |texts: &[String]| {
+            let mut row = Row::from(texts.iter().map(|text| Cell::new(text.as_str())));
+            row.max_height(1);
+            row
+        };
+        let mut table = Table::new();
+        table
+            .load_preset(HOUSE_PRESET)
+            .set_content_arrangement(ContentArrangement::Disabled)
+            .set_truncation_indicator("…")
+            .set_delimiter(NEVER_SPLIT);
+        let headers: Vec<String> = self.columns.iter().map(|c| c.header.clone()).collect();
+        table.set_header(row(&headers));
+        for cells in &self.rows {
+            table.add_row(row(cells));
         }
-        (0..count)
-            .filter(|&i| !shown[i])
-            .map(|i| self.columns[i].header.clone())
-            .collect()
+        let mut first_shown = true;
+        for (index, column) in table.column_iter_mut().enumerate() {
+            if !fit.shown[index] {
+                column.set_constraint(ColumnConstraint::Hidden);
+                continue;
+            }
+            let gap = if first_shown { 0 } else { GAP as u16 };
+            first_shown = false;
+            let content = u16::try_from(fit.widths[index]).unwrap_or(u16::MAX);
+            column
+                .set_padding((gap, 0))
+                .set_constraint(ColumnConstraint::Absolute(Width::Fixed(content + gap)))
+                .set_cell_alignment(if self.columns[index].right {
+                    CellAlignment::Right
+                } else {
+                    CellAlignment::Left
+                });
+        }
+        for line in table.lines() {
+            out.push_str(line.trim_end());
+            out.push('\n');
+        }
     }
 }
 

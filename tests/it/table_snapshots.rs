@@ -10,17 +10,39 @@ const COMMANDS: &[(&str, &[&str])] = &[
     ("plan_lever_harp", &["plan", "lever-harp-34"]),
     (
         "plan_psaltery_31edo_kgf",
-        &["plan", "psaltery-26", "--tuning", "31edo", "--tension", "80N", "--force-unit", "kgf"],
+        &[
+            "plan",
+            "psaltery-26",
+            "--tuning",
+            "31edo",
+            "--tension",
+            "80N",
+            "--force-unit",
+            "kgf",
+        ],
     ),
     (
         "plan_alternatives",
         &["plan", "examples/steel-guitar-12edo.yaml", "--alternatives"],
     ),
-    ("plan_kept_strings", &["plan", "examples/guitar-kept-strings.yaml"]),
-    ("plan_three_tunings", &["plan", "examples/guitar-three-tunings.yaml"]),
+    (
+        "plan_kept_strings",
+        &["plan", "examples/guitar-kept-strings.yaml"],
+    ),
+    (
+        "plan_three_tunings",
+        &["plan", "examples/guitar-three-tunings.yaml"],
+    ),
     (
         "plan_two_references",
-        &["plan", "steel-guitar-12edo", "--tuning", "12edo", "--tuning", "12edo@A4=587.33hz"],
+        &[
+            "plan",
+            "steel-guitar-12edo",
+            "--tuning",
+            "12edo",
+            "--tuning",
+            "12edo@A4=587.33hz",
+        ],
     ),
     (
         "audit_retune",
@@ -72,23 +94,55 @@ const COMMANDS: &[(&str, &[&str])] = &[
             "bend",
         ],
     ),
-    ("lengths_psaltery", &["lengths", "examples/psaltery-layout.yaml"]),
-    ("lengths_zither_pairs", &["lengths", "examples/zither-pairs-layout.yaml"]),
-    ("frets_guitar_19edo", &["frets", "guitar-19edo", "--up-to", "200mm"]),
+    (
+        "lengths_psaltery",
+        &["lengths", "examples/psaltery-layout.yaml"],
+    ),
+    (
+        "lengths_zither_pairs",
+        &["lengths", "examples/zither-pairs-layout.yaml"],
+    ),
+    (
+        "frets_guitar_19edo",
+        &["frets", "guitar-19edo", "--up-to", "200mm"],
+    ),
     (
         "frets_fanned_merged",
-        &["frets", "fanned-8-just", "--count", "4", "--merge-within", "22c"],
+        &[
+            "frets",
+            "fanned-8-just",
+            "--count",
+            "4",
+            "--merge-within",
+            "22c",
+        ],
     ),
     (
         "survey_fourths",
-        &["survey", "examples/fanned-8-fourths.yaml", "examples/survey-fourths.yaml"],
+        &[
+            "survey",
+            "examples/fanned-8-fourths.yaml",
+            "examples/survey-fourths.yaml",
+        ],
     ),
     ("tuning_show", &["tuning", "show", "19edo", "--to", "4"]),
     ("tuning_fit", &["tuning", "fit", "12edo", "--limit", "5"]),
-    ("tuning_compare", &["tuning", "compare", "12edo", "just-5-limit", "--to", "4"]),
+    (
+        "tuning_compare",
+        &["tuning", "compare", "12edo", "just-5-limit", "--to", "4"],
+    ),
     (
         "tuning_find",
-        &["tuning", "find", "31edo@A4=415", "A4", "~E2", "deg-8", "deg3p1", "5/4"],
+        &[
+            "tuning",
+            "find",
+            "31edo@A4=415",
+            "A4",
+            "~E2",
+            "deg-8",
+            "deg3p1",
+            "5/4",
+        ],
     ),
     ("tuning_list", &["tuning", "list"]),
 ];
@@ -100,9 +154,11 @@ fn without_timing(report: &str) -> String {
     while let Some(start) = rest.find("checks in ") {
         let after = start + "checks in ".len();
         out.push_str(&rest[..after]);
-        let figures = rest[after..]
-            .find(" s")
-            .filter(|&end| rest[after..after + end].chars().all(|c| c.is_ascii_digit() || c == '.'));
+        let figures = rest[after..].find(" s").filter(|&end| {
+            rest[after..after + end]
+                .chars()
+                .all(|c| c.is_ascii_digit() || c == '.')
+        });
         match figures {
             Some(end) => {
                 out.push_str("[time]");

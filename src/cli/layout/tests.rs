@@ -165,3 +165,28 @@ fn a_wide_table_shortens_then_drops_columns() {
     let (tiny, _) = grid.render(20);
     assert!(widest(&tiny) <= 20, "{tiny}");
 }
+
+#[test]
+fn wide_characters_count_as_two_columns() {
+    let mut grid = Grid::new(vec![
+        Column::text("tuning").give(Give::Shorten(4)),
+        Column::figure("offset"),
+    ]);
+    grid.row(vec!["十二平均律の変奏".into(), "-535.2c".into()]);
+    let (full, _) = grid.render(100);
+    // 16 columns of name, the gap, then the figure right-aligned under its header.
+    assert_eq!(
+        full.lines().nth(2),
+        Some("十二平均律の変奏  -535.2c"),
+        "{full}"
+    );
+    let (narrow, hidden) = grid.render(20);
+    assert!(hidden.is_empty());
+    for line in narrow.lines() {
+        assert!(cells(line) <= 20, "{line:?} takes {} columns", cells(line));
+    }
+    assert!(
+        narrow.contains('…') && narrow.contains("-535.2c"),
+        "{narrow}"
+    );
+}

@@ -144,3 +144,10 @@ fn words(text: &str) -> impl Iterator<Item = (Range<usize>, usize)> + '_ {
 pub fn paragraph(text: &str, width: usize) -> String {
     wrap(text, width, "", "")
 }
+
+/// Ends the line that starts at `line_start` in `out`: trailing blanks go, a newline follows.
+fn end_line(out: &mut String, line_start: usize) {
+    let kept = out[line_start..].trim_end().len();
+    out.truncate(line_start + kept);
+    out.push('\n');
+}
