@@ -19,14 +19,14 @@ use taut::plan::remedy::{self, Build};
 use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
 use taut::strings::stock::Stock;
 
-use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
+use super::layout::{paragraph, wrap, Column, Give};
 use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
-    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
-    force_with_unit, length, maybe, share_of_rated, stress_bar, user, warnings_and_cautions,
+    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, force, force_with_unit,
+    maybe, stress_bar, user,
 };
 use taut::plan::solve::tuning_for;
 

@@ -15,15 +15,14 @@ use taut::plan::remedy::{self, Build};
 use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
 use taut::strings::stock::Stock;
 
-use super::layout::{hidden_note, paragraph, Column, Give, Grid};
+use super::layout::{paragraph, Column, Give};
 use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
-    build_of_kind, change, diameter, diameter_symbol, feel_legend, force, force_with_unit,
-    gauge_line, length, maybe, pitch_with_note, share_of_rated, status, stress_bar, user,
-    warnings_and_cautions,
+    build_of_kind, change, diameter, diameter_symbol, force, force_with_unit, gauge_line, length,
+    maybe, pitch_with_note, status, stress_bar, user,
 };
 use taut::plan::solve::tuning_for;
 

@@ -14,15 +14,15 @@ use super::audit::FeelArgs;
 use taut::plan::remedy::{self, Build};
 use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
 
-use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
+use super::layout::{paragraph, wrap, Column, Give};
 use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
 use super::stock::StockArgs;
 use super::text::{
-    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_legend, force,
-    force_with_unit, gauge_line, length, maybe, share_of_rated, status, stress_bar, user,
-    warnings_and_cautions,
+    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_columns, force,
+    force_with_unit, gauge_line, length, maybe, push_closing, status, stress_bar, total_sentence,
+    user, warning_kinds, Lead, StringReport,
 };
 
 /// Arguments of `taut lengths`.
@@ -139,10 +139,6 @@ pub fn run(args: LengthsArgs) -> Result<()> {
 impl Render for Layout {
     fn table(&self, view: &View) -> String {
         let mut columns = vec![
-            Column::figure("#"),
-            Column::text("status"),
-            Column::text("pitch").give(Give::Shorten(8)),
-            Column::figure("Hz").give(Give::Drop(3)),
             Column::text("string").give(Give::Shorten(10)),
             Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
             Column::figure(view.force.symbol()),
@@ -151,13 +147,10 @@ impl Render for Layout {
             Column::text("stress"),
         ];
         if view.wide {
-            columns.extend([
-                Column::figure("B").give(Give::Drop(4)),
-                Column::figure("partials c").give(Give::Drop(5)),
-                Column::figure("bend N").give(Give::Drop(6)),
-            ]);
+            columns.extend(feel_columns(4));
         }
-        let mut grid = Grid::new(columns);
+        // The solved length is this report's own column, beside the step it makes.
+        let mut report = StringReport::new(view, "status", false, columns);
         for course in &self.courses {
             let marked = |kind: JumpKind| {
                 self.jumps
@@ -168,11 +161,8 @@ impl Render for Layout {
                 .warnings
                 .iter()
                 .filter(|w| w.course == Some(course.course));
-            let mut row = vec![
-                course.course.to_string(),
-                status(course_warnings).to_string(),
-                course_pitch_text(&course.pitch),
-                format!("{:.2}", course.pitch.hz),
+            let pitch = course_pitch_text(&course.pitch);
+            let mut own = vec![
                 user(&course.string).into_owned(),
                 maybe(course.diameter_mm, |d| diameter(d, view.length)),
                 force(course.tension_n, view.force),
@@ -193,31 +183,45 @@ impl Render for Layout {
                 stress_bar(course.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
             ];
             if view.wide {
-                row.extend(feel::cells(&course.feel));
+                own.extend(feel::cells(&course.feel));
             }
-            grid.row(row);
+            let lead = Lead {
+                course: course.course,
+                first: true,
+                status: status(course_warnings),
+                pitch: &pitch,
+                interval: "",
+                hz: course.pitch.hz,
+                length_m: course.length_m,
+            };
+            report.row(lead, own);
             for other in &course.other_strings {
-                grid.row(vec![
-                    String::new(),
-                    String::new(),
-                    format!("  {}", other.interval),
-                    format!("{:.2}", other.pitch_hz),
-                    user(&other.string).into_owned(),
-                    maybe(other.diameter_mm, |d| diameter(d, view.length)),
-                    force(other.tension_n, view.force),
-                    String::new(),
-                    String::new(),
-                    stress_bar(other.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
-                ]);
+                let lead = Lead {
+                    first: false,
+                    status: "",
+                    interval: &other.interval,
+                    hz: other.pitch_hz,
+                    ..lead
+                };
+                report.row(
+                    lead,
+                    [
+                        user(&other.string).into_owned(),
+                        maybe(other.diameter_mm, |d| diameter(d, view.length)),
+                        force(other.tension_n, view.force),
+                        String::new(),
+                        String::new(),
+                        stress_bar(other.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
+                    ],
+                );
             }
         }
-        let mut out = paragraph(
+        let mut out = String::new();
+        report.write(
+            &mut out,
             &format!("{} · tuning {}", user(&self.name), user(&self.tuning)),
-            view.width,
+            None,
         );
-        let (table, hidden) = grid.render(view.width);
-        out.push_str(&table);
-        out.push_str(&hidden_note(&hidden, view.wide, view.width));
         let gauges: Vec<Vec<(f64, bool)>> = self
             .courses
             .iter()
@@ -229,15 +233,30 @@ impl Render for Layout {
             })
             .collect();
         out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
-        out.push_str(&paragraph(
-            &format!(
-                "Total tension {} over {} {} on {} {}{}. Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a step over it). ↶ marks a fold-back: the length moves against the pitch.",
+        let total = total_sentence(
+            format!(
+                "Total tension {} over {} {} on {} {}",
                 force_with_unit(self.total_tension_n, view.force),
                 self.string_count,
-                if self.string_count == 1 { "string" } else { "strings" },
+                if self.string_count == 1 {
+                    "string"
+                } else {
+                    "strings"
+                },
                 self.courses.len(),
-                if self.courses.len() == 1 { "course" } else { "courses" },
-                self.rated_load_n.map_or(String::new(), |rated| format!(", {}", share_of_rated(self.total_tension_n, rated, view.force))),
+                if self.courses.len() == 1 {
+                    "course"
+                } else {
+                    "courses"
+                },
+            ),
+            self.total_tension_n,
+            self.rated_load_n,
+            view,
+        );
+        out.push_str(&paragraph(
+            &format!(
+                "{total} Step: change of √(T/μ) from the previous course (limit ±{:.0}%; ! marks a step over it). ↶ marks a fold-back: the length moves against the pitch.",
                 self.max_step * 100.0
             ),
             view.width,
@@ -250,20 +269,18 @@ impl Render for Layout {
                 out.push_str(&wrap(&user(&jump.message), view.width, "  ", "  "));
             }
         }
-        if view.wide {
-            out.push_str(&feel_legend(
-                self.courses
-                    .first()
-                    .map_or(feel::DEFAULT_BEND_CENTS, |c| c.feel.bend_cents),
-                view,
-            ));
-        }
-        out.push_str(&warnings_and_cautions(
+        let bend_cents = self
+            .courses
+            .first()
+            .map_or(feel::DEFAULT_BEND_CENTS, |c| c.feel.bend_cents);
+        push_closing(
+            &mut out,
+            Some(bend_cents),
             &self.warnings,
             &[],
             &self.cautions,
             view,
-        ));
+        );
         out
     }
 
@@ -283,13 +300,11 @@ impl Render for Layout {
             stress_ratio: sig_opt(course.stress_ratio),
             break_pitch_hz: sig_opt(course.break_pitch_hz),
             inharmonicity: sig_opt(course.feel.inharmonicity_b),
-            warnings: self
-                .warnings
-                .iter()
-                .filter(|w| w.course == Some(course.course))
-                .map(|w| w.kind.name())
-                .collect::<Vec<_>>()
-                .join(";"),
+            warnings: warning_kinds(
+                self.warnings
+                    .iter()
+                    .filter(|w| w.course == Some(course.course)),
+            ),
         });
         csv_text(rows)
     }

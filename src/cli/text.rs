@@ -22,10 +22,12 @@ use super::layout::{paragraph, wrap_into, Column, Give};
 use super::output::View;
 
 mod colour;
+mod string_report;
 mod warnings;
 #[allow(unused_imports)]
 use colour::*;
 pub use colour::*;
+pub use string_report::*;
 pub use taut::input::units::fixed;
 use taut::input::units::{push_fixed, push_signed_fixed};
 pub use warnings::*;

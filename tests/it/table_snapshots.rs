@@ -145,6 +145,35 @@ const COMMANDS: &[(&str, &[&str])] = &[
         ],
     ),
     ("tuning_list", &["tuning", "list"]),
+    ("plan_wide", &["plan", "guitar-19edo", "--wide"]),
+    (
+        "audit_wide",
+        &[
+            "audit",
+            "examples/guitar-22edo-mode.yaml",
+            "--set",
+            "examples/steel-guitar-set.yaml",
+            "--from-instrument",
+            "examples/steel-guitar-12edo.yaml",
+            "--wide",
+        ],
+    ),
+    (
+        "convert_wide",
+        &[
+            "convert",
+            "examples/steel-guitar-12edo.yaml",
+            "--set",
+            "examples/steel-guitar-set.yaml",
+            "--to-instrument",
+            "examples/baritone-guitar.yaml",
+            "--wide",
+        ],
+    ),
+    (
+        "lengths_wide",
+        &["lengths", "examples/psaltery-layout.yaml", "--wide"],
+    ),
 ];
 
 /// The survey says how long it took; the snapshot holds the rest.

@@ -2,68 +2,50 @@
 
 #[allow(unused_imports)]
 use super::*;
-use crate::cli::text::{leading_columns, shows_length};
+use crate::cli::text::{
+    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+};
 
 impl Render for Audit {
     fn table(&self, view: &View) -> String {
         let show_length = shows_length(self.courses.iter().map(|c| c.length_m), view);
-        let mut columns = leading_columns("verdict", show_length, view);
-        columns.extend([
+        let mut columns = vec![
             Column::text("string").give(Give::Shorten(10)),
             Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
             Column::figure(view.force.symbol()),
             Column::figure("was").give(Give::Drop(1)),
             Column::figure("change"),
             Column::text("stress"),
-        ]);
+        ];
         if view.wide {
-            columns.extend([
-                Column::figure("B").give(Give::Drop(4)),
-                Column::figure("partials c").give(Give::Drop(5)),
-                Column::figure("bend N").give(Give::Drop(6)),
-            ]);
+            columns.extend(feel_columns(4));
         }
-        let mut grid = Grid::new(columns);
+        let mut report = StringReport::new(view, "verdict", show_length, columns);
         for course in &self.courses {
+            let pitch = course_pitch_text(&course.pitch);
             for (index, string) in course.strings.iter().enumerate() {
                 let first = index == 0;
-                let mut row = vec![
-                    if first {
-                        course.course.to_string()
-                    } else {
-                        String::new()
-                    },
-                    if first {
-                        course.verdict.text().to_string()
-                    } else {
-                        String::new()
-                    },
-                    if first {
-                        course_pitch_text(&course.pitch)
-                    } else {
-                        format!("  {}", string.interval)
-                    },
-                    format!("{:.2}", string.pitch_hz),
-                ];
-                if show_length {
-                    row.push(if first {
-                        length(course.length_m, view.length)
-                    } else {
-                        String::new()
-                    });
-                }
-                row.extend([
+                let mut own = vec![
                     user(&string.string).into_owned(),
                     maybe(string.diameter_mm, |d| diameter(d, view.length)),
                     force(string.tension_n, view.force),
                     maybe(string.reference_tension_n, |t| force(t, view.force)),
                     maybe(string.tension_change_pct, |c| change(c, 0)),
                     stress_bar(string.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
-                ]);
+                ];
                 if view.wide {
-                    row.extend(feel::cells(&string.feel));
+                    own.extend(feel::cells(&string.feel));
                 }
-                grid.row(row);
+                let lead = Lead {
+                    course: course.course,
+                    first,
+                    status: if first { course.verdict.text() } else { "" },
+                    pitch: &pitch,
+                    interval: &string.interval,
+                    hz: string.pitch_hz,
+                    length_m: course.length_m,
+                };
+                report.row(lead, own);
             }
         }
         let mut title = format!(
@@ -75,19 +57,8 @@ impl Render for Audit {
         if let Some(reference) = &self.reference_tuning {
             title.push_str(&format!(" (strings now in {})", user(reference)));
         }
-        if !show_length {
-            if let Some(first) = self.courses.first() {
-                title.push_str(&format!(
-                    " · {} {} scale",
-                    length(first.length_m, view.length),
-                    view.length.symbol()
-                ));
-            }
-        }
-        let mut out = paragraph(&title, view.width);
-        let (table, hidden) = grid.render(view.width);
-        out.push_str(&table);
-        out.push_str(&hidden_note(&hidden, view.wide, view.width));
+        let mut out = String::new();
+        report.write(&mut out, &title, self.courses.first().map(|c| c.length_m));
         out.push_str(&format!(
             "{} of {} courses can take this tuning.\n",
             self.courses_ok,
@@ -114,29 +85,23 @@ impl Render for Audit {
                 change((self.total_tension_n / before - 1.0) * 100.0, 0)
             ));
         }
-        if let Some(rated) = self.rated_load_n {
-            total.push_str(&format!(
-                ", {}",
-                share_of_rated(self.total_tension_n, rated, view.force)
-            ));
-        }
-        total.push('.');
-        out.push_str(&paragraph(&total, view.width));
-        if view.wide {
-            out.push_str(&feel_legend(
-                self.courses
-                    .first()
-                    .and_then(|c| c.strings.first())
-                    .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents),
-                view,
-            ));
-        }
-        out.push_str(&warnings_and_cautions(
+        out.push_str(&paragraph(
+            &total_sentence(total, self.total_tension_n, self.rated_load_n, view),
+            view.width,
+        ));
+        let bend_cents = self
+            .courses
+            .first()
+            .and_then(|c| c.strings.first())
+            .map_or(DEFAULT_BEND_CENTS, |s| s.feel.bend_cents);
+        push_closing(
+            &mut out,
+            Some(bend_cents),
             &self.warnings,
             &[],
             &self.cautions,
             view,
-        ));
+        );
         out
     }
 
@@ -163,13 +128,12 @@ impl Render for Audit {
                     break_pitch_hz: sig_opt(string.break_pitch_hz),
                     inharmonicity: sig_opt(string.feel.inharmonicity_b),
                     verdict: course.verdict.text(),
-                    warnings: course
-                        .warnings
-                        .iter()
-                        .filter(|w| w.string == Some(index + 1))
-                        .map(|w| w.kind.name())
-                        .collect::<Vec<_>>()
-                        .join(";"),
+                    warnings: warning_kinds(
+                        course
+                            .warnings
+                            .iter()
+                            .filter(|w| w.string == Some(index + 1)),
+                    ),
                 });
             }
         }

@@ -2,12 +2,14 @@
 
 #[allow(unused_imports)]
 use super::*;
-use crate::cli::text::{leading_columns, shows_length};
+use crate::cli::text::{
+    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+};
 
 impl Render for Conversion {
     fn table(&self, view: &View) -> String {
         let show_length = shows_length(self.courses.iter().map(|c| c.length_after_m), view);
-        let mut columns = leading_columns("status", show_length, view);
+        let mut columns = Vec::new();
         if view.wide {
             columns.extend([
                 Column::text("string before").give(Give::Shorten(10)),
@@ -24,16 +26,20 @@ impl Render for Conversion {
             Column::text("slot").give(Give::Drop(1)),
         ]);
         if view.wide {
-            columns.extend([
-                Column::figure("B").give(Give::Drop(6)),
-                Column::figure("partials c").give(Give::Drop(7)),
-                Column::figure("bend N").give(Give::Drop(8)),
-            ]);
+            columns.extend(feel_columns(6));
         }
-        let mut grid = Grid::new(columns);
+        let mut report = StringReport::new(view, "status", show_length, columns);
         for course in &self.courses {
+            let pitch = pitch_with_note(
+                &course.pitch_label,
+                &course.note_name,
+                course.note_offset_cents,
+            );
+            let pitch = match &course.pitch_before {
+                Some(old) if *old != course.pitch_after => format!("{old} → {pitch}"),
+                _ => pitch,
+            };
             for (index, string) in course.strings.iter().enumerate() {
-                let first = index == 0;
                 let before = string.before.as_ref();
                 let string_warnings = course
                     .warnings
@@ -45,37 +51,9 @@ impl Render for Conversion {
                     (Some(_), _, "ok" | "note") => "replace",
                     (_, _, other) => other,
                 };
-                let pitch = pitch_with_note(
-                    &course.pitch_label,
-                    &course.note_name,
-                    course.note_offset_cents,
-                );
-                let mut row = vec![
-                    if first {
-                        course.course.to_string()
-                    } else {
-                        String::new()
-                    },
-                    state.to_string(),
-                    if !first {
-                        format!("  {}", string.interval)
-                    } else {
-                        match &course.pitch_before {
-                            Some(old) if *old != course.pitch_after => format!("{old} → {pitch}"),
-                            _ => pitch,
-                        }
-                    },
-                    format!("{:.2}", string.after.pitch_hz),
-                ];
-                if show_length {
-                    row.push(if first {
-                        length(course.length_after_m, view.length)
-                    } else {
-                        String::new()
-                    });
-                }
+                let mut own = Vec::with_capacity(12);
                 if view.wide {
-                    row.extend([
+                    own.extend([
                         before.map_or("(new course)".to_string(), |b| user(&b.string).into_owned()),
                         maybe(before.and_then(|b| b.diameter_mm), |d| {
                             diameter(d, view.length)
@@ -83,7 +61,7 @@ impl Render for Conversion {
                         maybe(before.map(|b| b.tension_n), |t| force(t, view.force)),
                     ]);
                 }
-                row.extend([
+                own.extend([
                     user(&string.after.string).into_owned(),
                     maybe(string.after.diameter_mm, |d| diameter(d, view.length)),
                     force(string.after.tension_n, view.force),
@@ -96,12 +74,23 @@ impl Render for Conversion {
                     },
                 ]);
                 if view.wide {
-                    row.extend(feel::cells(&string.feel_after));
+                    own.extend(feel::cells(&string.feel_after));
                 }
-                grid.row(row);
+                let lead = Lead {
+                    course: course.course,
+                    first: index == 0,
+                    status: state,
+                    pitch: &pitch,
+                    interval: &string.interval,
+                    hz: string.after.pitch_hz,
+                    length_m: course.length_after_m,
+                };
+                report.row(lead, own);
             }
         }
-        let mut out = paragraph(
+        let mut out = String::new();
+        report.write(
+            &mut out,
             &format!(
                 "{} ({}) → {} ({}) · set now {}",
                 user(&self.instrument_before),
@@ -110,11 +99,8 @@ impl Render for Conversion {
                 user(&self.tuning_after),
                 user(&self.set)
             ),
-            view.width,
+            None,
         );
-        let (table, hidden) = grid.render(view.width);
-        out.push_str(&table);
-        out.push_str(&hidden_note(&hidden, view.wide, view.width));
         if let Some(first) = self.courses.first() {
             if let Some(before) = first.length_before_m {
                 if (before - first.length_after_m).abs() > 1e-9 {
@@ -197,40 +183,34 @@ impl Render for Conversion {
             })
             .collect();
         out.push_str(&paragraph(&gauge_line(&gauges, view.length), view.width));
-        let mut total = format!(
+        let total = format!(
             "Total load {} → {} ({})",
             force_with_unit(self.total_before_n, view.force),
             force_with_unit(self.total_after_n, view.force),
             change(self.total_change_pct, 1)
         );
-        if let Some(rated) = self.rated_load_n {
-            total.push_str(&format!(
-                ", {}",
-                share_of_rated(self.total_after_n, rated, view.force)
-            ));
-        }
-        total.push('.');
-        out.push_str(&paragraph(&total, view.width));
-        if view.wide {
-            out.push_str(&feel_legend(
-                self.courses
-                    .first()
-                    .and_then(|c| c.strings.first())
-                    .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents),
-                view,
-            ));
-        }
+        out.push_str(&paragraph(
+            &total_sentence(total, self.total_after_n, self.rated_load_n, view),
+            view.width,
+        ));
+        let bend_cents = self
+            .courses
+            .first()
+            .and_then(|c| c.strings.first())
+            .map_or(feel::DEFAULT_BEND_CENTS, |s| s.feel_after.bend_cents);
         let load: Vec<String> = self
             .load_caution
             .iter()
             .map(|c| user(c).into_owned())
             .collect();
-        out.push_str(&warnings_and_cautions(
+        push_closing(
+            &mut out,
+            Some(bend_cents),
             &self.warnings,
             &load,
             &self.cautions,
             view,
-        ));
+        );
         out
     }
 
@@ -264,13 +244,12 @@ impl Render for Conversion {
                     break_pitch_hz: sig_opt(string.after.break_pitch_hz),
                     kept: string.kept,
                     slot_fits: string.slot.as_ref().map(|fit| fit.fits),
-                    warnings: course
-                        .warnings
-                        .iter()
-                        .filter(|w| w.string == Some(index + 1))
-                        .map(|w| w.kind.name())
-                        .collect::<Vec<_>>()
-                        .join(";"),
+                    warnings: warning_kinds(
+                        course
+                            .warnings
+                            .iter()
+                            .filter(|w| w.string == Some(index + 1)),
+                    ),
                 });
             }
         }

@@ -1,8 +1,6 @@
 //! Renderers of a [`Plan`]: a terminal table, JSON, CSV and YAML. Each reads the plain model
 //! and nothing else, so all four say the same thing.
 
-use std::fmt::Write as _;
-
 use serde::Serialize;
 
 use taut::error::Result;
@@ -10,12 +8,12 @@ use taut::input::units::{ForceUnit, METRES_PER_INCH};
 use taut::plan::warning::Severity;
 use taut::plan::{CoursePlan, Plan, Standing, StringChoice};
 
-use crate::cli::layout::{hidden_note, wrap_into, Column, Give, Grid};
+use crate::cli::layout::{wrap_into, Column, Give};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
     cautions_for, course_pitch_text, diameter, diameter_symbol, fixed, force, force_with_unit,
-    gauge_line, leading_columns, length, push_warnings_and_cautions, share_of_rated, shows_length,
-    status, stress_bar, user,
+    gauge_line, push_closing, shows_length, status, stress_bar, total_sentence, user,
+    warning_kinds, Lead, StringReport,
 };
 
 /// A tension in newtons and, unless the unit is N, also in that unit.
@@ -50,17 +48,14 @@ fn string_warnings(
 /// The terminal table: each string led by its status, its tension beside its aim and its
 /// stress as a bar; then totals, the set's gauges on one line, warnings and cautions.
 pub fn table(plan: &Plan, view: &View) -> String {
-    let force_unit = view.force.symbol();
-    let length_unit = view.length.symbol();
     let show_length = shows_length(plan.courses.iter().map(|c| c.length_m), view);
-    let mut columns = leading_columns("status", show_length, view);
-    columns.extend([
+    let mut columns = vec![
         Column::text("string").give(Give::Shorten(10)),
         Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
-        Column::figure(force_unit),
+        Column::figure(view.force.symbol()),
         Column::figure("aim"),
         Column::text("stress"),
-    ]);
+    ];
     if view.wide {
         columns.extend([
             Column::figure("μ g/m").give(Give::Drop(4)),
@@ -68,37 +63,16 @@ pub fn table(plan: &Plan, view: &View) -> String {
             Column::figure("B").give(Give::Drop(6)),
         ]);
     }
-    let mut grid = Grid::new(columns);
+    let mut report = StringReport::new(view, "status", show_length, columns);
     for course in &plan.courses {
+        let pitch = course_pitch_text(&course.pitch);
         for (index, string) in course.strings.iter().enumerate() {
-            let first = index == 0;
             let choice = &string.choice;
-            let mut row = vec![
-                if first {
-                    course.course.to_string()
-                } else {
-                    String::new()
-                },
-                status(string_warnings(course, index + 1)).to_string(),
-                if first {
-                    course_pitch_text(&course.pitch)
-                } else {
-                    format!("  {}", string.interval)
-                },
-                fixed(string.pitch_hz, 2),
-            ];
-            if show_length {
-                row.push(if first {
-                    length(course.length_m, view.length)
-                } else {
-                    String::new()
-                });
-            }
             let mut kind = user(&choice.kind).into_owned();
             if choice.standing == Standing::Fixed {
                 kind.push_str(" (fixed)");
             }
-            row.extend([
+            let mut own = vec![
                 kind,
                 diameter(choice.diameter_mm, view.length),
                 force(choice.tension_n, view.force),
@@ -108,9 +82,9 @@ pub fn table(plan: &Plan, view: &View) -> String {
                     plan.caution_stress_ratio,
                     plan.danger_stress_ratio,
                 ),
-            ]);
+            ];
             if view.wide {
-                row.extend([
+                own.extend([
                     fixed(choice.unit_mass_kg_per_m * 1000.0, 4),
                     fixed(choice.break_pitch_hz, 1),
                     choice
@@ -118,7 +92,16 @@ pub fn table(plan: &Plan, view: &View) -> String {
                         .map_or_else(|| "-".to_string(), |b| format!("{b:.2e}")),
                 ]);
             }
-            grid.row(row);
+            let lead = Lead {
+                course: course.course,
+                first: index == 0,
+                status: status(string_warnings(course, index + 1)),
+                pitch: &pitch,
+                interval: &string.interval,
+                hz: string.pitch_hz,
+                length_m: course.length_m,
+            };
+            report.row(lead, own);
         }
     }
     let warning_bytes: usize = plan.warnings.iter().map(|w| w.message.len()).sum();
@@ -126,17 +109,11 @@ pub fn table(plan: &Plan, view: &View) -> String {
     // bar takes three bytes a cell), the warnings with their indents and the lines around
     // them, so the report is written in one piece.
     let mut out = String::with_capacity(plan.string_count() * 160 + warning_bytes * 5 / 4 + 4096);
-    let mut title = format!("{} · tuning {}", user(&plan.instrument), user(&plan.tuning));
-    if let Some(first) = plan.courses.first().filter(|_| !show_length) {
-        let _ = write!(
-            title,
-            " · {} {length_unit} scale",
-            length(first.length_m, view.length)
-        );
-    }
-    wrap_into(&mut out, &title, view.width, "", "");
-    let hidden = grid.render_into(&mut out, view.width);
-    out.push_str(&hidden_note(&hidden, view.wide, view.width));
+    report.write(
+        &mut out,
+        &format!("{} · tuning {}", user(&plan.instrument), user(&plan.tuning)),
+        plan.courses.first().map(|c| c.length_m),
+    );
     let gauges: Vec<Vec<(f64, bool)>> = plan
         .courses
         .iter()
@@ -155,22 +132,20 @@ pub fn table(plan: &Plan, view: &View) -> String {
         "",
         "",
     );
-    let mut total = format!(
-        "Total tension {} over {} strings",
-        force_with_unit(plan.total_tension_n, view.force),
-        plan.string_count()
+    let total = total_sentence(
+        format!(
+            "Total tension {} over {} strings",
+            force_with_unit(plan.total_tension_n, view.force),
+            plan.string_count()
+        ),
+        plan.total_tension_n,
+        plan.rated_load_n,
+        view,
     );
-    if let Some(rated) = plan.rated_load_n {
-        let _ = write!(
-            total,
-            ", {}",
-            share_of_rated(plan.total_tension_n, rated, view.force)
-        );
-    }
-    total.push('.');
     wrap_into(&mut out, &total, view.width, "", "");
-    push_warnings_and_cautions(
+    push_closing(
         &mut out,
+        None,
         &plan.warnings,
         &[],
         cautions_for(&plan.warnings),
@@ -306,13 +281,12 @@ pub fn csv(plan: &Plan) -> Result<String> {
     let mut rows = Vec::new();
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {
-            let warnings = course
-                .warnings
-                .iter()
-                .filter(|warning| warning.string == Some(index + 1))
-                .map(|warning| warning.kind.name())
-                .collect::<Vec<_>>()
-                .join(";");
+            let warnings = warning_kinds(
+                course
+                    .warnings
+                    .iter()
+                    .filter(|warning| warning.string == Some(index + 1)),
+            );
             rows.push(CsvRow {
                 course: course.course,
                 string: index + 1,
