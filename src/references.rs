@@ -80,7 +80,7 @@
 //! ### 2.1 Metals
 //!
 //! - *Sources:* F. P. Beer, E. R. Johnston, J. T. DeWolf & D. F. Mazurek, *Mechanics of
-//!   Materials*, Appendix B (typical properties of engineering materials): structural steel
+//!   Materials*, Appendix B (typical properties of engineering materials): steel
 //!   0.284 lb/in³ (7861 kg/m³), stainless AISI 302 0.286 lb/in³ (7916 kg/m³), oxygen-free copper
 //!   0.322 lb/in³; *CRC Handbook of Chemistry and Physics* for the pure elements (copper 8.96,
 //!   nickel 8.90, silver 10.49 g/cm³); the UNS C51000 (phosphor bronze, 8.86 g/cm³) and C24000
@@ -333,7 +333,7 @@
 //! ### 7.1 Standard pitch: ISO 16
 //!
 //! - *Source:* ISO 16:1975, *Acoustics — Standard tuning frequency (Standard musical pitch)*,
-//!   which confirms ISO Recommendation R 16 of 1955.
+//!   which replaced ISO Recommendation R 16 (1955) without technical change.
 //! - *Taken:* A4, the A above middle C, is 440 Hz: the default reference of every tuning.
 //! - *Provenance:* **read** (the standard's front matter).
 //!

@@ -240,7 +240,8 @@ fn a_made_up_section_is_reported_missing() {
 #[test]
 fn every_section_of_a_list_is_checked() {
     let known = sections(&page());
-    let good = format!("{WORD} §6.1 and §6.2, DERIVED from §1.1; {WORD} §2, §3 and §4; `{WORD} §x.y`.\n");
+    let good =
+        format!("{WORD} §6.1 and §6.2, DERIVED from §1.1; {WORD} §2, §3 and §4; `{WORD} §x.y`.\n");
     assert!(check_text("good.rs", &good, &known).is_empty());
     let bad = format!("{WORD} §6.1, §6.9 and §1.2 to §42.\n");
     let problems = check_text("bad.rs", &bad, &known);
