@@ -29,6 +29,8 @@ pub mod input;
 pub mod instrument;
 pub mod lengths;
 pub mod plan;
+/// The published sources behind the physics and data, cited in the tree as `REFERENCES §x.y`.
+pub mod references;
 pub mod sets;
 pub mod strings;
 pub mod survey;

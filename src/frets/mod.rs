@@ -5,7 +5,7 @@
 //!
 //! A string stopped at distance x from the nut vibrates over L − x; at fixed tension and linear
 //! density its frequency is inversely proportional to the vibrating length (Mersenne's first law,
-//! *Harmonie universelle*, 1636; REFERENCES §8). To sound the ratio r above the open string the
+//! *Harmonie universelle*, 1636; REFERENCES §8.1). To sound the ratio r above the open string the
 //! stop must leave L/r, so the fret sits at
 //!
 //! ```text

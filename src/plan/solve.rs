@@ -2,7 +2,7 @@
 //! the tuning, derive each string's pitch from its interval, ask the selector
 //! ([`crate::strings::select::select`]) for a string, and turn its flags into [`Warning`]s.
 //!
-//! Physics (Mersenne's laws, f = (1/2L)·√(T/μ), REFERENCES.md §1) lives in [`crate::strings::physics`]
+//! Physics (Mersenne's laws, f = (1/2L)·√(T/μ), REFERENCES §1.1) lives in [`crate::strings::physics`]
 //! and the choice rule in [`crate::strings::select`]; this module only wires them to the instrument.
 //! Kind lists are resolved once up front into one flat list, and the selector's scratch space
 //! is one buffer reused for every string, so solving a course allocates only its output.

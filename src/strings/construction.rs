@@ -209,13 +209,13 @@ const IN: f64 = 0.0254;
 ///   0.015 in in 0.032 in, 0.017 in in 0.042 in, 0.018–0.0185 in in 0.046–0.053 in) are taken
 ///   as micrometer readings, which settle on a hexagon's flats; across the corners they are
 ///   2/√3 = 1.155 times larger (DERIVED): about 0.60, 0.54, 0.46 and 0.40 of the outer diameter.
-/// - Cross-check (DERIVED, REFERENCES-2 §6.2): with these ratios the open-string B of a light
+/// - Cross-check (DERIVED, REFERENCES §5.4): with these ratios the open-string B of a light
 ///   acoustic set's D3, A2 and E2 (0.032/0.042/0.053 in) comes out 4.7e-5, 7.5e-5 and 1.2e-4,
 ///   against measured 5.0e-5, 6.6e-5 and 1.08e-4 (Järveläinen & Karjalainen, *Acta Acustica*
 ///   92, 2006, READ-R; the measured strings' gauges are not known), and a 0.046 in electric E2
 ///   gives 1.5e-4 against 1.56e-4 (Barbancho et al., *IEEE TASLP* 20, 2012, READ-R). A fixed
 ///   0.39 gives the D3 a quarter of the measured B (1.2e-5).
-/// - All of them lie inside the 33–66 % a bass-string article gives (REFERENCES-2 §1.1,
+/// - All of them lie inside the 33–66 % a bass-string article gives (REFERENCES §6.3,
 ///   PRACTICE, READ).
 ///
 /// Beyond 0.053 in the ratio stays 0.40 (the earlier fixed default there was 0.39; PRACTICE,
@@ -231,14 +231,14 @@ pub const HEX_CORE_RATIOS: [(f64, f64); 4] = [
 /// At the thin end, 0.55: a round core with the load-bearing area of the hexagonal default there
 /// (0.60 × √0.827 = 0.546, DERIVED; REFERENCES §6.2 for the 0.827). From 0.042 in, 0.45, the
 /// earlier default (PRACTICE, from memory). A single copper layer on the 1.051 mm core of a
-/// grand piano's C2 would need a ratio of 0.55 to give its published μ (REFERENCES-2 §1.1,
+/// grand piano's C2 would need a ratio of 0.55 to give its published μ (REFERENCES §6.3,
 /// DERIVED illustration only: that string may be double-wound), so 0.45 errs towards a thinner
 /// core, i.e. towards warning early.
 pub const ROUND_CORE_RATIOS: [(f64, f64); 2] = [(0.026 * IN, 0.55), (0.042 * IN, 0.45)];
 
 /// Default core fraction for a round steel core under two wrap layers (piano and harp basses):
 /// 0.40. PRACTICE, from memory. Consistent with a grand piano's D♯1 (core 1.492 mm, μ 75.5 g/m,
-/// Chabassier et al. 2013 via REFERENCES-2 §2.1, READ-R): two equal copper layers at this ratio
+/// Chabassier et al. 2013 via REFERENCES §6.3, READ-R): two equal copper layers at this ratio
 /// give that μ at an outer diameter of 3.7 mm (DERIVED; the string's outer diameter is not
 /// published there, so this is an illustration, not a check).
 pub const DOUBLE_WRAP_CORE_RATIO: f64 = 0.40;
@@ -252,7 +252,7 @@ pub const DOUBLE_WRAP_CORE_RATIO: f64 = 0.40;
 /// (PRACTICE, from memory; the wrap wire grows instead). A fixed ratio (the earlier 0.65) made
 /// the E2 string far too light (48 N against 74 N on the D3). At 0.76 mm the ratio 0.68 gives
 /// μ = 1.92 g/m, within 2 % of the 1.95 g/m measured on a commercial normal-tension D3
-/// (Woodhouse 2004, Table I, REFERENCES-2 §6.1, READ-R; that string's diameter is not given).
+/// (Woodhouse 2004, Table I, REFERENCES §5.4, READ-R; that string's diameter is not given).
 /// Below 0.60 mm and above 1.09 mm the end ratios hold.
 pub const MULTIFILAMENT_CORE_RATIOS: [(f64, f64); 4] = [
     (0.60e-3, 0.75),

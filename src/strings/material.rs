@@ -1,7 +1,7 @@
 //! String materials: density, elastic modulus, breaking strength, and where each number comes from.
 //!
 //! The shipped materials live in `src/strings/data/materials.yaml` (values and provenance from
-//! `REFERENCES.md` §2–§4); the build script converts them to JSON, read once through
+//! REFERENCES §2, §3 and §4); the build script converts them to JSON, read once through
 //! [`crate::input::shipped::parse`]. Users can add their own with [`load_materials_file`], in the
 //! same schema, read through [`crate::input::yaml::parse`]; both run the same checks.
 

@@ -4,8 +4,8 @@
 //! units people write happens at the edges ([`crate::input::units`]). Nothing here allocates, so the
 //! selector can call these millions of times.
 //!
-//! Sources are cited per function with the section of `REFERENCES.md` that collects them and
-//! its provenance tag (READ / from memory / DERIVED / PRACTICE).
+//! Sources are cited per function as `REFERENCES §x.y`, the section of [`crate::references`]
+//! that collects them, with its provenance tag (READ / from memory / DERIVED / PRACTICE).
 
 use std::f64::consts::PI;
 

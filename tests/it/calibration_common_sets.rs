@@ -351,9 +351,10 @@ fn classical_basses_pull_about_evenly() {
 }
 
 /// Outside check: μ of the wound basses of a commercial normal-tension classical set on 0.65 m,
-/// measured by Woodhouse (*Acta Acustica united with Acustica* 90, 2004, Table I; REFERENCES-2
-/// §6.1, READ-R): D3 1.954, A2 3.61, E2 6.24 g/m. The reproduction gives no diameters, so the
-/// usual normal-tension gauges are assumed (common practice, from memory) and the band is ±20 %.
+/// measured by Woodhouse (*Acta Acustica united with Acustica* 90, 2004, Table I;
+/// REFERENCES §5.4, READ-R): D3 1.954, A2 3.61, E2 6.24 g/m. The reproduction gives no
+/// diameters, so the usual normal-tension gauges are assumed (common practice, from memory) and
+/// the band is ±20 %.
 #[test]
 fn classical_wound_basses_weigh_what_a_measured_set_weighs() {
     let dir = tempfile::tempdir().unwrap();
@@ -372,7 +373,7 @@ fn classical_wound_basses_weigh_what_a_measured_set_weighs() {
 /// Outside check on the core, which alone sets a wound string's stiffness (Zollner, *Physics of
 /// the Electric Guitar* §1.2; REFERENCES §5.3): measured open-string B of an acoustic guitar's
 /// D3, A2 and E2, 5.0e-5, 6.6e-5 and 1.08e-4 (Järveläinen & Karjalainen, *Acta Acustica united
-/// with Acustica* 92, 2006; REFERENCES-2 §6.2, READ-R, gauges not given), and 1.56e-4 for a
+/// with Acustica* 92, 2006; REFERENCES §5.4, READ-R, gauges not given), and 1.56e-4 for a
 /// 0.046 in electric E2 (Barbancho et al., *IEEE TASLP* 20, 2012, READ-R). The gauges are not
 /// known, so the band is a factor of 1.5 either way; a core ratio that starves thin wound
 /// strings misses the D3 by a factor of four.

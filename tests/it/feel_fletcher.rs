@@ -7,11 +7,11 @@ use taut::strings::material::Materials;
 use taut::strings::physics;
 
 /// R. W. Young, "Inharmonicity of plain wire piano strings", J. Acoust. Soc. Am. 24(3), 1952
-/// (abstract READ in a reproduction; REFERENCES §5.1): for steel wire with Q/ρ = 25.5×10¹⁰ cm²/s²
+/// (abstract READ in a reproduction; REFERENCES §5.2): for steel wire with Q/ρ = 25.5×10¹⁰ cm²/s²
 /// the inharmonicity of mode n in cents is 3.4×10¹³·n²·d²/(ν₀²·l⁴), d and l in cm. Fletcher's
 /// B (1964) with the same Q/ρ must reproduce that constant: 1200·log₂√(1+Bn²) ≈ 865.6·B·n².
 /// No published B paired with its own d, L and T was found in the reference corpora, so this
-/// cross-check stands in for one (as REFERENCES §12 suggests).
+/// cross-check stands in for one (as REFERENCES §10 suggests).
 #[test]
 fn fletcher_b_reproduces_youngs_1952_constant() {
     let modulus_over_density = 25.5e10 * 1e-4; // cm²/s² → m²/s²
@@ -75,7 +75,7 @@ fn partial_offsets_are_measured_from_the_sounding_fundamental() {
         let cents = 1200.0 * (fn_ / (f64::from(n) * f1)).log2();
         assert_relative_eq!(reported.unwrap(), cents, max_relative = 1e-9);
     }
-    // Sharpening grows about as n² for small B (Schuck & Young 1943, REFERENCES §5.1).
+    // Sharpening grows about as n² for small B (Schuck & Young 1943, REFERENCES §5.2).
     let ratio = figures.partial_8_cents.unwrap() / figures.partial_2_cents.unwrap();
     assert!(ratio > 15.0 && ratio < 21.5, "{ratio}");
 }

@@ -44,7 +44,7 @@ fn twelve_edo_puts_fret_12_at_half_the_length_and_fret_1_at_0_05613_l() {
         648.0 * (1.0 - 2f64.powf(-1.0 / 12.0)),
         max_relative = 1e-12
     );
-    // Frets 5, 7 and 24 from the same formula (REFERENCES §8 values for 648 mm, DERIVED).
+    // Frets 5, 7 and 24 from the same formula (REFERENCES §8.1 values for 648 mm, DERIVED).
     assert_relative_eq!(distance_mm(&frets[4]), 162.5485, epsilon = 1e-4);
     assert_relative_eq!(distance_mm(&frets[6]), 215.5119, epsilon = 1e-4);
     assert_relative_eq!(distance_mm(&frets[23]), 486.0, epsilon = 1e-9);
@@ -66,7 +66,7 @@ fn nineteen_edo_matches_its_step_and_the_hand_computed_table() {
     // 19-EDO: "each 19-tet step is 1200/19 cents, or about 63.16 cents" (W. A. Sethares,
     // "Tunings for 19 Tone Equal Tempered Guitar", Experimental Musical Instruments VI(6), 1991).
     assert_relative_eq!(number(&frets[0]["cents"]), 1200.0 / 19.0, epsilon = 1e-9);
-    // Distances for L = 648 mm computed by hand from x_n = L·(1 − 2^(−n/19)) (REFERENCES-2 §5,
+    // Distances for L = 648 mm computed by hand from x_n = L·(1 − 2^(−n/19)) (REFERENCES §8.2,
     // DERIVED): fret 1 23.214 mm, fret 9 181.360 mm, fret 19 (the octave) 324.000 mm.
     assert_relative_eq!(distance_mm(&frets[0]), 23.214, epsilon = 5e-4);
     assert_relative_eq!(distance_mm(&frets[8]), 181.360, epsilon = 5e-4);
@@ -80,7 +80,7 @@ fn galileis_rule_of_eighteen_is_reproduced_by_the_ratio_18_17() {
     let file = one_course(folder.path(), "1ed18/17", "frets: {count: 2}\n");
     let frets = frets_of(&json(&["frets", &file]), 0);
     // V. Galilei, Dialogo della musica antica et della moderna (1581): each fret is placed 1/18
-    // of the remaining string length beyond the last (REFERENCES-2 §5). For 648 mm: 648/18 = 36
+    // of the remaining string length beyond the last (REFERENCES §8.2). For 648 mm: 648/18 = 36
     // and (648 − 36)/18 = 34, so 36 mm and 70 mm, exactly; the step is the ratio 18/17.
     assert_relative_eq!(distance_mm(&frets[0]), 36.0, epsilon = 1e-9);
     assert_relative_eq!(distance_mm(&frets[1]), 70.0, epsilon = 1e-9);
@@ -97,9 +97,9 @@ fn a_just_scale_lands_on_exact_rational_positions() {
         "frets: {count: 7}\n",
     );
     let frets = frets_of(&json(&["frets", &file]), 0);
-    // x(r) = L·(1 − 1/r) (Mersenne's first law, REFERENCES §8), in exact fractions of 648 mm:
+    // x(r) = L·(1 − 1/r) (Mersenne's first law, REFERENCES §8.1), in exact fractions of 648 mm:
     // 9/8 → 648/9 = 72, 5/4 → 648/5 = 129.6, 4/3 → 648/4 = 162, 3/2 → 648/3 = 216,
-    // 5/3 → 648·2/5 = 259.2, 15/8 → 648·7/15 = 302.4, 2/1 → 324 (REFERENCES §8 table).
+    // 5/3 → 648·2/5 = 259.2, 15/8 → 648·7/15 = 302.4, 2/1 → 324 (REFERENCES §8.1 table).
     let expected = [
         ("9/8", 72.0),
         ("5/4", 129.6),

@@ -1,7 +1,7 @@
 //! Property tests of fret layouts over random tunings, lengths, open pitches and fretted steps:
 //! positions strictly increase and stay below the vibrating length; a degree an octave above
 //! the open string lands at half the length (x(2) = L·(1 − 1/2), Mersenne's first law,
-//! REFERENCES §8); the spacing is the difference of neighbouring positions.
+//! REFERENCES §8.1); the spacing is the difference of neighbouring positions.
 
 use proptest::prelude::*;
 

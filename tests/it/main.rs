@@ -28,6 +28,7 @@ mod plan_stock;
 mod plan_unreachable;
 mod plan_warnings;
 mod readme;
+mod references;
 mod regressions;
 mod report_look;
 mod report_widths;

@@ -52,7 +52,7 @@ fn partials_follow_fletcher_and_are_reported_against_the_sounding_fundamental() 
 
 #[test]
 fn schuck_and_young_fifteenth_partial_near_the_sixteenth_harmonic() {
-    // Schuck & Young, JASA 15 (1943) (REFERENCES §5.1, READ abstract): in one string the 15th
+    // Schuck & Young, JASA 15 (1943) (REFERENCES §5.2, READ abstract): in one string the 15th
     // partial was at about the frequency of a 16th harmonic. Under Fletcher's law that takes
     // B = (256/225 − 1)/(225 − 256/225) = 6.155e-4 (DERIVED); check both ways.
     let b = (256.0 / 225.0 - 1.0) / (225.0 - 256.0 / 225.0);

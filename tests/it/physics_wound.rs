@@ -3,7 +3,7 @@
 //!
 //! No published wound-string construction with core, wrap and mass (outside makers' product
 //! files) was found for an outside check, so these tests pin the model's own identities, each
-//! DERIVED in REFERENCES §6.1–6.2.
+//! DERIVED in REFERENCES §6.1 and §6.2.
 
 use approx::assert_relative_eq;
 use proptest::prelude::*;

@@ -91,7 +91,7 @@ courses:
 
 /// Outside check: a 0.010 in plain steel string at E4 on a 648 mm scale carries ≈ 72.6 N
 /// (≈ 16.3 lbf). DERIVED from the handbook density of carbon steel, 7850 kg/m³
-/// (REFERENCES.md §2, PRACTICE + READ), with T = μ(2Lf)² (Mersenne/Taylor, OpenStax University
+/// (REFERENCES §2, PRACTICE + READ), with T = μ(2Lf)² (Mersenne/Taylor, OpenStax University
 /// Physics vol. 1 §16.3) and E4 = 329.6276 Hz (ISO 16 A4 = 440 Hz, 12-EDO):
 /// μ = 7850·π·(0.000254 m)²/4 = 3.9777e-4 kg/m, (2·0.648·329.6276)² = 182 497.5 → 72.59 N.
 /// Common practice (published tension charts of plain guitar strings) agrees on about 16 lbf.
@@ -117,7 +117,7 @@ fn plain_steel_e4_on_648_mm_carries_72_6_newtons() {
     );
     assert!((plan["total_tension_n"].as_f64().unwrap() - tension).abs() < 1e-12);
     // Stress ratio: σ = ρ(2Lf)² = 1.4326 GPa against ASTM A228's 387 ksi minimum at 0.010 in
-    // (2668 MPa, REFERENCES.md §4.1, READ) is 0.537.
+    // (2668 MPa, REFERENCES §4.1, READ) is 0.537.
     let stress = string["stress_ratio"].as_f64().unwrap();
     assert!((stress - 0.537).abs() < 0.005, "{stress}");
     // The table shows tension in the chosen unit (newtons by default) and diameters in mm, or
@@ -146,7 +146,7 @@ fn plain_steel_e4_on_648_mm_carries_72_6_newtons() {
 }
 
 /// Outside check: a plain steel string on 648 mm breaks a few semitones above E4 whatever its
-/// diameter: f_break = √(σ/ρ)/(2L) (REFERENCES.md §1.2, DERIVED) with ASTM A228's minimum
+/// diameter: f_break = √(σ/ρ)/(2L) (REFERENCES §1.2, DERIVED) with ASTM A228's minimum
 /// strengths (§4.1, READ) between 2.6 and 2.8 GPa gives 449–466 Hz, i.e. 5.4–6.0 semitones
 /// above E4.
 #[test]

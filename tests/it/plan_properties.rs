@@ -1,5 +1,5 @@
 //! Properties of every solved string: Mersenne's law holds on the reported figures, and tension
-//! grows as the square of frequency (Mersenne; REFERENCES.md §1.1: f = (1/2L)·√(T/μ)).
+//! grows as the square of frequency (Mersenne; REFERENCES §1.1: f = (1/2L)·√(T/μ)).
 
 use proptest::prelude::*;
 use taut::instrument::Instrument;

@@ -1,6 +1,6 @@
 //! Every warning kind: one instrument that fires it and one that does not.
 //!
-//! Figures in the comments are DERIVED from T = μ(2Lf)² (REFERENCES.md §1.2) with the shipped
+//! Figures in the comments are DERIVED from T = μ(2Lf)² (REFERENCES §1.2) with the shipped
 //! plain steel catalog (0.007–0.026 in) and the density 7850 kg/m³ (§2).
 
 use taut::instrument::Instrument;

@@ -53,7 +53,7 @@ fn music_wire_strength_hits_astm_a228_rows_and_interpolates_between_them() {
 
 #[test]
 fn music_wire_modulus_follows_shigley_table_10_5_by_size() {
-    // Budynas & Nisbett, Shigley 9th ed., Table 10-5 (REFERENCES §3, READ): 203.4 GPa below
+    // Budynas & Nisbett, Shigley 9th ed., Table 10-5 (REFERENCES §3.1, READ): 203.4 GPa below
     // 0.032 in, 200 to 0.063, 196.5 to 0.125, 193 above.
     let wire = Materials::builtin().unwrap().get("music-wire").unwrap();
     assert_relative_eq!(wire.modulus_at(inch(0.010)), 203.4e9);

@@ -288,9 +288,9 @@ fn the_steps_of_nearest_fourths_are_round_n_log2_four_thirds() {
     }
 }
 
-/// Music wire (ASTM A228 Table 1, inch-pound requirements, read in a reproduction; REFERENCES
-/// §4.1): the strongest catalog wire, 0.007 in, is at most 449 ksi; the weakest, 0.026 in, at
-/// least 337 ksi. Density 7850 kg/m³ (common practice; REFERENCES §2). A plain string's stress
+/// Music wire (ASTM A228 Table 1, inch-pound requirements, read in a reproduction;
+/// REFERENCES §4.1): the strongest catalog wire, 0.007 in, is at most 449 ksi; the weakest,
+/// 0.026 in, at least 337 ksi. Density 7850 kg/m³ (common practice; REFERENCES §2). A plain string's stress
 /// σ = ρ(2Lf)² does not depend on its diameter, and it breaks at f = √(σ_UTS/ρ)/(2L)
 /// (REFERENCES §1.2, DERIVED from Mersenne's laws).
 const KSI: f64 = 6.894_757_293_168e6;
