@@ -34,7 +34,7 @@ fn text_for(names: &[String]) -> Result<String> {
     let mut command = super::Cli::command();
     command.build();
     let Some((first, rest)) = names.split_first() else {
-        return Ok(command.render_long_help().to_string());
+        return subcommand_help(&command, names);
     };
     if command.find_subcommand(first).is_some() {
         return subcommand_help(&command, names);
@@ -53,15 +53,15 @@ fn text_for(names: &[String]) -> Result<String> {
     }
 }
 
-/// The long help of the subcommand `names` leads to, as `taut help` from clap would print it.
+/// The help of the subcommand `names` leads to, exactly as `taut NAMES… --help` prints it.
 fn subcommand_help(root: &clap::Command, names: &[String]) -> Result<String> {
     let mut command = root;
     let mut path = String::from("taut");
     for name in names {
         let Some(sub) = command.find_subcommand(name) else {
             let known: Vec<&str> = command.get_subcommands().map(|s| s.get_name()).collect();
-            let error = Error::input(format!("`{path}` has no subcommand `{name}`"))
-                .in_origin("taut help");
+            let error =
+                Error::input(format!("`{path}` has no subcommand `{name}`")).in_origin("taut help");
             return Err(match did_you_mean(name, known.iter().copied()) {
                 Some(near) => error.help(format!("did you mean `{near}`?")),
                 None => error.help(format!("its subcommands: {}", known.join(", "))),
@@ -70,7 +70,14 @@ fn subcommand_help(root: &clap::Command, names: &[String]) -> Result<String> {
         path = format!("{path} {}", sub.get_name());
         command = sub;
     }
-    Ok(command.clone().render_long_help().to_string())
+    // Clap decides between its short and long layout; ask it the way `--help` does.
+    let args = std::iter::once("taut")
+        .chain(names.iter().map(String::as_str))
+        .chain(["--help"]);
+    match root.clone().try_get_matches_from(args) {
+        Err(help) => Ok(help.render().to_string()),
+        Ok(_) => Ok(command.clone().render_long_help().to_string()),
+    }
 }
 
 /// The error for a word that names neither a subcommand nor a topic.
@@ -101,9 +108,13 @@ mod tests {
     #[test]
     fn subcommands_topics_and_the_list() {
         assert!(text_for(&words("plan")).unwrap().contains("--tuning"));
-        assert!(text_for(&words("tuning show")).unwrap().contains("Usage: taut tuning show"));
+        assert!(text_for(&words("tuning show"))
+            .unwrap()
+            .contains("Usage: taut tuning show"));
         assert!(text_for(&words("topics")).unwrap().contains("exit-codes"));
-        assert!(text_for(&words("exit-codes")).unwrap().contains("bad input"));
+        assert!(text_for(&words("exit-codes"))
+            .unwrap()
+            .contains("bad input"));
         assert!(text_for(&[]).unwrap().contains("Usage: taut"));
     }
 

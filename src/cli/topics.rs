@@ -25,21 +25,66 @@ macro_rules! topic {
 
 /// Every topic, in the order `taut help topics` lists them.
 pub const TOPICS: &[Topic] = &[
-    topic!("instrument-file", "every field of an instrument file, with an example"),
-    topic!("stock-file", "your own materials, gauge catalogs and string kinds (--stock)"),
-    topic!("set-file", "string-set files: the strings on an instrument now"),
-    topic!("layout-file", "layout files for `taut lengths`, and how lengths are smoothed"),
-    topic!("survey-file", "settings files for `taut survey`, and how candidates are ranked"),
-    topic!("tunings", "tuning specs, references, tuning files and the forms of a pitch"),
-    topic!("choice", "how a string is chosen, for one tuning or several"),
-    topic!("warnings", "every warning kind: when it fires, its severity and its fix"),
-    topic!("feel", "stiffness, partials, bends, and what a conversion keeps"),
-    topic!("frets", "which frets, partial frets, fanned boards, the SVG template"),
-    topic!("reports", "reading a table: status words, columns, width and colour"),
-    topic!("formats", "JSON, YAML and CSV: field names and each report's document"),
-    topic!("charts", "the charts each command draws (--plot) and the builder's string chart"),
-    topic!("output-files", "where output goes: --output, --save-set and standard output"),
-    topic!("input-files", "how files are read: units, YAML features, text shown escaped"),
+    topic!(
+        "instrument-file",
+        "every field of an instrument file, with an example"
+    ),
+    topic!(
+        "stock-file",
+        "your own materials, gauge catalogs and string kinds (--stock)"
+    ),
+    topic!(
+        "set-file",
+        "string-set files: the strings on an instrument now"
+    ),
+    topic!(
+        "layout-file",
+        "layout files for `taut lengths`, and how lengths are smoothed"
+    ),
+    topic!(
+        "survey-file",
+        "settings files for `taut survey`, and how candidates are ranked"
+    ),
+    topic!(
+        "tunings",
+        "tuning specs, references, tuning files and the forms of a pitch"
+    ),
+    topic!(
+        "choice",
+        "how a string is chosen, for one tuning or several"
+    ),
+    topic!(
+        "warnings",
+        "every warning kind: when it fires, its severity and its fix"
+    ),
+    topic!(
+        "feel",
+        "stiffness, partials, bends, and what a conversion keeps"
+    ),
+    topic!(
+        "fretboards",
+        "which frets, partial frets, fanned boards, the SVG template"
+    ),
+    topic!(
+        "reports",
+        "reading a table: status words, columns, width and colour"
+    ),
+    topic!(
+        "formats",
+        "JSON, YAML and CSV: field names and each report's document"
+    ),
+    topic!(
+        "charts",
+        "the charts each command draws (--plot) and the builder's string chart"
+    ),
+    topic!(
+        "output-files",
+        "where output goes: --output, --save-set and standard output"
+    ),
+    topic!(
+        "input-files",
+        "how files are read: units, YAML features, text shown escaped"
+    ),
     topic!("ranges", "the plausible range of every quantity, and why"),
     topic!("exit-codes", "what each exit code means"),
 ];
@@ -63,11 +108,11 @@ pub fn list() -> String {
 pub fn roff_sections() -> String {
     let mut roff = String::new();
     for topic in TOPICS {
+        roff.push_str(&format!(".SH \"TOPIC: {}\"\n", topic.name.to_uppercase()));
         roff.push_str(&format!(
-            ".SH \"TOPIC: {}\"\n",
-            topic.name.to_uppercase()
+            "{}\n(`taut help {}`)\n.PP\n.nf\n",
+            topic.summary, topic.name
         ));
-        roff.push_str(&format!("{}\n(`taut help {}`)\n.PP\n.nf\n", topic.summary, topic.name));
         for line in topic.text.lines() {
             roff.push_str(&roff_line(line));
             roff.push('\n');
@@ -95,8 +140,25 @@ mod tests {
     #[test]
     fn names_are_unique_and_texts_end_in_a_line_break() {
         for (n, topic) in TOPICS.iter().enumerate() {
-            assert!(TOPICS[..n].iter().all(|t| t.name != topic.name), "{}", topic.name);
+            assert!(
+                TOPICS[..n].iter().all(|t| t.name != topic.name),
+                "{}",
+                topic.name
+            );
             assert!(topic.text.ends_with('\n'), "{}", topic.name);
+        }
+    }
+
+    #[test]
+    fn no_topic_is_named_like_a_subcommand() {
+        use clap::CommandFactory;
+        let command = super::super::Cli::command();
+        for topic in TOPICS {
+            assert!(
+                command.find_subcommand(topic.name).is_none(),
+                "{}",
+                topic.name
+            );
         }
     }
 
