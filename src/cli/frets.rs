@@ -19,7 +19,7 @@ use super::parse_flag;
 pub enum FretsFormat {
     /// Tables for the terminal, with mergeable frets and warnings.
     Table,
-    /// One JSON document (documented in README).
+    /// One JSON document (documented in `taut help formats`).
     Json,
     /// One row per fret of every course.
     Csv,

@@ -26,8 +26,9 @@ enum What {
         #[arg(value_enum)]
         shell: ShellChoice,
     },
-    /// Print the manual page (roff) of taut, or with --dir write one page per subcommand
-    /// (`taut.1`, `taut-plan.1`, …) into a folder, e.g. `taut generate man | man -l -`.
+    /// Print the manual page (roff) of taut, with every reference topic of `taut help topics` as
+    /// a section, or with --dir write it and one page per subcommand (`taut.1`, `taut-plan.1`,
+    /// …) into a folder, e.g. `taut generate man | man -l -`.
     Man {
         /// Write every page into this existing folder instead of printing the main page.
         #[arg(long, value_name = "FOLDER")]
@@ -74,6 +75,13 @@ fn roff(command: clap::Command, title: &str) -> Result<Vec<u8>> {
     Ok(page)
 }
 
+/// The main page: the command line, then every reference topic as a section of its own.
+fn main_page(command: clap::Command) -> Result<Vec<u8>> {
+    let mut page = roff(command, "taut")?;
+    page.extend_from_slice(super::topics::roff_sections().as_bytes());
+    Ok(page)
+}
+
 /// Runs `taut generate`.
 pub fn run(args: GenerateArgs) -> Result<()> {
     let mut command = super::Cli::command();
@@ -87,7 +95,7 @@ pub fn run(args: GenerateArgs) -> Result<()> {
         What::Man { dir: None } => output::write_bytes(
             "--output",
             None,
-            roff(command, "taut")?,
+            main_page(command)?,
             &output::Inputs::new(),
         ),
         What::Man { dir: Some(dir) } => {
@@ -101,7 +109,7 @@ pub fn run(args: GenerateArgs) -> Result<()> {
             pages.add(
                 "--dir",
                 Some(output::Target::Path(dir.join("taut.1"))),
-                roff(command.clone(), "taut")?,
+                main_page(command.clone())?,
             );
             for sub in command
                 .get_subcommands()

@@ -5,6 +5,7 @@ mod audit;
 mod convert;
 mod frets;
 mod generate;
+mod help;
 mod layout;
 mod lengths;
 mod output;
@@ -13,6 +14,7 @@ mod plan;
 mod stock;
 mod survey;
 mod text;
+mod topics;
 mod tuning;
 
 use std::process::ExitCode;
@@ -21,7 +23,15 @@ use clap::{Parser, Subcommand};
 
 /// Plan strings for any tuning on any instrument.
 #[derive(Debug, Parser)]
-#[command(name = "taut", version, about, long_about = None)]
+#[command(
+    name = "taut",
+    version,
+    about,
+    long_about = None,
+    disable_help_subcommand = true,
+    after_help = "Reference: `taut help topics` lists the topics (every field of each file, the warnings, \
+                  the output formats, the exit codes, …); `taut help TOPIC` prints one."
+)]
 pub struct Cli {
     #[command(subcommand)]
     command: Command,
@@ -45,6 +55,8 @@ enum Command {
     Survey(survey::SurveyArgs),
     /// Make shell completions or the manual pages from this command line.
     Generate(generate::GenerateArgs),
+    /// Print the help of a subcommand, or a reference topic (`taut help topics` lists them).
+    Help(help::HelpArgs),
 }
 
 /// Parses an optional option value, naming the option in errors.
@@ -71,6 +83,7 @@ pub fn main() -> ExitCode {
         Command::Frets(args) => frets::run(&args),
         Command::Survey(args) => survey::run(&args),
         Command::Generate(args) => generate::run(args),
+        Command::Help(args) => help::run(&args),
     };
     output::finish(result)
 }

@@ -62,7 +62,7 @@ pub struct OutputArgs {
     #[arg(long, value_enum, default_value_t = Format::Table)]
     pub format: Format,
     /// Write the report to FILE instead of standard output (`-` is standard output). A file is
-    /// written whole or not at all, never over one of the command's own inputs; see README.
+    /// written whole or not at all, never over one of the command's own inputs; see `taut help output-files`.
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<Target>,
     /// Show every column (a detail view); the default view is compact and fits 80 columns.

@@ -36,7 +36,7 @@ pub enum RankChoice {
 #[derive(Debug, Args)]
 #[command(
     about = "Search tunings, pitch offsets and course patterns for the settings an instrument can be strung in, ranked",
-    after_help = "SETTINGS is a YAML file naming the tunings (`edos: {from: 5, to: 72}` or `list: [...]`), course 1's pitch (`course_1: E2`), the offsets to sweep (`offset_cents: {from: -600, to: 600, step: 0.1}`) and the course pattern (`nearest_to: 4/3`, `steps: [...]` or `modes_of: [...]`); README has the details.\n\nThe instrument's own tuning and course pitches are replaced by each candidate's; its lengths, kinds, tensions and limits apply.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+    after_help = "SETTINGS is a YAML file naming the tunings (`edos: {from: 5, to: 72}` or `list: [...]`), course 1's pitch (`course_1: E2`), the offsets to sweep (`offset_cents: {from: -600, to: 600, step: 0.1}`) and the course pattern (`nearest_to: 4/3`, `steps: [...]` or `modes_of: [...]`); `taut help survey-file` has the details.\n\nThe instrument's own tuning and course pitches are replaced by each candidate's; its lengths, kinds, tensions and limits apply.\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
 )]
 pub struct SurveyArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.

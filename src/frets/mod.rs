@@ -174,7 +174,7 @@ pub struct Board {
     pub fan: Option<Fan>,
 }
 
-/// A whole fret layout: plain data for the renderers (the JSON form is documented in README).
+/// A whole fret layout: plain data for the renderers (the JSON form is documented in `taut help formats`).
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct FretLayout {
     /// The instrument's name.

@@ -2,7 +2,7 @@
 //! carry.
 //!
 //! An instrument file is YAML (read through [`crate::input::yaml::parse`]); its schema is documented in
-//! README and in the examples/ folder. Checks that need one value are done while reading, so they
+//! `taut help instrument-file` and in the examples/ folder. Checks that need one value are done while reading, so they
 //! name line and column; checks across values (duplicate course numbers, a course without any
 //! length) run in [`Instrument::from_text`] and are pointed back at their line with
 //! [`crate::input::yaml::locate`].

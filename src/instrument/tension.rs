@@ -44,8 +44,8 @@ impl Shape {
 }
 
 /// The tension asked of a course, in newtons. `min`/`max` bound the acceptable window when one
-/// was stated; a window given without a `target` aims at its middle, (min + max)/2 (README,
-/// "How a string is chosen").
+/// was stated; a window given without a `target` aims at its middle, (min + max)/2 (`taut help
+/// choice`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct TensionGoal {
     /// The tension the selector aims for.

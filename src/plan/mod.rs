@@ -1,8 +1,8 @@
 //! The result of planning an instrument: plain data that the table, JSON, CSV and YAML renderers
 //! read. Every quantity is SI and says its unit in its field name.
 //!
-//! The JSON layout is documented in README ("The plan's JSON"); field names are a stable
-//! interface for scripts.
+//! The JSON layout is documented in `taut help formats` (src/cli/topics/formats.txt); field
+//! names are a stable interface for scripts.
 
 mod flags;
 pub mod remedy;
@@ -119,7 +119,7 @@ pub struct StringChoice {
     pub flags: StringFlags,
 }
 
-/// How a string stands against the choice rule (README, "How a string is chosen").
+/// How a string stands against the choice rule (`taut help choice`, src/cli/topics/choice.txt).
 /// Serialized in snake_case (`on_target`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
 #[serde(rename_all = "snake_case")]

@@ -14,6 +14,7 @@ mod feel_fletcher;
 mod frets_bad_input;
 mod frets_cli;
 mod frets_properties;
+mod help_topics;
 mod lengths_courses;
 mod lengths_solve;
 mod output_safety;

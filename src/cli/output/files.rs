@@ -1,6 +1,6 @@
 //! The one writer of reports, string-set files and (later) pictures.
 //!
-//! The rules, in README's words:
+//! The rules, in the words of `taut help output-files`:
 //! - `-` is standard output; a closed standard output is an error (exit 1), a reader that stopped
 //!   early (`| head`) is not.
 //! - Nothing is written over one of the command's own inputs (compared by device and inode, so
