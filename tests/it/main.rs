@@ -38,6 +38,7 @@ mod strings_data;
 mod strings_materials;
 mod strings_select;
 mod strings_several;
+mod strings_stiffness;
 mod survey;
 mod table_snapshots;
 mod tuning_bad_input;
