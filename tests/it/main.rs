@@ -35,6 +35,7 @@ mod report_look;
 mod report_widths;
 mod set_files;
 mod strings_data;
+mod strings_harp_bass;
 mod strings_materials;
 mod strings_select;
 mod strings_several;
