@@ -37,6 +37,7 @@ mod set_files;
 mod strings_data;
 mod strings_harp_bass;
 mod strings_materials;
+mod strings_nylon_trebles;
 mod strings_select;
 mod strings_several;
 mod strings_stiffness;
