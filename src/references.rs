@@ -113,6 +113,25 @@
 //!   (**derived**; Satoh's paper itself not seen); silk **from memory** (Morton & Hearle) and
 //!   **read** in a weaker web table; the core fill **common practice**.
 //!
+//! ### 2.3 A nylon string at pitch: stretched, lighter per metre
+//!
+//! - *Source:* N. Lynch-Aird & J. Woodhouse, "Mechanical properties of nylon harp strings",
+//!   *Materials* 10(5):497 (2017), doi:10.3390/ma10050497, §4.1 and Fig. 4: monofilament nylon
+//!   strings stretch as they are brought to pitch and settle; their bulk density falls a little
+//!   on first stretching (to about 97 % of the unstretched value for most strings tested, 92 %
+//!   for one) and then stays constant, so the mass per metre falls with the stretch.
+//! - *Taken:* `taut` computes μ from the diameter a string is sold at and the bulk density
+//!   (§2.2), which is the mass per metre before stretching. Once settled at pitch the string has
+//!   stretched by a fraction ε and carries μ/(1+ε), so it pulls T/(1+ε) for the same pitch
+//!   (§1.2). For normal-tension classical trebles sold at 0.72, 0.82 and 1.02 mm on 650 mm,
+//!   `taut` gives 85.2, 62.0 and 60.5 N (E4, B3, G3); Woodhouse's measured set (§5.4) pulls
+//!   70.3, 53.4 and 58.3 N, 4-21 % less (its diameters are not given). `taut` keeps the
+//!   unstretched figure: it is the upper bound, so a load or a stress is never understated, and
+//!   the stretch at pitch depends on the string's make and history, which `taut` cannot know.
+//! - *Provenance:* the density finding **read** (the paper's results section, in a copy of the
+//!   published article); the μ/(1+ε) relation **derived** (mass conserved over a longer string);
+//!   the treble diameters **common practice**, from memory.
+//!
 //! ## 3 Young's modulus
 //!
 //! ### 3.1 Metals
@@ -122,11 +141,14 @@
 //!   ASTM A228 29.5, 29.0, 28.5 and 28.0 Mpsi for diameters up to 0.032, 0.063, 0.125 in and
 //!   above; Beer et al., Appendix B: stainless 302 28 Mpsi, oxygen-free copper 17 Mpsi; the UNS
 //!   C51000 and C24000 alloy data (16 Mpsi each).
-//! - *Taken:* music wire 203.4 / 200 / 196.5 / 193 GPa by diameter step; stainless 193 GPa;
-//!   copper 117 GPa; phosphor bronze and brass 110 GPa; nickel and nickel-plated steel 200 GPa.
-//!   Only the load-bearing core's modulus matters for stiffness (§5.3).
-//! - *Provenance:* **read** (Shigley, Beer et al., alloy data); nickel **from memory** (handbook
-//!   range 200–207 GPa).
+//! - *Taken:* music wire 203.4 / 200 / 196.5 / 193 GPa, each value held at the top of its size
+//!   range (0.032, 0.063, 0.125, 0.250 in) and joined by straight lines between them, so the
+//!   stiffness of a string never jumps at a range edge (a step of 1.7 % at 0.032 in before);
+//!   stainless 193 GPa; copper 117 GPa; phosphor bronze and brass 110 GPa; nickel and
+//!   nickel-plated steel 200 GPa. Only the load-bearing core's modulus matters for stiffness
+//!   (§5.3).
+//! - *Provenance:* **read** (Shigley, Beer et al., alloy data); the joined curve **derived** (it
+//!   stays within 1.8 % of the table); nickel **from memory** (handbook range 200–207 GPa).
 //!
 //! ### 3.2 Polymers and gut
 //!

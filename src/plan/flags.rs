@@ -99,7 +99,7 @@ mod tests {
         let every = Warnings::every_plan_name()
             .filter_map(Warnings::from_plan_name)
             .fold(Warnings::NONE, Warnings::union);
-        assert_eq!(every.names().count(), 9);
+        assert_eq!(every.names().count(), 10);
         let selector: Vec<String> = every.names().map(|name| name.replace('-', "_")).collect();
         let flags = StringFlags::new(every, true);
         let ours: Vec<&str> = flags.names().collect();

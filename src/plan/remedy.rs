@@ -53,6 +53,9 @@ pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static st
         (WarningKind::OffTarget, _) => {
             "Fix: allow another kind, add the gauges in between with --stock, or widen the tolerance."
         }
+        (WarningKind::ThickMonofilament, _) => {
+            "Fix: a wound kind gives the mass on a thinner, brighter string (for harp basses, a wound nylon-core or steel-core kind)."
+        }
         (WarningKind::OverRatedLoad, _) => {
             "Fix: lower the tension targets or use lighter strings; only the maker can raise the rating."
         }

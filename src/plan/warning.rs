@@ -39,11 +39,14 @@ pub enum WarningKind {
     OffTarget,
     /// The instrument's total tension exceeds its rated load.
     OverRatedLoad,
+    /// A plain monofilament thicker than its material's thickest plain string in common
+    /// practice: it sounds dull, and makers change to a wound string before it.
+    ThickMonofilament,
 }
 
 impl WarningKind {
     /// Every kind, for documentation and tests.
-    pub const ALL: [WarningKind; 9] = [
+    pub const ALL: [WarningKind; 10] = [
         WarningKind::StressCaution,
         WarningKind::StressDanger,
         WarningKind::ThinnerThanPractical,
@@ -53,6 +56,7 @@ impl WarningKind {
         WarningKind::TensionAboveWindow,
         WarningKind::OffTarget,
         WarningKind::OverRatedLoad,
+        WarningKind::ThickMonofilament,
     ];
 
     /// The name used in JSON, CSV and tables.
@@ -67,6 +71,7 @@ impl WarningKind {
             WarningKind::TensionAboveWindow => "tension_above_window",
             WarningKind::OffTarget => "off_target",
             WarningKind::OverRatedLoad => "over_rated_load",
+            WarningKind::ThickMonofilament => "thick_monofilament",
         }
     }
 
@@ -80,7 +85,9 @@ impl WarningKind {
             | WarningKind::WiderThanSlot
             | WarningKind::TensionBelowWindow
             | WarningKind::TensionAboveWindow => Severity::Caution,
-            WarningKind::ThickerThanCatalog | WarningKind::OffTarget => Severity::Note,
+            WarningKind::ThickerThanCatalog
+            | WarningKind::OffTarget
+            | WarningKind::ThickMonofilament => Severity::Note,
         }
     }
 }
@@ -228,6 +235,23 @@ impl StringRef {
             },
             required_unit_mass,
             heaviest,
+            message,
+        )
+    }
+
+    /// A plain monofilament thicker than its material's `thickest_plain` (common practice).
+    pub fn thick_monofilament(self, diameter_m: f64, thickest_m: f64, material: &str) -> Warning {
+        let message = format!(
+            "{} is a {:.2} mm plain {} string, thicker than plain strings of it usually run (about {:.2} mm at most): so thick a monofilament sounds dull, and makers change to a wound string before this point.",
+            self.named(),
+            diameter_m * 1000.0,
+            material,
+            thickest_m * 1000.0
+        );
+        self.warning(
+            WarningKind::ThickMonofilament,
+            diameter_m,
+            thickest_m,
             message,
         )
     }

@@ -35,6 +35,9 @@ pub struct Gauge {
     pub unit_mass: f64,
     /// Tension at which the load-bearing section reaches its breaking strength, N.
     pub breaking_tension: f64,
+    /// A plain string thicker than its material's thickest plain string in common practice
+    /// ([`Material::thickest_plain`]).
+    pub thick_for_plain: bool,
 }
 
 /// How a kind's strings are built.

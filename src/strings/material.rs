@@ -162,6 +162,12 @@ pub struct Material {
     /// only ever serve as a wrap, which carries no load in `taut`'s model (REFERENCES §6.2).
     #[serde(default)]
     pub breaking_strength: Option<Curve>,
+    /// The thickest plain string of this material that common practice strings (for a
+    /// monofilament such as nylon), if there is such a limit. Thicker plain strings of it are
+    /// flagged `thick-monofilament` by the selector: they sound dull, and
+    /// makers change to wound strings before they get there.
+    #[serde(default)]
+    pub thickest_plain: Option<Diameter>,
     /// Where the numbers come from, with provenance tags (READ / from memory / DERIVED / PRACTICE).
     pub source: String,
 }
@@ -175,6 +181,11 @@ impl Material {
     /// Young's modulus (Pa) of a wire of this diameter (m).
     pub fn modulus_at(&self, diameter: f64) -> f64 {
         self.elastic_modulus.at(diameter)
+    }
+
+    /// The thickest plain string of this material in common practice (m), if it has such a limit.
+    pub fn thickest_plain(&self) -> Option<f64> {
+        self.thickest_plain.map(|d| d.si())
     }
 
     /// Breaking strength (Pa) of a wire of this diameter (m), if the material has one.

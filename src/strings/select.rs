@@ -15,8 +15,9 @@
 //!      fitting the slot, below the caution stress, of known strength, and the kind's catalog
 //!      reaches the linear density the course needs (neither thinner nor thicker than it has);
 //!    - *with reservations*: within the tolerance, inside the window, fitting and below the
-//!      danger stress, but above the caution stress, at the end of its catalog, or of unknown
-//!      strength;
+//!      danger stress, but above the caution stress, at the end of its catalog, of unknown
+//!      strength, or a plain monofilament thicker than common practice strings it (the
+//!      material's `thickest_plain`);
 //!    - *closest*: anything else.
 //! 4. The chosen string is the best gauge of the *first kind in the caller's order of
 //!    preference* that is on target; failing that, the first with reservations. A kind that
@@ -198,7 +199,8 @@ pub fn standing(choice: &Choice, tolerance: f64) -> Standing {
         Warnings::STRESS_CAUTION
             .union(Warnings::THINNER_THAN_CATALOG)
             .union(Warnings::THICKER_THAN_CATALOG)
-            .union(Warnings::STRENGTH_UNKNOWN),
+            .union(Warnings::STRENGTH_UNKNOWN)
+            .union(Warnings::THICK_MONOFILAMENT),
     ) {
         Standing::WithReservations
     } else {
@@ -264,6 +266,9 @@ fn evaluate_gauge(
         .is_some_and(|g| required_unit_mass > g.unit_mass * (1.0 + EDGE))
     {
         warnings.insert(Warnings::THICKER_THAN_CATALOG);
+    }
+    if gauge.thick_for_plain {
+        warnings.insert(Warnings::THICK_MONOFILAMENT);
     }
     Choice {
         kind: kind_index,

@@ -147,7 +147,32 @@ fn over_rated_load() {
 }
 
 #[test]
+fn thick_monofilament() {
+    // Plain nylon (1140 kg/m³, REFERENCES §2.2) at C2 on 1.3 m for 150 N needs
+    // d = √(4μ/(πρ)) with μ = 150/(2·1.3·65.41)² = 5.19 g/m: 2.41 mm, over the 2.0 mm at which
+    // plain nylon strings stop in common practice. At D3 on 0.68 m for 120 N it needs 1.83 mm.
+    let course = |pitch: &str, length: &str, tension: &str| {
+        format!("  - pitch: {pitch}\n    scale_length: {length}\n    kinds: [nylon]\n    tension: {tension}\n")
+    };
+    let thick = plan(&course("C2", "1300mm", "150N"), "");
+    let warning = thick
+        .warnings
+        .iter()
+        .find(|warning| warning.kind == WarningKind::ThickMonofilament)
+        .unwrap();
+    assert_eq!(warning.severity, Severity::Note);
+    assert!(warning.value > 0.002 && warning.limit == 0.002);
+    assert!(
+        warning.message.contains("plain nylon"),
+        "{}",
+        warning.message
+    );
+    let usual = plan(&course("D3", "680mm", "120N"), "");
+    assert!(!kinds(&usual).contains(&WarningKind::ThickMonofilament));
+}
+
+#[test]
 fn every_kind_is_covered_above() {
     // Keeps this file honest when a kind is added: each must get its own pair of tests here.
-    assert_eq!(WarningKind::ALL.len(), 9);
+    assert_eq!(WarningKind::ALL.len(), 10);
 }

@@ -337,6 +337,17 @@ impl CourseContext<'_> {
                 warnings.push(at.thicker_than_catalog(required_unit_mass, heaviest.unit_mass));
             }
         }
+        if flags.contains(Warnings::THICK_MONOFILAMENT) {
+            if let KindBuild::Plain { material } = &kind.build {
+                if let Some(thickest) = material.thickest_plain() {
+                    warnings.push(at.thick_monofilament(
+                        chosen.diameter,
+                        thickest,
+                        material.id.as_str(),
+                    ));
+                }
+            }
+        }
         if flags.contains(Warnings::WIDER_THAN_SLOT) {
             if let Some(widest) = request.checks.widest {
                 warnings.push(at.wider_than_slot(chosen.diameter, widest));

@@ -293,6 +293,12 @@ pub(super) fn kinds_from_file(
                     diameter,
                     unit_mass: string.unit_mass(),
                     breaking_tension: string.breaking_tension().unwrap_or(f64::NAN),
+                    thick_for_plain: match &kind.build {
+                        KindBuild::Plain { material } => material
+                            .thickest_plain()
+                            .is_some_and(|thickest| diameter > thickest * (1.0 + 1e-9)),
+                        _ => false,
+                    },
                 }
             })
             .collect();

@@ -28,10 +28,13 @@ impl Warnings {
     pub const NONE_WITHIN_TOLERANCE: Warnings = Warnings(1 << 7);
     /// The breaking strength is unknown (a measured string without a material).
     pub const STRENGTH_UNKNOWN: Warnings = Warnings(1 << 8);
+    /// A plain monofilament thicker than its material's thickest plain string in common
+    /// practice (dull; makers change to a wound string first).
+    pub const THICK_MONOFILAMENT: Warnings = Warnings(1 << 9);
 
     /// Each flag with its stable name and the name plans give it (snake_case, as their other
     /// field names), in the order reports list them.
-    const NAMES: [(Warnings, &'static str, &'static str); 9] = [
+    const NAMES: [(Warnings, &'static str, &'static str); 10] = [
         (Warnings::STRESS_CAUTION, "stress-caution", "stress_caution"),
         (Warnings::STRESS_DANGER, "stress-danger", "stress_danger"),
         (
@@ -60,6 +63,11 @@ impl Warnings {
             Warnings::STRENGTH_UNKNOWN,
             "strength-unknown",
             "strength_unknown",
+        ),
+        (
+            Warnings::THICK_MONOFILAMENT,
+            "thick-monofilament",
+            "thick_monofilament",
         ),
     ];
 
