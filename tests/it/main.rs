@@ -2,6 +2,7 @@
 //! Each module was a test binary of its own; `common` holds the helpers they share.
 
 mod audit_cli;
+mod audit_current_state;
 mod audit_several;
 mod bad_input;
 mod calibration_common_sets;
