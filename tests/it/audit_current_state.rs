@@ -184,3 +184,146 @@ fn a_current_state_above_a_strings_breaking_load_is_refused() {
         .unwrap();
     assert!(output.status.success());
 }
+
+/// A plan's JSON and YAML exports read back as the set `--save-set` writes: audited, each
+/// gives the same strings and the plan's tensions. Before, `--set plan.json` failed with
+/// "unknown field `pitch`".
+#[test]
+fn a_plans_json_and_yaml_read_back_as_its_set_in_audit() {
+    let folder = tempfile::tempdir().unwrap();
+    let path = |name: &str| folder.path().join(name).to_string_lossy().into_owned();
+    for example in [
+        "guitar-19edo",
+        "lever-harp-34",
+        "examples/guitar-kept-strings.yaml",
+    ] {
+        let plan = json(&["plan", example]);
+        let (saved, as_json, as_yaml) = (path("saved.yaml"), path("plan.json"), path("plan.yaml"));
+        let run = |args: &[&str]| {
+            let output = taut().args(args).output().unwrap();
+            assert!(
+                output.status.success(),
+                "{args:?}: {}",
+                String::from_utf8_lossy(&output.stderr)
+            );
+        };
+        run(&[
+            "plan",
+            example,
+            "--save-set",
+            &saved,
+            "-o",
+            &as_json,
+            "--format",
+            "json",
+        ]);
+        run(&["plan", example, "-o", &as_yaml, "--format", "yaml"]);
+        let audits: Vec<_> = [&saved, &as_json, &as_yaml]
+            .iter()
+            .map(|set| json(&["audit", example, "--set", set]))
+            .collect();
+        for (course_index, course) in plan["courses"].as_array().unwrap().iter().enumerate() {
+            for (string_index, planned) in course["strings"].as_array().unwrap().iter().enumerate()
+            {
+                for (audit, name) in audits.iter().zip(["--save-set", "JSON", "YAML"]) {
+                    let audited = &audit["courses"][course_index]["strings"][string_index];
+                    let at = format!("{example} ({name}) course {}", course["course"]);
+                    let (d_plan, d_audit) = (
+                        number(&planned["diameter_mm"]),
+                        number(&audited["diameter_mm"]),
+                    );
+                    assert!(
+                        (d_plan - d_audit).abs() < 1e-9,
+                        "{at}: {d_plan} vs {d_audit}"
+                    );
+                    let (t_plan, t_audit) =
+                        (number(&planned["tension_n"]), number(&audited["tension_n"]));
+                    assert!(
+                        (t_plan - t_audit).abs() <= 1e-6 * t_plan,
+                        "{at}: {t_plan} vs {t_audit}"
+                    );
+                    // The same string: the plan's kind, or (a measured or weighed string,
+                    // which an export holds as its μ) a measured string of the same μ.
+                    if planned["construction"] == "measured" {
+                        assert!(audited["string"]
+                            .as_str()
+                            .unwrap()
+                            .ends_with("(music-wire)"));
+                    } else {
+                        assert_eq!(audited["string"], planned["kind"], "{at}");
+                    }
+                    let (mu_plan, mu_audit) = (
+                        number(&planned["unit_mass_kg_per_m"]),
+                        number(&audited["unit_mass_kg_per_m"]),
+                    );
+                    assert!((mu_plan - mu_audit).abs() <= 1e-6 * mu_plan, "{at}");
+                }
+            }
+        }
+    }
+}
+
+/// A plan for several tunings holds one set for all of them: its export reads back as that set.
+#[test]
+fn a_several_tunings_plan_reads_back_as_its_one_set() {
+    let folder = tempfile::tempdir().unwrap();
+    let example = "examples/guitar-three-tunings.yaml";
+    let as_json = folder
+        .path()
+        .join("plan.json")
+        .to_string_lossy()
+        .into_owned();
+    let saved = folder
+        .path()
+        .join("saved.yaml")
+        .to_string_lossy()
+        .into_owned();
+    let output = taut()
+        .args([
+            "plan",
+            example,
+            "--format",
+            "json",
+            "-o",
+            &as_json,
+            "--save-set",
+            &saved,
+        ])
+        .output()
+        .unwrap();
+    assert!(output.status.success());
+    let from_json = json(&["audit", example, "--set", &as_json]);
+    let from_saved = json(&["audit", example, "--set", &saved]);
+    assert_eq!(from_json["courses"], from_saved["courses"]);
+    assert_eq!(from_json["tunings"], from_saved["tunings"]);
+}
+
+/// A wound string fixed with its own core: the export does not record the core, so reading it
+/// back as the kind's default core would give another string; it is refused, pointing at
+/// `--save-set`.
+#[test]
+fn a_plan_export_that_cannot_say_a_strings_core_is_refused() {
+    let folder = tempfile::tempdir().unwrap();
+    let instrument = write_file(
+        folder.path(),
+        "core.yaml",
+        &NOTE_GUITAR.replace(
+            "pitch: E2, kinds: [phosphor-bronze-wound]}",
+            "pitch: E2, string: {kind: phosphor-bronze-wound, diameter: 0.053in, core_diameter: 0.021in}}",
+        ),
+    );
+    let instrument = instrument.to_str().unwrap();
+    let as_json = folder
+        .path()
+        .join("plan.json")
+        .to_string_lossy()
+        .into_owned();
+    let output = taut()
+        .args(["plan", instrument, "--format", "json", "-o", &as_json])
+        .output()
+        .unwrap();
+    assert!(output.status.success());
+    let stderr = bad_input(&["audit", instrument, "--set", &as_json]);
+    assert!(stderr.contains("courses[5].strings[0]"), "{stderr}");
+    assert!(stderr.contains("--save-set"), "{stderr}");
+}
