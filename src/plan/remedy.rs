@@ -23,8 +23,35 @@ pub enum Build {
     Unknown,
 }
 
+/// What the command solves for, which decides what a fix can change.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Solving {
+    /// Strings for given pitches and lengths (`plan`, `audit`, `convert`): the length is fixed,
+    /// so a plain string's stress ρ(2Lf)² holds no gauge.
+    Strings,
+    /// Lengths for given strings and tensions (`lengths`): the tension is fixed, so the stress
+    /// T/A falls with a heavier gauge (whose solved length L = √(T/μ)/(2f) is then shorter),
+    /// and the strings chosen do not change the total load.
+    Lengths,
+}
+
 /// The fix for a warning: one sentence, or `None` when there is no advice to give.
 pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static str> {
+    remedy_in(Solving::Strings, kind, value, build)
+}
+
+/// The fix for a warning, for a command that solves for `solving`.
+pub fn remedy_in(
+    solving: Solving,
+    kind: WarningKind,
+    value: f64,
+    build: Build,
+) -> Option<&'static str> {
+    if solving == Solving::Lengths {
+        if let Some(text) = lengths_remedy(kind, build) {
+            return Some(text);
+        }
+    }
     let text = match (kind, build) {
         (WarningKind::StressDanger | WarningKind::StressCaution, Build::Wound) => {
             "Fix: a wound string with a thicker core, a shorter length or a stronger core material lowers the stress."
@@ -63,11 +90,38 @@ pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static st
     Some(text)
 }
 
+/// The fixes that differ while lengths are solved: at a fixed tension σ = T/A, so a heavier
+/// gauge lowers the stress (and, being heavier, gets a shorter length); the total load is the
+/// sum of the tensions asked for, whatever the strings.
+fn lengths_remedy(kind: WarningKind, build: Build) -> Option<&'static str> {
+    let text = match (kind, build) {
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Wound) => {
+            "Fix: at this tension a heavier gauge (with its thicker core) or a stronger core material lowers the stress, and the heavier string gets a shorter length; so does less tension."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Plain) => {
+            "Fix: at this tension a heavier gauge lowers the stress (σ = T/A) and gets a shorter length; so do less tension or a stronger material."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Unknown) => {
+            "Fix: less tension, or a string with more load-bearing section (a heavier gauge, which gets a shorter length), lowers the stress."
+        }
+        (WarningKind::OverRatedLoad, _) => {
+            "Fix: lower the tensions asked for (the layout's `tension` or --tension): the lengths follow the strings, the load does not; only the maker can raise the rating."
+        }
+        _ => return None,
+    };
+    Some(text)
+}
+
 /// Appends the fix to each warning's message (once: a message that already ends with it is
 /// left alone). `build_of` tells how the string a warning is about is built.
 pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
+    attach_in(Solving::Strings, warnings, build_of);
+}
+
+/// [`attach`], for a command that solves for `solving`.
+pub fn attach_in(solving: Solving, warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
     for warning in warnings {
-        if let Some(fix) = remedy(warning.kind, warning.value, build_of(warning)) {
+        if let Some(fix) = remedy_in(solving, warning.kind, warning.value, build_of(warning)) {
             if !warning.message.ends_with(fix) {
                 warning.message.push(' ');
                 warning.message.push_str(fix);

@@ -186,6 +186,36 @@ impl StringRef {
         self.warning(kind, stress_ratio, limit, message)
     }
 
+    /// A stress caution or danger where the tension is given and the length solved (`taut
+    /// lengths`): the stress T/A holds no length, so it is the tension the string cannot take,
+    /// not the pitch it cannot reach.
+    pub fn stress_at_tension(
+        self,
+        kind: WarningKind,
+        stress_ratio: f64,
+        limit: f64,
+        tension_n: f64,
+    ) -> Warning {
+        let message = if stress_ratio >= 1.0 {
+            format!(
+                "{} cannot hold {:.1} N on any length: that is {} of its breaking strength (limit {:.0}%).",
+                self.named(),
+                tension_n,
+                percent_beside(stress_ratio, [limit]),
+                limit * 100.0,
+            )
+        } else {
+            format!(
+                "{} runs at {} of its breaking strength at {:.1} N, on any length (limit {:.0}%).",
+                self.named(),
+                percent_beside(stress_ratio, [limit]),
+                tension_n,
+                limit * 100.0,
+            )
+        };
+        self.warning(kind, stress_ratio, limit, message)
+    }
+
     /// The target asks for a lighter string than the thinnest available: the target cannot be
     /// reached with this kind. At a fixed pitch and length tension goes with μ (REFERENCES §1.2),
     /// so the thinnest pulls `lightest / required` times the target.

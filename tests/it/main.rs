@@ -12,6 +12,7 @@ mod common;
 mod convert_plan;
 mod convert_transpose;
 mod feel_fletcher;
+mod fix_advice;
 mod frets_bad_input;
 mod frets_cli;
 mod frets_properties;
