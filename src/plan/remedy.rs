@@ -10,7 +10,7 @@
 //! diameter, so its breaking pitch f = √(σ_break/ρ)/(2L) depends only on length and material
 //! (see `crate::strings::physics`).
 
-use crate::plan::warning::{Warning, WarningKind};
+use crate::plan::warning::{Warning, WarningKind, NONE_HEAVY_ENOUGH, NONE_LIGHT_ENOUGH};
 
 /// How the string a warning is about is built, as far as the report knows.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -65,11 +65,20 @@ pub fn remedy_in(
         (WarningKind::ThinnerThanPractical, _) => {
             "Fix: a shorter length, a lighter material or a kind with thinner gauges lets a string land on target."
         }
+        (WarningKind::ThickerThanCatalog, Build::Wound) => {
+            "Fix: heavier gauges of this kind (add them with --stock), a heavier kind (a denser wrap or more wrap layers), a longer length or a lower target lets the string reach it."
+        }
         (WarningKind::ThickerThanCatalog, _) => {
             "Fix: a wound kind (more mass for its width) or a longer length lets a catalog string reach the target."
         }
+        (WarningKind::WiderThanSlot, Build::Wound) => {
+            "Fix: a denser wound kind (a denser wrap or more wrap layers) or less tension needs a narrower string; else the slot must be widened."
+        }
         (WarningKind::WiderThanSlot, _) => {
             "Fix: a denser kind (a wound one) or less tension needs a narrower string; else the slot must be widened."
+        }
+        (WarningKind::TensionBelowWindow, Build::Wound) => {
+            "Fix: a heavier gauge or a heavier wound kind (a denser wrap or more wrap layers) brings the tension up into the window."
         }
         (WarningKind::TensionBelowWindow, _) => {
             "Fix: a heavier gauge or a wound kind brings the tension up into the window."
@@ -112,6 +121,26 @@ fn lengths_remedy(kind: WarningKind, build: Build) -> Option<&'static str> {
     Some(text)
 }
 
+/// The fix for a window warning whose string is already the heaviest (or lightest) gauge of
+/// its kind: another gauge of the kind cannot be the fix.
+fn catalog_end_remedy(warning: &Warning, build: Build) -> Option<&'static str> {
+    let text = match (warning.kind, build) {
+        (WarningKind::TensionBelowWindow, Build::Wound)
+            if warning.message.ends_with(NONE_HEAVY_ENOUGH) =>
+        {
+            "Fix: heavier gauges of this kind (add them with --stock), a heavier wound kind (a denser wrap or more wrap layers) or a longer length brings the tension up into the window."
+        }
+        (WarningKind::TensionBelowWindow, _) if warning.message.ends_with(NONE_HEAVY_ENOUGH) => {
+            "Fix: a wound kind (more mass for its width), heavier gauges added with --stock or a longer length brings the tension up into the window."
+        }
+        (WarningKind::TensionAboveWindow, _) if warning.message.ends_with(NONE_LIGHT_ENOUGH) => {
+            "Fix: a lighter kind, thinner gauges added with --stock or a shorter length brings the tension down into the window."
+        }
+        _ => return None,
+    };
+    Some(text)
+}
+
 /// Appends the fix to each warning's message (once: a message that already ends with it is
 /// left alone). `build_of` tells how the string a warning is about is built.
 pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
@@ -121,7 +150,9 @@ pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
 /// [`attach`], for a command that solves for `solving`.
 pub fn attach_in(solving: Solving, warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
     for warning in warnings {
-        if let Some(fix) = remedy_in(solving, warning.kind, warning.value, build_of(warning)) {
+        let fix = catalog_end_remedy(warning, build_of(warning))
+            .or_else(|| remedy_in(solving, warning.kind, warning.value, build_of(warning)));
+        if let Some(fix) = fix {
             if !warning.message.ends_with(fix) {
                 warning.message.push(' ');
                 warning.message.push_str(fix);

@@ -17,6 +17,15 @@ use serde::{Deserialize, Serialize};
 /// instrument well beyond what was planned.
 pub const FAR_FROM_TARGET: f64 = 0.30;
 
+/// The sentence a window warning ends with when the heaviest gauge of the kind is already used
+/// (the fix then cannot be "a heavier gauge").
+pub const NONE_HEAVY_ENOUGH: &str =
+    "No catalog string of this kind is heavy enough to reach the window.";
+
+/// The sentence a window warning ends with when the lightest gauge of the kind is already used.
+pub const NONE_LIGHT_ENOUGH: &str =
+    "No catalog string of this kind is light enough to stay inside the window.";
+
 /// What a warning is about. Serialized in snake_case (`stress_danger`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
 #[serde(rename_all = "snake_case")]
@@ -289,13 +298,11 @@ impl StringRef {
         let mut warning = self.outside_window(tension_n, min_n, max_n)?;
         let below = warning.kind == WarningKind::TensionBelowWindow;
         if below && heaviest {
-            warning
-                .message
-                .push_str(" No catalog string of this kind is heavy enough to reach the window.");
+            warning.message.push(' ');
+            warning.message.push_str(NONE_HEAVY_ENOUGH);
         } else if !below && thinnest {
-            warning.message.push_str(
-                " No catalog string of this kind is light enough to stay inside the window.",
-            );
+            warning.message.push(' ');
+            warning.message.push_str(NONE_LIGHT_ENOUGH);
         }
         Some(warning)
     }

@@ -66,3 +66,100 @@ fn lengths_load_fix_asks_for_less_tension_not_lighter_strings() {
     );
     assert!(!joined.contains("use lighter strings"), "{text}");
 }
+
+/// A five-string bass at 34 in, nickel-wound throughout, B0 E1 A1 D2 G2 (common practice for
+/// the tuning; the tensions come from the shipped catalog).
+const FIVE_STRING_BASS: &str = "\
+name: Five-string bass
+tuning: 12edo
+scale_length: 34in
+defaults:
+  tension: {target: 180N, min: 120N, max: 240N}
+  kinds: [nickel-wound]
+courses:
+  - {course: 1, pitch: G2}
+  - {course: 2, pitch: D2}
+  - {course: 3, pitch: A1}
+  - {course: 4, pitch: E1}
+  - {course: 5, pitch: B0}
+";
+
+/// The low B takes the heaviest nickel-wound gauge and lands 9 % under its target, inside its
+/// tolerance and window. Before, its row read "no fit" and the fix proposed "a wound kind" for a
+/// string that is wound.
+#[test]
+fn a_wound_low_b_at_the_catalogs_end_reads_heaviest_and_is_not_told_to_be_wound() {
+    let folder = tempfile::tempdir().unwrap();
+    let bass = write_file(folder.path(), "bass.yaml", FIVE_STRING_BASS);
+    let bass = bass.to_str().unwrap();
+    let text = table(&["plan", bass]);
+    let row = text
+        .lines()
+        .find(|line| line.starts_with("5 "))
+        .expect("course 5's row");
+    let words: Vec<&str> = row.split_whitespace().collect();
+    assert_eq!(words[1], "heaviest", "{text}");
+    assert!(!text.contains("no fit"), "{text}");
+    let plan = json(&["plan", bass]);
+    let low = &plan["courses"][4];
+    let tension = number(&low["strings"][0]["tension_n"]);
+    // Inside the window (120-240 N) and the default tolerance of the target.
+    assert!((120.0..=240.0).contains(&tension) && (tension / 180.0 - 1.0).abs() < 0.10);
+    for warning in low["warnings"].as_array().unwrap() {
+        let message = warning["message"].as_str().unwrap();
+        assert!(!message.contains("a wound kind"), "{message}");
+    }
+    assert!(low["warnings"][0]["message"]
+        .as_str()
+        .unwrap()
+        .contains("heavier gauges of this kind"));
+}
+
+/// A window the heaviest gauge cannot reach: the fix cannot be "a heavier gauge" (the message
+/// says none is heavy enough) nor "a wound kind" (it is wound).
+#[test]
+fn a_window_fix_at_the_catalogs_end_does_not_propose_another_gauge_of_the_kind() {
+    let folder = tempfile::tempdir().unwrap();
+    let bass = write_file(
+        folder.path(),
+        "bass.yaml",
+        &FIVE_STRING_BASS.replace("min: 120N", "min: 170N"),
+    );
+    let plan = json(&["plan", bass.to_str().unwrap()]);
+    let below = plan["courses"][4]["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|w| w["kind"] == "tension_below_window")
+        .expect("course 5 below its window");
+    let message = below["message"].as_str().unwrap();
+    assert!(message.contains("No catalog string of this kind is heavy enough"));
+    let fix = &message[message.find("Fix:").unwrap()..];
+    assert!(!fix.contains("a heavier gauge"), "{fix}");
+    assert!(!fix.contains("a wound kind"), "{fix}");
+    assert!(fix.contains("--stock"), "{fix}");
+}
+
+/// The nut-slot note of a conversion to wound strings proposed "a denser kind (a wound one)".
+#[test]
+fn a_slot_fix_for_a_wound_string_does_not_propose_a_wound_one() {
+    let report = json(&[
+        "convert",
+        "examples/steel-guitar-12edo.yaml",
+        "--set",
+        "examples/steel-guitar-set.yaml",
+        "--to-instrument",
+        "examples/baritone-guitar.yaml",
+    ]);
+    let wound_slot_notes: Vec<&str> = report["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|w| w["kind"] == "wider_than_slot" && w["course"].as_u64().unwrap() >= 3)
+        .map(|w| w["message"].as_str().unwrap())
+        .collect();
+    assert!(!wound_slot_notes.is_empty());
+    for message in wound_slot_notes {
+        assert!(!message.contains("(a wound one)"), "{message}");
+    }
+}
