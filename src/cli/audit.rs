@@ -177,7 +177,9 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let source = match (&args.from, &now_instrument) {
         (Some(_), None) => audit::ReferenceSource::TuningOption("--from"),
         (_, Some(_)) => audit::ReferenceSource::Instrument,
-        (None, None) if set_tuning.is_some() => audit::ReferenceSource::SetTuning,
+        (None, None) if set_tuning.is_some() => {
+            audit::ReferenceSource::SetTuning(set_tuning.unwrap_or_default())
+        }
         (None, None) => audit::ReferenceSource::OwnTuning,
     };
     let reference = reference_tuning.as_ref().map(|tuning| audit::Reference {

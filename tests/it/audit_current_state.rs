@@ -156,6 +156,7 @@ fn a_current_state_above_a_strings_breaking_load_is_refused() {
     let set = set_in(folder.path(), "octave.yaml", "12edo@A4=880");
     let stderr = bad_input(&["audit", instrument, "--set", &set]);
     assert!(stderr.contains("octave.yaml:2"), "{stderr}");
+    assert!(stderr.contains("`tuning: 12edo@A4=880`"), "{stderr}");
     assert!(stderr.contains("beyond its breaking load"), "{stderr}");
     assert!(stderr.contains("--from-instrument FILE"), "{stderr}");
     // An instrument file "as strung now" with the top string an octave up is refused too, at

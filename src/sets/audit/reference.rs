@@ -39,8 +39,9 @@ pub struct Reference<'a> {
 /// What says where the strings are now.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum ReferenceSource<'a> {
-    /// The set file's `tuning:` line, with the audited instrument's own course pitches.
-    SetTuning,
+    /// The set file's `tuning:` line (the spec as written), with the audited instrument's own
+    /// course pitches.
+    SetTuning(&'a str),
     /// An option naming a tuning (e.g. `--from`), with the audited instrument's own course
     /// pitches; the text names the option.
     TuningOption(&'a str),
@@ -55,7 +56,7 @@ impl ReferenceSource<'_> {
     fn rereads_pitches(self) -> bool {
         matches!(
             self,
-            ReferenceSource::SetTuning | ReferenceSource::TuningOption(_)
+            ReferenceSource::SetTuning(_) | ReferenceSource::TuningOption(_)
         )
     }
 }
@@ -138,9 +139,7 @@ impl Reference<'_> {
     /// What says where the strings are, in words.
     fn source_words(&self) -> String {
         match self.source {
-            ReferenceSource::SetTuning => {
-                format!("the set's `tuning: {}`", self.tuning.name())
-            }
+            ReferenceSource::SetTuning(spec) => format!("the set's `tuning: {}`", spec.trim()),
             ReferenceSource::TuningOption(option) => {
                 format!("{option} {}", self.tuning.name())
             }
@@ -171,7 +170,7 @@ impl Reference<'_> {
             PathStep::Key("pitch"),
         ];
         match self.source {
-            ReferenceSource::SetTuning => set
+            ReferenceSource::SetTuning(_) => set
                 .point(error, &[PathStep::Key("tuning")])
                 .help(format!(
                     "{GIVE_THE_STATE_NOW}; or remove the set's `tuning:` line to audit without tension changes"
