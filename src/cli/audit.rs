@@ -173,9 +173,19 @@ pub fn run(args: AuditArgs) -> Result<()> {
         }
         _ => None,
     };
+    // What says where the strings are, so a refusal can name it.
+    let source = match (&args.from, &now_instrument) {
+        (Some(_), None) => audit::ReferenceSource::TuningOption("--from"),
+        (_, Some(_)) => audit::ReferenceSource::Instrument,
+        (None, None) if set_tuning.is_some() => {
+            audit::ReferenceSource::SetTuning(set_tuning.unwrap_or_default())
+        }
+        (None, None) => audit::ReferenceSource::OwnTuning,
+    };
     let reference = reference_tuning.as_ref().map(|tuning| audit::Reference {
         instrument: now,
         tuning,
+        source,
     });
     let max_change = parse_flag::<Percent>(args.max_change.as_deref(), "--max-change")?
         .map_or(DEFAULT_MAX_CHANGE, Percent::fraction);

@@ -112,7 +112,8 @@ pub fn run(args: LengthsArgs) -> Result<()> {
         .iter()
         .map(|course| (course.course, build_of_kind(&stock, &course.string)))
         .collect();
-    remedy::attach(&mut report.warnings, |warning| {
+    // `lengths` holds the tension and solves the length, so its fixes are the ones for that.
+    remedy::attach_in(remedy::Solving::Lengths, &mut report.warnings, |warning| {
         builds
             .iter()
             .find(|(course, _)| Some(*course) == warning.course)

@@ -159,25 +159,31 @@ pub fn course_pitch_text(pitch: &CoursePitch) -> String {
     pitch_with_note(&pitch.label, &pitch.note_name, pitch.note_offset_cents)
 }
 
-/// The status word that leads a string's row: the worst of its warnings, with the warnings
-/// that mean no catalog string lands where it should read as "no fit".
+/// The status word that leads a string's row: the worst of its warnings. "no fit" is kept for
+/// a string no catalog string brings within the tolerance (`off_target`); the heaviest or
+/// lightest gauge of a kind used because the catalog ends there, while the string lands within
+/// the tolerance, reads as "heaviest" or "lightest" (when nothing worse is said).
 pub fn status<'a>(warnings: impl IntoIterator<Item = &'a Warning>) -> &'static str {
     use taut::plan::warning::WarningKind::{OffTarget, ThickerThanCatalog, ThinnerThanPractical};
     let mut worst: Option<Severity> = None;
     let mut no_fit = false;
+    let mut catalog_end = None;
     for warning in warnings {
         worst = worst.max(Some(warning.severity));
-        no_fit |= matches!(
-            warning.kind,
-            OffTarget | ThickerThanCatalog | ThinnerThanPractical
-        );
+        no_fit |= warning.kind == OffTarget;
+        match warning.kind {
+            ThickerThanCatalog => catalog_end = Some("heaviest"),
+            ThinnerThanPractical => catalog_end = Some("lightest"),
+            _ => {}
+        }
     }
-    match (worst, no_fit) {
-        (Some(Severity::Danger), _) => "DANGER",
-        (_, true) => "no fit",
-        (Some(Severity::Caution), _) => "caution",
-        (Some(Severity::Note), _) => "note",
-        (None, _) => "ok",
+    match (worst, no_fit, catalog_end) {
+        (Some(Severity::Danger), _, _) => "DANGER",
+        (_, true, _) => "no fit",
+        (Some(Severity::Caution), _, _) => "caution",
+        (_, _, Some(word)) => word,
+        (Some(Severity::Note), _, _) => "note",
+        (None, _, _) => "ok",
     }
 }
 

@@ -129,7 +129,7 @@ pub fn solve_layout(
             course: course.course,
             string: 1,
         };
-        stress_warning(&mut warnings, at, &evaluation, limits, first_hz);
+        stress_warning(&mut warnings, at, &evaluation, limits);
         let mut other_strings = Vec::with_capacity(course.others.len());
         for (other_index, (interval, written)) in course.others.iter().enumerate() {
             let other = written.resolve(kinds, materials).map_err(|err| {
@@ -150,7 +150,7 @@ pub fn solve_layout(
                 course: course.course,
                 string: other_index + 2,
             };
-            stress_warning(&mut warnings, at, &other_evaluation, limits, hz);
+            stress_warning(&mut warnings, at, &other_evaluation, limits);
             other_strings.push(LayoutString {
                 interval: interval.written().to_string(),
                 string: written.label(),
@@ -248,30 +248,28 @@ pub fn solve_layout(
     })
 }
 
-/// Adds a stress caution or danger for one string, when its stress is known and high.
+/// Adds a stress caution or danger for one string, when its stress is known and high. The
+/// tension is given here and the length solved, so the warning names the tension.
 fn stress_warning(
     warnings: &mut Vec<Warning>,
     at: StringRef,
     evaluation: &select::Evaluation,
     limits: StressLimits,
-    pitch_hz: f64,
 ) {
-    if let (Some(ratio), Some(break_hz)) = (evaluation.stress_ratio, evaluation.break_frequency) {
+    if let Some(ratio) = evaluation.stress_ratio {
         if evaluation.warnings.contains(Warnings::STRESS_DANGER) {
-            warnings.push(at.stress(
+            warnings.push(at.stress_at_tension(
                 WarningKind::StressDanger,
                 ratio,
                 limits.danger,
-                break_hz,
-                pitch_hz,
+                evaluation.tension,
             ));
         } else if evaluation.warnings.contains(Warnings::STRESS_CAUTION) {
-            warnings.push(at.stress(
+            warnings.push(at.stress_at_tension(
                 WarningKind::StressCaution,
                 ratio,
                 limits.caution,
-                break_hz,
-                pitch_hz,
+                evaluation.tension,
             ));
         }
     }

@@ -10,7 +10,7 @@
 //! diameter, so its breaking pitch f = √(σ_break/ρ)/(2L) depends only on length and material
 //! (see `crate::strings::physics`).
 
-use crate::plan::warning::{Warning, WarningKind};
+use crate::plan::warning::{Warning, WarningKind, NONE_HEAVY_ENOUGH, NONE_LIGHT_ENOUGH};
 
 /// How the string a warning is about is built, as far as the report knows.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -23,8 +23,35 @@ pub enum Build {
     Unknown,
 }
 
+/// What the command solves for, which decides what a fix can change.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Solving {
+    /// Strings for given pitches and lengths (`plan`, `audit`, `convert`): the length is fixed,
+    /// so a plain string's stress ρ(2Lf)² holds no gauge.
+    Strings,
+    /// Lengths for given strings and tensions (`lengths`): the tension is fixed, so the stress
+    /// T/A falls with a heavier gauge (whose solved length L = √(T/μ)/(2f) is then shorter),
+    /// and the strings chosen do not change the total load.
+    Lengths,
+}
+
 /// The fix for a warning: one sentence, or `None` when there is no advice to give.
 pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static str> {
+    remedy_in(Solving::Strings, kind, value, build)
+}
+
+/// The fix for a warning, for a command that solves for `solving`.
+pub fn remedy_in(
+    solving: Solving,
+    kind: WarningKind,
+    value: f64,
+    build: Build,
+) -> Option<&'static str> {
+    if solving == Solving::Lengths {
+        if let Some(text) = lengths_remedy(kind, build) {
+            return Some(text);
+        }
+    }
     let text = match (kind, build) {
         (WarningKind::StressDanger | WarningKind::StressCaution, Build::Wound) => {
             "Fix: a wound string with a thicker core, a shorter length or a stronger core material lowers the stress."
@@ -38,11 +65,20 @@ pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static st
         (WarningKind::ThinnerThanPractical, _) => {
             "Fix: a shorter length, a lighter material or a kind with thinner gauges lets a string land on target."
         }
+        (WarningKind::ThickerThanCatalog, Build::Wound) => {
+            "Fix: heavier gauges of this kind (add them with --stock), a heavier kind (a denser wrap or more wrap layers), a longer length or a lower target lets the string reach it."
+        }
         (WarningKind::ThickerThanCatalog, _) => {
             "Fix: a wound kind (more mass for its width) or a longer length lets a catalog string reach the target."
         }
+        (WarningKind::WiderThanSlot, Build::Wound) => {
+            "Fix: a denser wound kind (a denser wrap or more wrap layers) or less tension needs a narrower string; else the slot must be widened."
+        }
         (WarningKind::WiderThanSlot, _) => {
             "Fix: a denser kind (a wound one) or less tension needs a narrower string; else the slot must be widened."
+        }
+        (WarningKind::TensionBelowWindow, Build::Wound) => {
+            "Fix: a heavier gauge or a heavier wound kind (a denser wrap or more wrap layers) brings the tension up into the window."
         }
         (WarningKind::TensionBelowWindow, _) => {
             "Fix: a heavier gauge or a wound kind brings the tension up into the window."
@@ -66,11 +102,60 @@ pub fn remedy(kind: WarningKind, value: f64, build: Build) -> Option<&'static st
     Some(text)
 }
 
+/// The fixes that differ while lengths are solved: at a fixed tension σ = T/A, so a heavier
+/// gauge lowers the stress (and, being heavier, gets a shorter length); the total load is the
+/// sum of the tensions asked for, whatever the strings.
+fn lengths_remedy(kind: WarningKind, build: Build) -> Option<&'static str> {
+    let text = match (kind, build) {
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Wound) => {
+            "Fix: at this tension a heavier gauge (with its thicker core) or a stronger core material lowers the stress, and the heavier string gets a shorter length; so does less tension."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Plain) => {
+            "Fix: at this tension a heavier gauge lowers the stress (σ = T/A) and gets a shorter length; so do less tension or a stronger material."
+        }
+        (WarningKind::StressDanger | WarningKind::StressCaution, Build::Unknown) => {
+            "Fix: less tension, or a string with more load-bearing section (a heavier gauge, which gets a shorter length), lowers the stress."
+        }
+        (WarningKind::OverRatedLoad, _) => {
+            "Fix: lower the tensions asked for (the layout's `tension` or --tension): the lengths follow the strings, the load does not; only the maker can raise the rating."
+        }
+        _ => return None,
+    };
+    Some(text)
+}
+
+/// The fix for a window warning whose string is already the heaviest (or lightest) gauge of
+/// its kind: another gauge of the kind cannot be the fix.
+fn catalog_end_remedy(warning: &Warning, build: Build) -> Option<&'static str> {
+    let text = match (warning.kind, build) {
+        (WarningKind::TensionBelowWindow, Build::Wound)
+            if warning.message.ends_with(NONE_HEAVY_ENOUGH) =>
+        {
+            "Fix: heavier gauges of this kind (add them with --stock), a heavier wound kind (a denser wrap or more wrap layers) or a longer length brings the tension up into the window."
+        }
+        (WarningKind::TensionBelowWindow, _) if warning.message.ends_with(NONE_HEAVY_ENOUGH) => {
+            "Fix: a wound kind (more mass for its width), heavier gauges added with --stock or a longer length brings the tension up into the window."
+        }
+        (WarningKind::TensionAboveWindow, _) if warning.message.ends_with(NONE_LIGHT_ENOUGH) => {
+            "Fix: a lighter kind, thinner gauges added with --stock or a shorter length brings the tension down into the window."
+        }
+        _ => return None,
+    };
+    Some(text)
+}
+
 /// Appends the fix to each warning's message (once: a message that already ends with it is
 /// left alone). `build_of` tells how the string a warning is about is built.
 pub fn attach(warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
+    attach_in(Solving::Strings, warnings, build_of);
+}
+
+/// [`attach`], for a command that solves for `solving`.
+pub fn attach_in(solving: Solving, warnings: &mut [Warning], build_of: impl Fn(&Warning) -> Build) {
     for warning in warnings {
-        if let Some(fix) = remedy(warning.kind, warning.value, build_of(warning)) {
+        let fix = catalog_end_remedy(warning, build_of(warning))
+            .or_else(|| remedy_in(solving, warning.kind, warning.value, build_of(warning)));
+        if let Some(fix) = fix {
             if !warning.message.ends_with(fix) {
                 warning.message.push(' ');
                 warning.message.push_str(fix);

@@ -17,6 +17,15 @@ use serde::{Deserialize, Serialize};
 /// instrument well beyond what was planned.
 pub const FAR_FROM_TARGET: f64 = 0.30;
 
+/// The sentence a window warning ends with when the heaviest gauge of the kind is already used
+/// (the fix then cannot be "a heavier gauge").
+pub const NONE_HEAVY_ENOUGH: &str =
+    "No catalog string of this kind is heavy enough to reach the window.";
+
+/// The sentence a window warning ends with when the lightest gauge of the kind is already used.
+pub const NONE_LIGHT_ENOUGH: &str =
+    "No catalog string of this kind is light enough to stay inside the window.";
+
 /// What a warning is about. Serialized in snake_case (`stress_danger`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
 #[serde(rename_all = "snake_case")]
@@ -193,6 +202,36 @@ impl StringRef {
         self.warning(kind, stress_ratio, limit, message)
     }
 
+    /// A stress caution or danger where the tension is given and the length solved (`taut
+    /// lengths`): the stress T/A holds no length, so it is the tension the string cannot take,
+    /// not the pitch it cannot reach.
+    pub fn stress_at_tension(
+        self,
+        kind: WarningKind,
+        stress_ratio: f64,
+        limit: f64,
+        tension_n: f64,
+    ) -> Warning {
+        let message = if stress_ratio >= 1.0 {
+            format!(
+                "{} cannot hold {:.1} N on any length: that is {} of its breaking strength (limit {:.0}%).",
+                self.named(),
+                tension_n,
+                percent_beside(stress_ratio, [limit]),
+                limit * 100.0,
+            )
+        } else {
+            format!(
+                "{} runs at {} of its breaking strength at {:.1} N, on any length (limit {:.0}%).",
+                self.named(),
+                percent_beside(stress_ratio, [limit]),
+                tension_n,
+                limit * 100.0,
+            )
+        };
+        self.warning(kind, stress_ratio, limit, message)
+    }
+
     /// The target asks for a lighter string than the thinnest available: the target cannot be
     /// reached with this kind. At a fixed pitch and length tension goes with μ (REFERENCES §1.2),
     /// so the thinnest pulls `lightest / required` times the target.
@@ -283,13 +322,11 @@ impl StringRef {
         let mut warning = self.outside_window(tension_n, min_n, max_n)?;
         let below = warning.kind == WarningKind::TensionBelowWindow;
         if below && heaviest {
-            warning
-                .message
-                .push_str(" No catalog string of this kind is heavy enough to reach the window.");
+            warning.message.push(' ');
+            warning.message.push_str(NONE_HEAVY_ENOUGH);
         } else if !below && thinnest {
-            warning.message.push_str(
-                " No catalog string of this kind is light enough to stay inside the window.",
-            );
+            warning.message.push(' ');
+            warning.message.push_str(NONE_LIGHT_ENOUGH);
         }
         Some(warning)
     }

@@ -2,6 +2,7 @@
 //! Each module was a test binary of its own; `common` holds the helpers they share.
 
 mod audit_cli;
+mod audit_current_state;
 mod audit_several;
 mod bad_input;
 mod calibration_common_sets;
@@ -11,6 +12,7 @@ mod common;
 mod convert_plan;
 mod convert_transpose;
 mod feel_fletcher;
+mod fix_advice;
 mod frets_bad_input;
 mod frets_cli;
 mod frets_properties;

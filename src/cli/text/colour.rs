@@ -6,10 +6,12 @@ use super::*;
 /// taut's palette for status marks on a terminal (256-colour codes). The words differ on their
 /// own (`DANGER` in capitals, `caution`, `note`; `no`, `yes, with care`, `yes`), so nothing is
 /// lost without colour; danger is bold as well.
-pub(super) const MARK_COLOURS: [(&str, &str); 8] = [
+pub(super) const MARK_COLOURS: [(&str, &str); 10] = [
     ("DANGER", "1;38;5;160"),
     ("caution", "38;5;172"),
     ("note", "38;5;67"),
+    ("heaviest", "38;5;67"),
+    ("lightest", "38;5;67"),
     ("yes, with care", "38;5;172"),
     ("yes", "38;5;71"),
     ("no fit", "1;38;5;160"),

@@ -38,9 +38,12 @@ use crate::input::yaml::{self, PathStep};
 use crate::plan::Plan;
 use crate::strings::stock::Stock;
 
+mod plan;
 mod read;
 pub(crate) use crate::instrument::entry::{check_entry, StringEntryFile};
 pub use crate::instrument::entry::{length_text, ResolvedString, SetString};
+#[allow(unused_imports)]
+use plan::*;
 #[allow(unused_imports)]
 use read::*;
 #[cfg(test)]

@@ -13,7 +13,12 @@ impl StringSet {
     /// Parses and checks a set; `origin` names it in messages. Kind and material ids are checked
     /// against the shipped kinds and materials.
     pub fn from_text(text: String, origin: &str, stock: &Stock) -> Result<Self> {
-        let file: SetFile = yaml::parse(&text, origin)?;
+        // A plan's JSON or YAML export holds each string's kind and diameter: read it as the
+        // set `--save-set` would have written.
+        let file: SetFile = match plan_as_set_file(&text, origin, stock)? {
+            Some(file) => file,
+            None => yaml::parse(&text, origin)?,
+        };
         let mut set = StringSet {
             name: file.name,
             about: file.about,

@@ -35,6 +35,9 @@ use crate::strings::select::{self, Checks, StressLimits, Warnings};
 use crate::strings::stock::Stock;
 use crate::tuning::Tuning;
 
+mod reference;
+pub use reference::{Reference, ReferenceSource};
+
 /// Default largest tension change from the reference tuning before a course gets "no": ±30 %
 /// (see the module documentation).
 pub const DEFAULT_MAX_CHANGE: f64 = 0.30;
@@ -157,16 +160,6 @@ pub struct AuditString {
     pub feel: Feel,
 }
 
-/// Where the strings are now, for measuring tension changes: an instrument (often the same one)
-/// in a tuning. Courses are matched by number.
-#[derive(Debug, Clone, Copy)]
-pub struct Reference<'a> {
-    /// The instrument as strung now.
-    pub instrument: &'a Instrument,
-    /// The tuning it is in now.
-    pub tuning: &'a Tuning,
-}
-
 /// Audits `set` on `instrument` in `tuning`; tension changes are measured from `reference`
 /// (where the strings are now) when given.
 pub fn audit(
@@ -196,18 +189,43 @@ pub fn audit(
             if let Some(old) = found {
                 if old.strings.len() == course.strings.len() {
                     let old_pitch = reference.instrument.course_pitch(&old, reference.tuning)?;
+                    reference
+                        .check_reading(set, instrument, tuning, &course, &pitch, &old_pitch)?;
                     now = Some((old_pitch, old.length_m, old.strings));
                 }
             }
         }
-        courses.push(audit_course(
+        let course_audit = audit_course(
             &course,
             &pitch,
             now.as_ref().map(|(p, l, s)| (p, *l, *s)),
             &strings,
             limits,
             options,
-        ));
+        );
+        // A state the strings cannot be in is refused, never shown as "was".
+        if let Some(reference) = reference {
+            for (index, (string, (_, resolved))) in
+                course_audit.strings.iter().zip(&strings).enumerate()
+            {
+                if let (Some(tension), Some(now)) = (string.reference_tension_n, &now) {
+                    let hz = now.0.hz * now.2[index].interval.ratio();
+                    reference.check_possible(
+                        set,
+                        &course,
+                        (strings.len() > 1).then_some(index),
+                        &match string.diameter_mm {
+                            Some(mm) => format!("{} {mm:.3} mm", string.string),
+                            None => string.string.clone(),
+                        },
+                        hz,
+                        tension,
+                        resolved.construction.breaking_tension(),
+                    )?;
+                }
+            }
+        }
+        courses.push(course_audit);
     }
     let total_tension_n = courses
         .iter()
