@@ -172,8 +172,7 @@ impl Render for SurveyOutput<'_> {
         }
         if report.results.is_empty() {
             out.push_str("\nNo candidate is stringable.\n");
-            out.push_str(SAFETY_REMINDER);
-            out.push('\n');
+            out.push_str(&paragraph(SAFETY_REMINDER, view.width));
             return out;
         }
         let mut table = Grid::new(vec![

@@ -31,6 +31,7 @@ mod plan_warnings;
 mod readme;
 mod references;
 mod regressions;
+mod report_display_width;
 mod report_look;
 mod report_widths;
 mod set_files;

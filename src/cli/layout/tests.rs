@@ -43,7 +43,14 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
             let room = width
                 .saturating_sub(cells(&line) + usize::from(!empty))
                 .max(1);
-            let head: String = word.chars().take(room).collect();
+            // The head takes at most `room` display columns, and at least one character.
+            let mut head = String::new();
+            for c in word.chars() {
+                if !head.is_empty() && cells(&head) + cells(c.encode_utf8(&mut [0; 4])) > room {
+                    break;
+                }
+                head.push(c);
+            }
             if !empty {
                 line.push(' ');
             }
@@ -52,7 +59,7 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
             out.push('\n');
             line = rest.to_string();
             empty = true;
-            word = word.chars().skip(room).collect();
+            word = word[head.len()..].to_string();
         }
         if !empty {
             line.push(' ');
@@ -63,6 +70,18 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
     out.push_str(line.trim_end());
     out.push('\n');
     out
+}
+
+#[test]
+fn wraps_wide_characters_by_the_columns_they_take() {
+    // Each of these characters takes two columns on a terminal: twenty of them fill 40.
+    let text = "調律の名前 ".repeat(8);
+    let out = wrap(&text, 30, "- ", "  ");
+    assert!(widest(&out) <= 30, "{out}");
+    assert!(out.starts_with("- 調律の名前 調律の名前\n"), "{out}");
+    let long = wrap(&"調".repeat(40), 21, "", "");
+    assert!(widest(&long) <= 21, "{long}");
+    assert_eq!(long.matches('調').count(), 40);
 }
 
 #[test]
@@ -79,6 +98,8 @@ fn wraps_as_recounting_every_line_does() {
         "─▰",
         "…",
         "𝄞x",
+        "漢字",
+        "調律",
         "0.254w",
         "averyveryveryverylongwordthatmustbebroken",
         " ",
