@@ -34,6 +34,15 @@ pub use warnings::*;
 #[cfg(test)]
 mod tests;
 
+/// The word for `count` things: `one` for exactly one, else `many` ("1 string", "6 strings").
+pub fn plural(count: usize, one: &'static str, many: &'static str) -> &'static str {
+    if count == 1 {
+        one
+    } else {
+        many
+    }
+}
+
 /// An optional figure as text, `-` when unknown.
 pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
     value.map_or_else(|| "-".to_string(), render)

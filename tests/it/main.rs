@@ -34,6 +34,7 @@ mod regressions;
 mod report_display_width;
 mod report_look;
 mod report_widths;
+mod report_wording;
 mod set_files;
 mod strings_data;
 mod strings_materials;

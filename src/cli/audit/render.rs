@@ -3,7 +3,8 @@
 #[allow(unused_imports)]
 use super::*;
 use crate::cli::text::{
-    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+    feel_columns, plural, push_closing, shows_length, total_sentence, warning_kinds, Lead,
+    StringReport,
 };
 
 impl Render for Audit {
@@ -60,9 +61,10 @@ impl Render for Audit {
         let mut out = String::new();
         report.write(&mut out, &title, self.courses.first().map(|c| c.length_m));
         out.push_str(&format!(
-            "{} of {} courses can take this tuning.\n",
+            "{} of {} {} can take this tuning.\n",
             self.courses_ok,
-            self.courses.len()
+            self.courses.len(),
+            plural(self.courses.len(), "course", "courses")
         ));
         for course in &self.courses {
             if course.verdict != Verdict::Yes {

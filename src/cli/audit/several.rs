@@ -7,7 +7,7 @@ use taut::sets::several::SeveralAudit;
 use crate::cli::layout::{paragraph, wrap, Column, Give, Grid};
 use crate::cli::output::{Render, View};
 use crate::cli::text::{
-    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe,
+    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe, plural,
     share_of_rated, side_by_side, tuning_legend, user, warnings_and_cautions,
 };
 
@@ -126,9 +126,10 @@ impl Render for SeveralAudit {
             view.width,
         ));
         out.push_str(&format!(
-            "{} of {} courses can take every tuning.\n",
+            "{} of {} {} can take every tuning.\n",
             self.courses_ok_in_every_tuning,
-            self.courses.len()
+            self.courses.len(),
+            plural(self.courses.len(), "course", "courses")
         ));
         for (index, shared) in self.courses.iter().enumerate() {
             if shared.verdict == Verdict::Yes {

@@ -3,7 +3,8 @@
 #[allow(unused_imports)]
 use super::*;
 use crate::cli::text::{
-    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+    feel_columns, plural, push_closing, shows_length, total_sentence, warning_kinds, Lead,
+    StringReport,
 };
 
 impl Render for Conversion {
@@ -254,14 +255,6 @@ impl Render for Conversion {
             }
         }
         csv_text(rows)
-    }
-}
-
-pub(super) fn plural(count: usize, one: &'static str, many: &'static str) -> &'static str {
-    if count == 1 {
-        one
-    } else {
-        many
     }
 }
 

@@ -116,12 +116,14 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> Str
     lengths.dedup();
     let mut counts: Vec<String> = group.iter().map(|c| c.frets.len().to_string()).collect();
     counts.dedup();
+    let one_fret = group.iter().all(|c| c.frets.len() == 1);
     let mut out = paragraph(
         &format!(
-            "{} · {} mm, {} fret(s)",
+            "{} · {} mm, {} {}",
             user(&title),
             lengths.join("/"),
-            counts.join("/")
+            counts.join("/"),
+            if one_fret { "fret" } else { "frets" }
         ),
         width,
     );

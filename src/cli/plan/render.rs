@@ -12,7 +12,7 @@ use crate::cli::layout::{wrap_into, Column, Give};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
     cautions_for, course_pitch_text, diameter, diameter_symbol, fixed, force, force_with_unit,
-    gauge_line, push_closing, shows_length, status, stress_bar, total_sentence, user,
+    gauge_line, plural, push_closing, shows_length, status, stress_bar, total_sentence, user,
     warning_kinds, Lead, StringReport,
 };
 
@@ -134,9 +134,10 @@ pub fn table(plan: &Plan, view: &View) -> String {
     );
     let total = total_sentence(
         format!(
-            "Total tension {} over {} strings",
+            "Total tension {} over {} {}",
             force_with_unit(plan.total_tension_n, view.force),
-            plan.string_count()
+            plan.string_count(),
+            plural(plan.string_count(), "string", "strings")
         ),
         plan.total_tension_n,
         plan.rated_load_n,
