@@ -22,6 +22,7 @@ use super::layout::{paragraph, wrap_into, Column, Give};
 use super::output::View;
 
 mod colour;
+pub mod grouping;
 mod string_report;
 mod warnings;
 #[allow(unused_imports)]

@@ -33,6 +33,7 @@ mod references;
 mod regressions;
 mod report_display_width;
 mod report_look;
+mod report_warning_groups;
 mod report_widths;
 mod report_wording;
 mod set_files;

@@ -70,7 +70,10 @@ fn one_of_a_thing_is_counted_in_the_singular() {
     assert!(frets.contains("mm, 1 fret\n"), "{frets}");
     assert!(!frets.contains("fret(s)"), "{frets}");
     let six = common::table(&["frets", "guitar-19edo", "--count", "3"]);
-    assert!(six.contains(" 3 frets") || six.contains(" 3\nfrets"), "{six}");
+    assert!(
+        six.contains(" 3 frets") || six.contains(" 3\nfrets"),
+        "{six}"
+    );
     run_in(
         dir,
         &[

@@ -25,12 +25,14 @@ fn short(verdict: Verdict) -> &'static str {
 fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
     let mut columns = vec![
         Column::figure("#"),
-        Column::text(&format!("string ⌀ {}", diameter_symbol(view.length))).give(Give::Shorten(12)),
+        Column::text("string").give(Give::Shorten(12)),
+        Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
     ];
+    // A tuning's cell is figures (pitch, tension, stress, verdict): never shortened.
     columns.extend(
         shown
             .iter()
-            .map(|&i| Column::figure(&letter(i).to_string()).give(Give::Shorten(12))),
+            .map(|&i| Column::figure(&letter(i).to_string())),
     );
     columns.push(Column::text("limits"));
     let mut table = Grid::new(columns);
@@ -46,12 +48,8 @@ fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
                 } else {
                     String::new()
                 },
-                user(&format!(
-                    "{} {}",
-                    string.string,
-                    maybe(string.diameter_mm, |d| diameter(d, view.length))
-                ))
-                .into_owned(),
+                user(&string.string).into_owned(),
+                maybe(string.diameter_mm, |d| diameter(d, view.length)),
             ];
             for &tuning in shown {
                 let cell = this

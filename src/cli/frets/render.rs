@@ -7,6 +7,7 @@ use taut::frets::{CourseFrets, FretLayout};
 use taut::tuning::pitch::format_ratio;
 
 use crate::cli::layout::{paragraph, wrap, Column, Grid};
+use crate::cli::text::grouping::{group, Item};
 use crate::cli::text::{course_pitch_text, user};
 
 /// Courses whose frets sound the same ratios (so one column of ratios serves them all); one
@@ -208,9 +209,25 @@ pub fn table(layout: &FretLayout) -> String {
         out.push_str("No warnings.\n");
     } else {
         out.push_str(&format!("\nWarnings ({}):\n", layout.warnings.len()));
-        for warning in &layout.warnings {
+        // Courses with the very same warning (a straight board's frets) share one line; the
+        // JSON and CSV keep one warning per course.
+        let items: Vec<Item<'_>> = layout
+            .warnings
+            .iter()
+            .map(|warning| Item {
+                key: warning.kind.name(),
+                ranges: false,
+                message: &warning.message,
+                course: Some(warning.course),
+                string: None,
+            })
+            .collect();
+        for line in group(&items) {
+            let Some(warning) = line.members.first().and_then(|&m| layout.warnings.get(m)) else {
+                continue;
+            };
             out.push_str(&wrap(
-                &format!("{}: {}", warning.kind.name(), user(&warning.message)),
+                &format!("{}: {}", warning.kind.name(), user(&line.text)),
                 width,
                 "  ",
                 "    ",

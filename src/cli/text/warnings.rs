@@ -69,9 +69,12 @@ pub fn push_warnings_and_cautions(
             );
         }
         let mut tagged = String::new();
-        for warning in warnings {
+        for line in grouped_warnings(warnings) {
+            let Some(warning) = line.members.first().and_then(|&m| warnings.get(m)) else {
+                continue;
+            };
             let lead = warning_lead(warning.severity);
-            let message = shown(&warning.message);
+            let message = shown(&line.text);
             if view.wide {
                 tagged.clear();
                 let _ = write!(tagged, "{message} [{}]", warning.kind.name());
@@ -89,6 +92,28 @@ pub fn push_warnings_and_cautions(
             wrap_into(out, &shown(caution.as_ref()), view.width, "  - ", "    ");
         }
     }
+}
+
+/// The warnings as the terminal shows them: those that say the same thing about several courses
+/// or strings on one line (see [`grouping`](super::grouping)); a danger never shares a line with
+/// a different figure.
+pub fn grouped_warnings(warnings: &[Warning]) -> Vec<super::grouping::Line> {
+    let keys: Vec<String> = warnings
+        .iter()
+        .map(|w| format!("{} {}", w.kind.name(), severity_flag(w.severity)))
+        .collect();
+    let items: Vec<super::grouping::Item<'_>> = warnings
+        .iter()
+        .zip(&keys)
+        .map(|(warning, key)| super::grouping::Item {
+            key,
+            ranges: warning.severity < Severity::Danger,
+            message: &warning.message,
+            course: warning.course,
+            string: warning.string,
+        })
+        .collect();
+    super::grouping::group(&items)
 }
 
 /// The safety cautions a report shows when any warning is a caution or a danger.
