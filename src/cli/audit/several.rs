@@ -25,7 +25,7 @@ fn short(verdict: Verdict) -> &'static str {
 fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
     let mut columns = vec![
         Column::figure("#"),
-        Column::text("string").give(Give::Shorten(12)),
+        Column::text("string").give(Give::Shorten(12, 1)),
         Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
     ];
     // A tuning's cell is figures (pitch, tension, stress, verdict): never shortened.

@@ -24,22 +24,37 @@ fn agreement_text(agreement: Agreement) -> &'static str {
 }
 
 /// The set: per string the chosen kind and gauge, how well it fits the list, and the tunings
-/// that set its limits.
+/// that set its limits, by letter and name, or by letter alone (the legend above names them)
+/// where the names would not fit whole: a name such as `12edo@A4=587.33hz` holds figures.
 fn set_table(plan: &SeveralPlan, view: &View) -> String {
+    let named = set_table_with(plan, view, true);
+    if named.contains('…') {
+        set_table_with(plan, view, false)
+    } else {
+        named
+    }
+}
+
+/// [`set_table`], the limiting tunings by letter and name (`names`) or by letter alone.
+fn set_table_with(plan: &SeveralPlan, view: &View, names: bool) -> String {
     let mut table = Grid::new(vec![
         Column::figure("#"),
-        Column::text("string").give(Give::Shorten(12)),
+        Column::text("string").give(Give::Shorten(12, 1)),
         Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
         Column::text("fit"),
-        Column::text("slackest in").give(Give::Shorten(8)),
-        Column::text("most stressed in").give(Give::Shorten(8)),
+        Column::text("slackest in").give(Give::Shorten(8, 2)),
+        Column::text("most stressed in").give(Give::Shorten(8, 2)),
     ]);
     for (course_index, shared) in plan.courses.iter().enumerate() {
         for (string_index, string) in shared.strings.iter().enumerate() {
             let first = string_index == 0;
             let name = |variant: &str| {
                 let index = plan.tunings.iter().position(|b| b.variant == variant);
-                format!("{} {variant}", index.map_or('?', letter))
+                if names {
+                    format!("{} {variant}", index.map_or('?', letter))
+                } else {
+                    index.map_or('?', letter).to_string()
+                }
             };
             table.row(vec![
                 if first {
