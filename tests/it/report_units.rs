@@ -58,3 +58,38 @@ fn several_tunings_give_diameters_in_the_length_unit() {
     assert!(audit.contains("⌀ mm"), "{audit}");
     assert!(audit.contains("0.305"), "{audit}");
 }
+
+#[test]
+fn frets_take_a_length_unit() {
+    let millimetres = common::table(&["frets", "guitar-19edo", "--count", "3"]);
+    let inches = common::table(&[
+        "frets",
+        "guitar-19edo",
+        "--count",
+        "3",
+        "--length-unit",
+        "in",
+    ]);
+    assert!(millimetres.contains("from nut mm"), "{millimetres}");
+    assert!(inches.contains("from nut in"), "{inches}");
+    assert!(!inches.contains(" mm"), "{inches}");
+    // Fret 1 of 19-EDO on 648 mm lies at 23.214 mm (REFERENCES §8.2), 0.914 in at 25.4 mm to
+    // the inch.
+    assert!(millimetres.contains("23.21"), "{millimetres}");
+    assert!(inches.contains("0.914"), "{inches}");
+    // The warnings' figures follow the unit too: 12 mm is 0.472 in.
+    let warned = common::table(&[
+        "frets",
+        "guitar-19edo",
+        "--min-spacing",
+        "12mm",
+        "--length-unit",
+        "in",
+    ]);
+    assert!(warned.contains("closer than 0.472 in"), "{warned}");
+    assert!(!warned.contains(" mm"), "{warned}");
+    // JSON stays in metres whatever the table shows.
+    let json = common::json(&["frets", "guitar-19edo", "--length-unit", "in"]);
+    let first = common::number(&json["courses"][0]["frets"][0]["distance_from_nut_m"]);
+    assert!((first - 0.023_21).abs() < 1e-5, "{first}");
+}
