@@ -27,6 +27,7 @@ mod plan_properties;
 mod plan_several;
 mod plan_stock;
 mod plan_unreachable;
+mod plan_variant_pick;
 mod plan_warnings;
 mod readme;
 mod references;
