@@ -190,9 +190,19 @@ pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
     out.push_str(&format!("<style>{style}</style>\n</head>\n<body>\n"));
     out.push_str(&format!("<header>\n<h1>{}</h1>\n", escape(&title)));
     let mut summary = format!(
-        "{} courses, {} strings. Total tension {:.1} N ({:.1} lbf)",
+        "{} {}, {} {}. Total tension {:.1} N ({:.1} lbf)",
         plan.courses.len(),
+        if plan.courses.len() == 1 {
+            "course"
+        } else {
+            "courses"
+        },
         plan.string_count(),
+        if plan.string_count() == 1 {
+            "string"
+        } else {
+            "strings"
+        },
         plan.total_tension_n,
         ForceUnit::Lbf.from_newtons(plan.total_tension_n)
     );

@@ -110,6 +110,10 @@ pub struct AuditArgs {
     /// in every tuning listed, side by side.
     #[arg(long, value_name = "TUNING")]
     pub tuning: Vec<String>,
+    /// Audit the set in one of the instrument file's `variants` alone (by name): its tuning and
+    /// course pitches, with pictures like any one-tuning audit.
+    #[arg(long, value_name = "NAME")]
+    pub variant: Option<String>,
     /// Tuning the strings are in now, for the tension changes (default: the own tuning of the
     /// instrument they are on now, when that differs from what is audited).
     #[arg(long, value_name = "TUNING")]
@@ -137,9 +141,28 @@ pub struct AuditArgs {
 pub fn run(args: AuditArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["tension", "stress"])?;
     let instrument = Instrument::load(&args.instrument)?;
+    let variant_tunings: Vec<String> = instrument
+        .variants
+        .iter()
+        .filter_map(|v| v.tuning.clone())
+        .collect();
+    // One variant picked: audited alone, as a one-tuning instrument.
+    let (instrument, given): (Instrument, Option<String>) = match &args.variant {
+        Some(name) => {
+            if args.tuning.len() > 1 {
+                return Err(taut::Error::input(
+                    "--variant audits one variant; give --tuning at most once beside it",
+                )
+                .in_origin("--variant"));
+            }
+            let tuning = args.tuning.first().map(String::as_str);
+            taut::plan::several::variants::pick(&instrument, name, tuning, "--variant")?
+        }
+        None => (instrument, args.tuning.first().cloned()),
+    };
+    let given = given.as_ref();
     let stock = args.stock.load()?;
     let set = load_set(&args.set, &stock)?;
-    let given = args.tuning.first();
     let now_instrument = match &args.from_instrument {
         Some(spec) => {
             Some(Instrument::load(spec).map_err(|err| err.in_origin("--from-instrument"))?)
@@ -202,7 +225,7 @@ pub fn run(args: AuditArgs) -> Result<()> {
         .maybe_spec(instrument.tuning.as_deref())
         .maybe_spec(now.tuning.as_deref())
         .maybe_spec(set.tuning.as_deref());
-    for spec in &args.tuning {
+    for spec in args.tuning.iter().chain(&variant_tunings) {
         inputs.spec(spec);
     }
     for file in &args.stock.files {
@@ -210,11 +233,20 @@ pub fn run(args: AuditArgs) -> Result<()> {
     }
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
         if !plots.is_empty() {
-            return Err(taut::Error::input(
-                "--plot draws one tuning; it does not take several tunings yet",
-            )
-            .in_origin("--plot")
-            .help("audit one tuning at a time for its pictures (`--tuning NAME` once)"));
+            let help = if instrument.variants.is_empty() {
+                "audit one tuning at a time for its pictures (`--tuning NAME` once)".to_string()
+            } else {
+                let names: Vec<&str> = instrument.variants.iter().map(|v| v.name.trim()).collect();
+                format!(
+                    "pick one variant with `--variant NAME` ({}); run once per variant to draw them all",
+                    names.join(", ")
+                )
+            };
+            return Err(
+                taut::Error::input("--plot draws one tuning, and this audit has several")
+                    .in_origin("--plot")
+                    .help(help),
+            );
         }
         let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
         let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;

@@ -66,6 +66,10 @@ pub struct FretsArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: FretsFormat,
+    /// Show distances and lengths in this unit in the table (JSON and CSV stay in metres, the
+    /// SVG in true-size millimetres).
+    #[arg(long, value_enum, default_value = "mm", value_name = "UNIT")]
+    pub length_unit: output::LengthChoice,
     /// Write to this file instead of standard output (written whole, or not at all).
     #[arg(long, short = 'o', value_name = "FILE")]
     pub output: Option<output::Target>,
@@ -98,7 +102,7 @@ pub fn run(args: &FretsArgs) -> Result<()> {
     let tuning = tuning_for(&instrument, args.tuning.as_deref(), "--tuning")?;
     let layout = frets::lay_out(&instrument, &tuning, &overrides)?;
     let text = match args.format {
-        FretsFormat::Table => render::table(&layout),
+        FretsFormat::Table => render::table(&layout, args.length_unit.unit()),
         FretsFormat::Json => render::json(&layout)?,
         FretsFormat::Csv => render::csv(&layout)?,
         FretsFormat::Svg => svg::svg(&layout),

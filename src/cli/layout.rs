@@ -39,15 +39,28 @@ pub fn cells(text: &str) -> usize {
     }
 }
 
-/// How a column gives way when the table is too wide.
+/// How a column gives way when the table is too wide. Each command states its own order:
+/// columns give way rank by rank, the highest rank first, until the table fits; a column of
+/// figures is never shortened (its numbers would be cut), only left out.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Give {
     /// Always shown at full width.
     Never,
-    /// Shortened with `…` down to this many characters before any column is left out.
-    Shorten(usize),
-    /// Left out when the table does not fit; higher ranks go first.
+    /// A column of names, shortened with `…` down to this many characters at its rank (the
+    /// second field) when the table is too wide.
+    Shorten(usize, u8),
+    /// Left out at its rank when the table does not fit.
     Drop(u8),
+}
+
+impl Give {
+    /// The rank at which the column gives way, if it ever does.
+    fn rank(self) -> Option<u8> {
+        match self {
+            Give::Never => None,
+            Give::Shorten(_, rank) | Give::Drop(rank) => Some(rank),
+        }
+    }
 }
 
 /// One column of a [`Grid`].
@@ -138,7 +151,11 @@ impl Grid {
 
     /// The widths that fit `width`: the part comfy-table cannot decide, since it knows neither
     /// which columns a report needs least nor how short a name may become before a column should
-    /// rather go.
+    /// rather go. Columns give way rank by rank, highest first: at its rank a `Drop` column is
+    /// left out and a `Shorten` column loses characters (the widest first, down to its floor)
+    /// until the table fits. Width that a later step frees goes back to shortened names. Only
+    /// when every rank has given way and the table is still too wide (a very narrow terminal)
+    /// are names shortened below their floors, to three characters; figures never are.
     fn fit(&self, width: usize) -> Fit {
         let count = self.columns.len();
         let mut natural: Vec<usize> = self.columns.iter().map(|c| cells(&c.header)).collect();
@@ -157,64 +174,68 @@ impl Grid {
                 });
             sum + GAP * usize::saturating_sub(visible, 1)
         };
-        // Leave out as few columns as lets the flexible ones keep most of their width; if
-        // none does, as few as lets them fit at all.
-        let mut droppable: Vec<(u8, usize)> = (0..count)
-            .filter_map(|i| match self.columns[i].give {
-                Give::Drop(rank) => Some((rank, i)),
-                _ => None,
-            })
-            .collect();
-        droppable.sort_unstable_by(|a, b| b.cmp(a));
-        let attempt = |dropped: usize, comfortable: bool| {
-            let mut widths = natural.clone();
-            let mut shown = vec![true; count];
-            for &(_, i) in droppable.iter().take(dropped) {
-                shown[i] = false;
-            }
-            let floor = |i: usize, limit: usize| {
-                if comfortable {
-                    limit.max(natural[i] * 7 / 10).min(natural[i])
-                } else {
-                    limit
-                }
-            };
-            while total(&widths, &shown) > width {
-                let widest = (0..count)
-                    .filter(|&i| shown[i])
-                    .filter(|&i| matches!(self.columns[i].give, Give::Shorten(limit) if widths[i] > floor(i, limit)))
+        let mut widths = natural.clone();
+        let mut shown = vec![true; count];
+        let mut ranks: Vec<u8> = self.columns.iter().filter_map(|c| c.give.rank()).collect();
+        ranks.sort_unstable_by(|a, b| b.cmp(a));
+        ranks.dedup();
+        // Shortens the widest of `columns` one character at a time, each down to `floor`,
+        // until the table fits.
+        let shorten = |widths: &mut Vec<usize>,
+                       shown: &[bool],
+                       columns: &[usize],
+                       floor: &dyn Fn(usize) -> usize| {
+            while total(widths, shown) > width {
+                let widest = columns
+                    .iter()
+                    .copied()
+                    .filter(|&i| shown[i] && widths[i] > floor(i))
                     .max_by_key(|&i| widths[i]);
                 match widest {
                     Some(i) => widths[i] -= 1,
                     None => break,
                 }
             }
-            (total(&widths, &shown) <= width).then_some(Fit { widths, shown })
         };
-        let mut fit = (0..=droppable.len())
-            .find_map(|dropped| attempt(dropped, true))
-            .or_else(|| (0..=droppable.len()).find_map(|dropped| attempt(dropped, false)))
-            .unwrap_or_else(|| {
-                let mut shown = vec![true; count];
-                for &(_, i) in &droppable {
+        for &rank in &ranks {
+            if total(&widths, &shown) <= width {
+                break;
+            }
+            let at_rank: Vec<usize> = (0..count)
+                .filter(|&i| self.columns[i].give.rank() == Some(rank))
+                .collect();
+            for &i in &at_rank {
+                if matches!(self.columns[i].give, Give::Drop(_)) {
                     shown[i] = false;
                 }
-                Fit {
-                    widths: natural.clone(),
-                    shown,
-                }
-            });
-        // Last resort: shorten the widest column, whatever it is.
-        while total(&fit.widths, &fit.shown) > width {
-            let widest = (0..count)
-                .filter(|&i| fit.shown[i] && fit.widths[i] > 3)
-                .max_by_key(|&i| fit.widths[i]);
-            match widest {
-                Some(i) => fit.widths[i] -= 1,
-                None => break,
             }
+            // A name shortens to its floor, and never so far that its header is cut.
+            let floor = |i: usize| match self.columns[i].give {
+                Give::Shorten(limit, _) => {
+                    limit.max(cells(&self.columns[i].header)).min(natural[i])
+                }
+                _ => natural[i],
+            };
+            shorten(&mut widths, &shown, &at_rank, &floor);
         }
-        fit
+        // Width freed by a later step goes back to the names shortened before it.
+        let mut spare = width.saturating_sub(total(&widths, &shown));
+        while spare > 0 {
+            let Some(i) = (0..count)
+                .filter(|&i| shown[i] && widths[i] < natural[i])
+                .max_by_key(|&i| natural[i] - widths[i])
+            else {
+                break;
+            };
+            widths[i] += 1;
+            spare -= 1;
+        }
+        // Last resort: names below their floors.
+        let names: Vec<usize> = (0..count)
+            .filter(|&i| matches!(self.columns[i].give, Give::Shorten(..)))
+            .collect();
+        shorten(&mut widths, &shown, &names, &|i| 3.min(natural[i]));
+        Fit { widths, shown }
     }
 
     /// Draws the table with comfy-table at the fitted widths: a cell too wide for its column

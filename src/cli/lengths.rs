@@ -22,7 +22,7 @@ use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, course_pitch_text, diameter, diameter_symbol, feel_columns, force,
     force_with_unit, gauge_line, length, maybe, push_closing, status, stress_bar, total_sentence,
-    user, warning_kinds, Lead, StringReport,
+    user, warning_kinds, Lead, LeadRanks, StringReport,
 };
 
 /// Arguments of `taut lengths`.
@@ -140,7 +140,7 @@ pub fn run(args: LengthsArgs) -> Result<()> {
 impl Render for Layout {
     fn table(&self, view: &View) -> String {
         let mut columns = vec![
-            Column::text("string").give(Give::Shorten(10)),
+            Column::text("string").give(Give::Shorten(10, 3)),
             Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
             Column::figure(view.force.symbol()),
             Column::figure(&format!("length {}", view.length.symbol())),
@@ -148,10 +148,16 @@ impl Render for Layout {
             Column::text("stress"),
         ];
         if view.wide {
-            columns.extend(feel_columns(4));
+            columns.extend(feel_columns());
         }
         // The solved length is this report's own column, beside the step it makes.
-        let mut report = StringReport::new(view, "status", false, columns);
+        let mut report = StringReport::new(
+            view,
+            "status",
+            false,
+            LeadRanks { hz: 5, length: 1 },
+            columns,
+        );
         for course in &self.courses {
             let marked = |kind: JumpKind| {
                 self.jumps

@@ -82,6 +82,17 @@ pub struct UnitArgs {
     pub length_unit: LengthChoice,
 }
 
+impl LengthChoice {
+    /// The unit chosen.
+    pub fn unit(self) -> LengthUnit {
+        match self {
+            LengthChoice::Mm => LengthUnit::Mm,
+            LengthChoice::In => LengthUnit::In,
+            LengthChoice::M => LengthUnit::M,
+        }
+    }
+}
+
 impl UnitArgs {
     /// The units chosen.
     pub fn units(&self) -> (ForceUnit, LengthUnit) {
@@ -91,11 +102,7 @@ impl UnitArgs {
                 ForceChoice::Lbf => ForceUnit::Lbf,
                 ForceChoice::Kgf => ForceUnit::Kgf,
             },
-            match self.length_unit {
-                LengthChoice::Mm => LengthUnit::Mm,
-                LengthChoice::In => LengthUnit::In,
-                LengthChoice::M => LengthUnit::M,
-            },
+            self.length_unit.unit(),
         )
     }
 }

@@ -47,6 +47,10 @@ pub struct PlanArgs {
     /// set that serves every tuning listed.
     #[arg(long, value_name = "TUNING")]
     pub tuning: Vec<String>,
+    /// Plan one of the instrument file's `variants` alone (by name): its tuning and course
+    /// pitches, with pictures and a string chart like any one-tuning plan.
+    #[arg(long, value_name = "NAME")]
+    pub variant: Option<String>,
     /// With several tunings (or the instrument's `variants`), how the shared string is balanced
     /// among them: the smallest worst-case deviation from the target tension, or the lowest
     /// worst-case stress.
@@ -92,6 +96,24 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     inputs
         .spec(&args.instrument)
         .maybe_spec(instrument.tuning.as_deref());
+    for variant in &instrument.variants {
+        inputs.maybe_spec(variant.tuning.as_deref());
+    }
+    // One variant picked: planned alone, as a one-tuning instrument.
+    let (instrument, one_tuning): (Instrument, Option<String>) = match &args.variant {
+        Some(name) => {
+            if args.tuning.len() > 1 {
+                return Err(taut::Error::input(
+                    "--variant plans one variant; give --tuning at most once beside it",
+                )
+                .in_origin("--variant"));
+            }
+            let tuning = args.tuning.first().map(String::as_str);
+            taut::plan::several::variants::pick(&instrument, name, tuning, "--variant")?
+        }
+        None => (instrument, args.tuning.first().cloned()),
+    };
+    let one_tuning_spec = one_tuning;
     for spec in &args.tuning {
         inputs.spec(spec);
     }
@@ -100,11 +122,25 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     }
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
         if !plots.is_empty() || sheet.is_some() {
-            return Err(taut::Error::input(
-                "--plot and --string-chart draw one tuning; they do not take several tunings yet",
-            )
-            .in_origin("--plot")
-            .help("plan one tuning at a time for its pictures (`--tuning NAME` once)"));
+            let flag = if plots.is_empty() {
+                "--string-chart"
+            } else {
+                "--plot"
+            };
+            let help = if instrument.variants.is_empty() {
+                "plan one tuning at a time for its pictures (`--tuning NAME` once)".to_string()
+            } else {
+                let names: Vec<&str> = instrument.variants.iter().map(|v| v.name.trim()).collect();
+                format!(
+                    "pick one variant with `--variant NAME` ({}); run once per variant to draw them all",
+                    names.join(", ")
+                )
+            };
+            return Err(taut::Error::input(format!(
+                "{flag} draws one tuning, and this plan has several"
+            ))
+            .in_origin(flag)
+            .help(help));
         }
         return run_several(args, &instrument, &stock, tension, &inputs);
     }
@@ -112,7 +148,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         &instrument,
         &stock,
         &SolveOptions {
-            tuning: args.tuning.first().cloned(),
+            tuning: one_tuning_spec.clone(),
             tension: tension.clone(),
         },
     )?;
@@ -154,9 +190,8 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         // The spec that loaded, so `audit` and `convert` can load it back (a file tuning's
         // display name would not load).
         set.tuning = Some(
-            args.tuning
-                .first()
-                .cloned()
+            one_tuning_spec
+                .clone()
                 .or_else(|| instrument.tuning.clone())
                 .unwrap_or_else(|| solve::DEFAULT_TUNING.to_string()),
         );

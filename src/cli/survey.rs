@@ -172,22 +172,24 @@ impl Render for SurveyOutput<'_> {
         }
         if report.results.is_empty() {
             out.push_str("\nNo candidate is stringable.\n");
-            out.push_str(SAFETY_REMINDER);
-            out.push('\n');
+            out.push_str(&paragraph(SAFETY_REMINDER, view.width));
             return out;
         }
         let mut table = Grid::new(vec![
             Column::figure("rank"),
             Column::text("verdict"),
-            Column::text("tuning").give(Give::Shorten(10)),
+            // Order of giving way (see `taut help reports`): long tuning names shorten, then
+            // the pattern's name, the aim, course 1's Hz and the spread go.
+            Column::text("tuning").give(Give::Shorten(10, 6)),
             Column::figure("offset"),
-            Column::figure("course 1 Hz"),
-            Column::text("pattern").give(Give::Drop(3)),
-            Column::text("steps").give(Give::Shorten(8)),
+            Column::figure("course 1 Hz").give(Give::Drop(3)),
+            Column::text("pattern").give(Give::Drop(5)),
+            // Figures: never shortened.
+            Column::text("steps"),
             Column::figure("spread N").give(Give::Drop(2)),
             Column::figure("stress"),
             Column::figure("load N"),
-            Column::figure("off aim").give(Give::Drop(1)),
+            Column::figure("off aim").give(Give::Drop(4)),
         ]);
         for result in &report.results {
             let steps: Vec<String> = result

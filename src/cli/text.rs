@@ -22,6 +22,7 @@ use super::layout::{paragraph, wrap_into, Column, Give};
 use super::output::View;
 
 mod colour;
+pub mod grouping;
 mod string_report;
 mod warnings;
 #[allow(unused_imports)]
@@ -33,6 +34,15 @@ use taut::input::units::{push_fixed, push_signed_fixed};
 pub use warnings::*;
 #[cfg(test)]
 mod tests;
+
+/// The word for `count` things: `one` for exactly one, else `many` ("1 string", "6 strings").
+pub fn plural(count: usize, one: &'static str, many: &'static str) -> &'static str {
+    if count == 1 {
+        one
+    } else {
+        many
+    }
+}
 
 /// An optional figure as text, `-` when unknown.
 pub fn maybe(value: Option<f64>, render: impl Fn(f64) -> String) -> String {
@@ -138,18 +148,36 @@ pub fn shows_length(lengths: impl IntoIterator<Item = f64>, view: &View) -> bool
     view.wide || first.is_some_and(|first| lengths.any(|l| (l - first).abs() > 1e-9))
 }
 
+/// Where the leading columns of a per-string report stand in its command's order of giving way
+/// (see [`Give`]: the highest rank gives way first).
+#[derive(Debug, Clone, Copy)]
+pub struct LeadRanks {
+    /// The rank at which the Hz column is left out.
+    pub hz: u8,
+    /// The rank at which the length column is left out.
+    pub length: u8,
+}
+
 /// The columns a per-string report leads with: the course number, the status word under
-/// `status`, the pitch, Hz, and the length when `show_length`.
-pub fn leading_columns(status: &str, show_length: bool, view: &View) -> Vec<Column> {
+/// `status`, the pitch (never shortened: its figures would be cut), Hz, and the length when
+/// `show_length`.
+pub fn leading_columns(
+    status: &str,
+    show_length: bool,
+    ranks: LeadRanks,
+    view: &View,
+) -> Vec<Column> {
     let mut columns = vec![
         Column::figure("#"),
         Column::text(status),
-        Column::text("pitch").give(Give::Shorten(8)),
-        Column::figure("Hz").give(Give::Drop(3)),
+        Column::text("pitch"),
+        Column::figure("Hz").give(Give::Drop(ranks.hz)),
     ];
     if show_length {
-        columns
-            .push(Column::figure(&format!("length {}", view.length.symbol())).give(Give::Drop(2)));
+        columns.push(
+            Column::figure(&format!("length {}", view.length.symbol()))
+                .give(Give::Drop(ranks.length)),
+        );
     }
     columns
 }

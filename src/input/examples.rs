@@ -101,11 +101,21 @@ pub fn sniff(text: &str) -> Option<FileKind> {
             .iter()
             .any(|course| course.as_mapping().is_some_and(|c| c.contains_key(key)))
     };
+    // `string:` holding a list is `strings:` mistyped, not a layout's one string per course.
+    let course_has_list_under = |key: &str| {
+        courses.iter().any(|course| {
+            course
+                .as_mapping()
+                .and_then(|c| c.get(key))
+                .is_some_and(serde_yaml::Value::is_sequence)
+        })
+    };
+    let one_string_lists = course_has_list_under("string");
     if course_has("scale_length") {
         Some(FileKind::Instrument)
-    } else if course_has("string") {
+    } else if course_has("string") && !one_string_lists {
         Some(FileKind::Layout)
-    } else if course_has("strings") && !course_has("pitch") {
+    } else if (course_has("strings") || one_string_lists) && !course_has("pitch") {
         Some(FileKind::StringSet)
     } else {
         None

@@ -33,9 +33,41 @@ pub struct Variant {
     pub name: String,
     /// A tuning (shipped name, inline spec or file) instead of the instrument's.
     pub tuning: Option<String>,
-    /// Course pitches that differ from the instrument's, by course number.
-    #[serde(default)]
+    /// Course pitches that differ from the instrument's, by course number; a course given
+    /// twice is refused (YAML would otherwise keep the last silently).
+    #[serde(default, deserialize_with = "pitches_once_each")]
     pub pitches: BTreeMap<u32, String>,
+}
+
+/// Reads a variant's `pitches`, refusing a course number given twice.
+fn pitches_once_each<'de, D>(
+    deserializer: D,
+) -> std::result::Result<BTreeMap<u32, String>, D::Error>
+where
+    D: serde::Deserializer<'de>,
+{
+    struct Once;
+    impl<'de> serde::de::Visitor<'de> for Once {
+        type Value = BTreeMap<u32, String>;
+        fn expecting(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+            f.write_str("a mapping of course numbers to pitches, e.g. `{6: D2}`")
+        }
+        fn visit_map<A>(self, mut map: A) -> std::result::Result<Self::Value, A::Error>
+        where
+            A: serde::de::MapAccess<'de>,
+        {
+            let mut pitches = BTreeMap::new();
+            while let Some((course, pitch)) = map.next_entry::<u32, String>()? {
+                if pitches.insert(course, pitch).is_some() {
+                    return Err(serde::de::Error::custom(format!(
+                        "course {course} is retuned twice in this variant; give each course one pitch"
+                    )));
+                }
+            }
+            Ok(pitches)
+        }
+    }
+    deserializer.deserialize_map(Once)
 }
 
 impl Instrument {

@@ -3,24 +3,33 @@
 #[allow(unused_imports)]
 use super::*;
 use crate::cli::text::{
-    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+    feel_columns, plural, push_closing, shows_length, total_sentence, warning_kinds, Lead,
+    LeadRanks, StringReport,
 };
 
 impl Render for Audit {
     fn table(&self, view: &View) -> String {
         let show_length = shows_length(self.courses.iter().map(|c| c.length_m), view);
         let mut columns = vec![
-            Column::text("string").give(Give::Shorten(10)),
+            // Order of giving way (see `taut help reports`): feel, Hz, the tension before,
+            // then the kind's name shortens; the length goes last.
+            Column::text("string").give(Give::Shorten(10, 3)),
             Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
             Column::figure(view.force.symbol()),
-            Column::figure("was").give(Give::Drop(1)),
+            Column::figure("was").give(Give::Drop(4)),
             Column::figure("change"),
             Column::text("stress"),
         ];
         if view.wide {
-            columns.extend(feel_columns(4));
+            columns.extend(feel_columns());
         }
-        let mut report = StringReport::new(view, "verdict", show_length, columns);
+        let mut report = StringReport::new(
+            view,
+            "verdict",
+            show_length,
+            LeadRanks { hz: 5, length: 1 },
+            columns,
+        );
         for course in &self.courses {
             let pitch = course_pitch_text(&course.pitch);
             for (index, string) in course.strings.iter().enumerate() {
@@ -60,9 +69,10 @@ impl Render for Audit {
         let mut out = String::new();
         report.write(&mut out, &title, self.courses.first().map(|c| c.length_m));
         out.push_str(&format!(
-            "{} of {} courses can take this tuning.\n",
+            "{} of {} {} can take this tuning.\n",
             self.courses_ok,
-            self.courses.len()
+            self.courses.len(),
+            plural(self.courses.len(), "course", "courses")
         ));
         for course in &self.courses {
             if course.verdict != Verdict::Yes {

@@ -7,7 +7,7 @@ use taut::sets::several::SeveralAudit;
 use crate::cli::layout::{paragraph, wrap, Column, Give, Grid};
 use crate::cli::output::{Render, View};
 use crate::cli::text::{
-    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe,
+    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, maybe, plural,
     share_of_rated, side_by_side, tuning_legend, user, warnings_and_cautions,
 };
 
@@ -25,12 +25,14 @@ fn short(verdict: Verdict) -> &'static str {
 fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
     let mut columns = vec![
         Column::figure("#"),
-        Column::text(&format!("string ⌀ {}", diameter_symbol(view.length))).give(Give::Shorten(12)),
+        Column::text("string").give(Give::Shorten(12, 1)),
+        Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
     ];
+    // A tuning's cell is figures (pitch, tension, stress, verdict): never shortened.
     columns.extend(
         shown
             .iter()
-            .map(|&i| Column::figure(&letter(i).to_string()).give(Give::Shorten(12))),
+            .map(|&i| Column::figure(&letter(i).to_string())),
     );
     columns.push(Column::text("limits"));
     let mut table = Grid::new(columns);
@@ -46,12 +48,8 @@ fn chunk_table(this: &SeveralAudit, shown: &[usize], view: &View) -> String {
                 } else {
                     String::new()
                 },
-                user(&format!(
-                    "{} {}",
-                    string.string,
-                    maybe(string.diameter_mm, |d| diameter(d, view.length))
-                ))
-                .into_owned(),
+                user(&string.string).into_owned(),
+                maybe(string.diameter_mm, |d| diameter(d, view.length)),
             ];
             for &tuning in shown {
                 let cell = this
@@ -126,9 +124,10 @@ impl Render for SeveralAudit {
             view.width,
         ));
         out.push_str(&format!(
-            "{} of {} courses can take every tuning.\n",
+            "{} of {} {} can take every tuning.\n",
             self.courses_ok_in_every_tuning,
-            self.courses.len()
+            self.courses.len(),
+            plural(self.courses.len(), "course", "courses")
         ));
         for (index, shared) in self.courses.iter().enumerate() {
             if shared.verdict == Verdict::Yes {

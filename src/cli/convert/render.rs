@@ -3,7 +3,8 @@
 #[allow(unused_imports)]
 use super::*;
 use crate::cli::text::{
-    feel_columns, push_closing, shows_length, total_sentence, warning_kinds, Lead, StringReport,
+    feel_columns, plural, push_closing, shows_length, total_sentence, warning_kinds, Lead,
+    LeadRanks, StringReport,
 };
 
 impl Render for Conversion {
@@ -12,23 +13,30 @@ impl Render for Conversion {
         let mut columns = Vec::new();
         if view.wide {
             columns.extend([
-                Column::text("string before").give(Give::Shorten(10)),
-                Column::figure("⌀").give(Give::Drop(4)),
-                Column::figure(&format!("{} before", view.force.symbol())).give(Give::Drop(5)),
+                Column::text("old string").give(Give::Drop(5)),
+                Column::figure("⌀").give(Give::Drop(6)),
+                Column::figure(&format!("{} before", view.force.symbol())).give(Give::Drop(7)),
             ]);
         }
         columns.extend([
-            Column::text("string after").give(Give::Shorten(10)),
+            Column::text("new string").give(Give::Shorten(10, 3)),
             Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
             Column::figure(view.force.symbol()),
-            Column::figure("change"),
+            Column::figure("change").give(Give::Drop(2)),
             Column::text("stress"),
-            Column::text("slot").give(Give::Drop(1)),
+            // The nut slot is what a conversion is checked for: it goes last.
+            Column::figure(&format!("slot {}", diameter_symbol(view.length))).give(Give::Drop(1)),
         ]);
         if view.wide {
-            columns.extend(feel_columns(6));
+            columns.extend(feel_columns());
         }
-        let mut report = StringReport::new(view, "status", show_length, columns);
+        let mut report = StringReport::new(
+            view,
+            "status",
+            show_length,
+            LeadRanks { hz: 8, length: 2 },
+            columns,
+        );
         for course in &self.courses {
             let pitch = pitch_with_note(
                 &course.pitch_label,
@@ -68,7 +76,9 @@ impl Render for Conversion {
                     maybe(string.tension_change_pct, |c| change(c, 1)),
                     stress_bar(string.after.stress_ratio, DEFAULT_CAUTION, DEFAULT_DANGER),
                     match &string.slot {
-                        Some(fit) if !fit.fits => format!("+{:.2} mm", fit.wider_by_mm),
+                        Some(fit) if !fit.fits => {
+                            format!("+{}", diameter(fit.wider_by_mm, view.length))
+                        }
                         Some(_) => "fits".to_string(),
                         None => "-".to_string(),
                     },
@@ -254,14 +264,6 @@ impl Render for Conversion {
             }
         }
         csv_text(rows)
-    }
-}
-
-pub(super) fn plural(count: usize, one: &'static str, many: &'static str) -> &'static str {
-    if count == 1 {
-        one
-    } else {
-        many
     }
 }
 

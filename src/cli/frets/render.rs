@@ -7,7 +7,9 @@ use taut::frets::{CourseFrets, FretLayout};
 use taut::tuning::pitch::format_ratio;
 
 use crate::cli::layout::{paragraph, wrap, Column, Grid};
-use crate::cli::text::{course_pitch_text, user};
+use crate::cli::text::grouping::{group, Item};
+use crate::cli::text::{course_pitch_text, fixed, user};
+use taut::input::units::LengthUnit;
 
 /// Courses whose frets sound the same ratios (so one column of ratios serves them all); one
 /// may stop earlier than another (a board end at a different fraction of its length).
@@ -33,12 +35,64 @@ fn groups(layout: &FretLayout) -> Vec<Vec<&CourseFrets>> {
     groups
 }
 
-fn mm(metres: f64) -> String {
-    format!("{:.2}", metres * 1000.0)
+/// A distance in the chosen unit, without its symbol: mm to 0.01, inches to 0.001, metres to
+/// 0.00001.
+fn distance(metres: f64, unit: LengthUnit) -> String {
+    let decimals = match unit {
+        LengthUnit::Mm => 2,
+        LengthUnit::In => 3,
+        LengthUnit::M => 5,
+    };
+    fixed(unit.from_metres(metres), decimals)
+}
+
+/// A short figure in the chosen unit: mm to 0.1, else as [`distance`].
+fn in_unit_figure(metres: f64, unit: LengthUnit) -> String {
+    match unit {
+        LengthUnit::Mm => fixed(metres * 1000.0, 1),
+        _ => distance(metres, unit),
+    }
+}
+
+/// A sentence of the library's (written in mm) with each `N mm` figure in `unit`.
+fn in_unit(text: &str, unit: LengthUnit) -> String {
+    if unit == LengthUnit::Mm {
+        return text.to_string();
+    }
+    let mut out = String::with_capacity(text.len() + 8);
+    let mut rest = text;
+    while let Some(at) = rest.find(" mm") {
+        let before = &rest[..at];
+        let start = before
+            .rfind(|c: char| !(c.is_ascii_digit() || c == '.'))
+            .map_or(0, |i| i + 1);
+        out.push_str(&before[..start]);
+        match before[start..].parse::<f64>() {
+            Ok(mm) if start < before.len() => {
+                out.push_str(&distance(mm / 1000.0, unit));
+                out.push(' ');
+                out.push_str(unit.symbol());
+            }
+            _ => {
+                out.push_str(&before[start..]);
+                out.push_str(" mm");
+            }
+        }
+        rest = &rest[at + 3..];
+    }
+    out.push_str(rest);
+    out
 }
 
 /// The table for one group of courses that share their fret ratios.
-fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> String {
+fn group_table(
+    layout: &FretLayout,
+    group: &[&CourseFrets],
+    width: usize,
+    unit: LengthUnit,
+) -> String {
+    let mm = |metres: f64| distance(metres, unit);
+    let symbol = unit.symbol();
     let Some(first) = group.first() else {
         return String::new();
     };
@@ -59,11 +113,11 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> Str
     };
     let mut header = vec!["fret".to_string(), "cents".to_string(), "ratio".to_string()];
     if one_length {
-        header.push("from nut mm".to_string());
-        header.push("spacing mm".to_string());
+        header.push(format!("from nut {symbol}"));
+        header.push(format!("spacing {symbol}"));
     } else {
-        header.extend(group.iter().map(|c| format!("c{} mm", c.course)));
-        header.push("min spacing mm".to_string());
+        header.extend(group.iter().map(|c| format!("c{} {symbol}", c.course)));
+        header.push(format!("min spacing {symbol}"));
     }
     if layout.fanned {
         header.push("angle °".to_string());
@@ -90,7 +144,7 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> Str
         } else {
             for course in group {
                 let distance = course.frets.get(index).map(|f| f.distance_from_nut_m);
-                row.push(distance.map_or("-".to_string(), mm));
+                row.push(distance.map_or("-".to_string(), &mm));
             }
         }
         row.push(format!("{}{flag}", mm(spacing)));
@@ -116,12 +170,14 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> Str
     lengths.dedup();
     let mut counts: Vec<String> = group.iter().map(|c| c.frets.len().to_string()).collect();
     counts.dedup();
+    let one_fret = group.iter().all(|c| c.frets.len() == 1);
     let mut out = paragraph(
         &format!(
-            "{} · {} mm, {} fret(s)",
+            "{} · {} {symbol}, {} {}",
             user(&title),
             lengths.join("/"),
-            counts.join("/")
+            counts.join("/"),
+            if one_fret { "fret" } else { "frets" }
         ),
         width,
     );
@@ -131,7 +187,8 @@ fn group_table(layout: &FretLayout, group: &[&CourseFrets], width: usize) -> Str
 
 /// The terminal report: a table per group of courses sharing their frets, mergeable frets,
 /// warnings and what the layout assumes.
-pub fn table(layout: &FretLayout) -> String {
+pub fn table(layout: &FretLayout, unit: LengthUnit) -> String {
+    let symbol = unit.symbol();
     let width = crate::cli::layout::width();
     let mut out = paragraph(
         &format!(
@@ -158,10 +215,10 @@ pub fn table(layout: &FretLayout) -> String {
             .iter()
             .all(|c| (c.length_m - group[0].length_m).abs() < 1e-9);
         if one_length {
-            out.push_str(&group_table(layout, group, width));
+            out.push_str(&group_table(layout, group, width, unit));
         } else {
             for part in group.chunks(per_table) {
-                out.push_str(&group_table(layout, part, width));
+                out.push_str(&group_table(layout, part, width, unit));
             }
         }
     }
@@ -186,13 +243,13 @@ pub fn table(layout: &FretLayout) -> String {
             for pair in &layout.mergeable {
                 out.push_str(&wrap(
                     &format!(
-                    "courses {} and {}: frets {} and {} are {:.2}c apart, {:.2} mm along course {}",
+                    "courses {} and {}: frets {} and {} are {:.2}c apart, {} {symbol} along course {}",
                     pair.courses[0],
                     pair.courses[1],
                     pair.frets[0],
                     pair.frets[1],
                     pair.cents_apart.abs(),
-                    pair.apart_m * 1000.0,
+                    distance(pair.apart_m, unit),
                     pair.courses[0]
                 ),
                     width,
@@ -206,9 +263,31 @@ pub fn table(layout: &FretLayout) -> String {
         out.push_str("No warnings.\n");
     } else {
         out.push_str(&format!("\nWarnings ({}):\n", layout.warnings.len()));
-        for warning in &layout.warnings {
+        // Courses with the very same warning (a straight board's frets) share one line; the
+        // JSON and CSV keep one warning per course.
+        let messages: Vec<String> = layout
+            .warnings
+            .iter()
+            .map(|warning| in_unit(&warning.message, unit))
+            .collect();
+        let items: Vec<Item<'_>> = layout
+            .warnings
+            .iter()
+            .enumerate()
+            .map(|(index, warning)| Item {
+                key: warning.kind.name(),
+                ranges: false,
+                message: &messages[index],
+                course: Some(warning.course),
+                string: None,
+            })
+            .collect();
+        for line in group(&items) {
+            let Some(warning) = line.members.first().and_then(|&m| layout.warnings.get(m)) else {
+                continue;
+            };
             out.push_str(&wrap(
-                &format!("{}: {}", warning.kind.name(), user(&warning.message)),
+                &format!("{}: {}", warning.kind.name(), user(&line.text)),
                 width,
                 "  ",
                 "    ",
@@ -217,8 +296,8 @@ pub fn table(layout: &FretLayout) -> String {
     }
     out.push_str(&paragraph(
         &format!(
-            "Distances run from the nut along each course; ! marks spacing under {:.1} mm. Assumes {}.",
-            layout.min_spacing_m * 1000.0,
+            "Distances run from the nut along each course; ! marks spacing under {} {symbol}. Assumes {}.",
+            in_unit_figure(layout.min_spacing_m, unit),
             layout.compensation
         ),
         width,

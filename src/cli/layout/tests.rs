@@ -43,7 +43,14 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
             let room = width
                 .saturating_sub(cells(&line) + usize::from(!empty))
                 .max(1);
-            let head: String = word.chars().take(room).collect();
+            // The head takes at most `room` display columns, and at least one character.
+            let mut head = String::new();
+            for c in word.chars() {
+                if !head.is_empty() && cells(&head) + cells(c.encode_utf8(&mut [0; 4])) > room {
+                    break;
+                }
+                head.push(c);
+            }
             if !empty {
                 line.push(' ');
             }
@@ -52,7 +59,7 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
             out.push('\n');
             line = rest.to_string();
             empty = true;
-            word = word.chars().skip(room).collect();
+            word = word[head.len()..].to_string();
         }
         if !empty {
             line.push(' ');
@@ -63,6 +70,18 @@ fn wrap_recounting(text: &str, width: usize, first: &str, rest: &str) -> String 
     out.push_str(line.trim_end());
     out.push('\n');
     out
+}
+
+#[test]
+fn wraps_wide_characters_by_the_columns_they_take() {
+    // Each of these characters takes two columns on a terminal: twenty of them fill 40.
+    let text = "調律の名前 ".repeat(8);
+    let out = wrap(&text, 30, "- ", "  ");
+    assert!(widest(&out) <= 30, "{out}");
+    assert!(out.starts_with("- 調律の名前 調律の名前\n"), "{out}");
+    let long = wrap(&"調".repeat(40), 21, "", "");
+    assert!(widest(&long) <= 21, "{long}");
+    assert_eq!(long.matches('調').count(), 40);
 }
 
 #[test]
@@ -79,6 +98,8 @@ fn wraps_as_recounting_every_line_does() {
         "─▰",
         "…",
         "𝄞x",
+        "漢字",
+        "調律",
         "0.254w",
         "averyveryveryverylongwordthatmustbebroken",
         " ",
@@ -123,7 +144,7 @@ fn wraps_as_recounting_every_line_does() {
 fn cells_too_wide_are_cut_with_an_ellipsis_and_rows_end_without_blanks() {
     let mut grid = Grid::new(vec![
         Column::figure("#"),
-        Column::text("name").give(Give::Shorten(4)),
+        Column::text("name").give(Give::Shorten(4, 1)),
         Column::text("note"),
     ]);
     grid.row(vec!["1".into(), "éèêëēĕėęě".into(), String::new()]);
@@ -140,7 +161,7 @@ fn cells_too_wide_are_cut_with_an_ellipsis_and_rows_end_without_blanks() {
 fn a_wide_table_shortens_then_drops_columns() {
     let mut grid = Grid::new(vec![
         Column::figure("#"),
-        Column::text("name").give(Give::Shorten(6)),
+        Column::text("name").give(Give::Shorten(6, 2)),
         Column::figure("extra").give(Give::Drop(1)),
         Column::figure("value"),
     ]);
@@ -158,18 +179,40 @@ fn a_wide_table_shortens_then_drops_columns() {
     assert!(widest(&narrow) <= 38, "{narrow}");
     assert!(narrow.contains('…'), "{narrow}");
     assert!(hidden.is_empty(), "{hidden:?}");
-    // Much too wide: a column is left out rather than the name cut to a stub.
+    // Much too wide: the name (rank 2) shortens to its floor before the extra column (rank 1)
+    // goes.
     let (tight, hidden) = grid.render(30);
     assert!(widest(&tight) <= 30, "{tight}");
-    assert_eq!(hidden, vec!["extra".to_string()]);
-    let (tiny, _) = grid.render(20);
+    assert!(hidden.is_empty(), "{hidden:?}");
+    assert!(tight.contains("a rather …"), "{tight}");
+    let (tiny, hidden) = grid.render(20);
     assert!(widest(&tiny) <= 20, "{tiny}");
+    assert_eq!(hidden, vec!["extra".to_string()]);
+    // The other order: the extra column goes first, and the width it frees goes back to the
+    // name. Figures are never cut.
+    let mut grid = Grid::new(vec![
+        Column::figure("#"),
+        Column::text("name").give(Give::Shorten(6, 1)),
+        Column::figure("extra").give(Give::Drop(2)),
+        Column::figure("value"),
+    ]);
+    grid.row(vec![
+        "1".into(),
+        "a rather long name indeed".into(),
+        "12345678".into(),
+        "9.5".into(),
+    ]);
+    let (tight, hidden) = grid.render(30);
+    assert_eq!(hidden, vec!["extra".to_string()]);
+    assert!(tight.contains("a rather long name …"), "{tight}");
+    let (tiny, _) = grid.render(12);
+    assert!(tiny.contains("9.5"), "{tiny}");
 }
 
 #[test]
 fn wide_characters_count_as_two_columns() {
     let mut grid = Grid::new(vec![
-        Column::text("tuning").give(Give::Shorten(4)),
+        Column::text("tuning").give(Give::Shorten(4, 1)),
         Column::figure("offset"),
     ]);
     grid.row(vec!["十二平均律の変奏".into(), "-535.2c".into()]);

@@ -50,10 +50,8 @@ pub fn wrap_into(out: &mut String, text: &str, width: usize, first: &str, rest: 
             let room = width
                 .saturating_sub(line_cells + usize::from(!empty))
                 .max(1);
-            let cut = text[word_start..word.end]
-                .char_indices()
-                .nth(room)
-                .map_or(word.end, |(index, _)| word_start + index);
+            let (cut, taken) = cut_at_cells(&text[word_start..word.end], room);
+            let cut = word_start + cut;
             copy(out, &mut pending);
             if !empty {
                 out.push(' ');
@@ -62,7 +60,7 @@ pub fn wrap_into(out: &mut String, text: &str, width: usize, first: &str, rest: 
             new_line(out, &mut line_start, &mut line_cells);
             empty = true;
             word_start = cut;
-            word_cells = word_cells.saturating_sub(room);
+            word_cells = word_cells.saturating_sub(taken);
         }
         let one_space_after_pending = !pending.is_empty()
             && pending.end + 1 == word_start
@@ -85,6 +83,30 @@ pub fn wrap_into(out: &mut String, text: &str, width: usize, first: &str, rest: 
     end_line(out, line_start);
 }
 
+/// Where to cut `word` so its head takes at most `room` display columns (at least one
+/// character, so a line always moves on): the byte index of the cut and the columns the head
+/// takes.
+fn cut_at_cells(word: &str, room: usize) -> (usize, usize) {
+    let mut taken = 0;
+    for (index, c) in word.char_indices() {
+        let width = char_cells(c);
+        if taken + width > room && index > 0 {
+            return (index, taken);
+        }
+        taken += width;
+    }
+    (word.len(), taken)
+}
+
+/// Columns one character takes on screen (see [`cells`]).
+fn char_cells(c: char) -> usize {
+    if c.is_ascii() {
+        1
+    } else {
+        unicode_width::UnicodeWidthChar::width(c).unwrap_or(0)
+    }
+}
+
 /// Whether an ASCII byte is blank, as [`char::is_whitespace`] has it (which, unlike
 /// [`u8::is_ascii_whitespace`], counts the vertical tab).
 fn is_ascii_blank(byte: u8) -> bool {
@@ -92,23 +114,22 @@ fn is_ascii_blank(byte: u8) -> bool {
 }
 
 /// The words of `text` as [`str::split_whitespace`] finds them, as byte ranges of `text` with
-/// the characters each takes, found in one pass: printable ASCII, nearly all of a report, is
+/// the display columns each takes (a wide character counts two), found in one pass: printable ASCII, nearly all of a report, is
 /// taken a byte at a time, and only other characters are decoded.
 fn words(text: &str) -> impl Iterator<Item = (Range<usize>, usize)> + '_ {
     let bytes = text.as_bytes();
     let mut at = 0;
-    // The length in bytes of the character at `at` (a character boundary), and whether it is
-    // blank.
+    // The length in bytes of the character at `at`, whether it is blank, and the columns it
+    // takes.
     let character_at = move |at: usize| match bytes[at] {
-        byte if byte.is_ascii() => (1, is_ascii_blank(byte)),
-        _ => text[at..]
-            .chars()
-            .next()
-            .map_or((1, false), |c| (c.len_utf8(), c.is_whitespace())),
+        byte if byte.is_ascii() => (1, is_ascii_blank(byte), 1),
+        _ => text[at..].chars().next().map_or((1, false, 1), |c| {
+            (c.len_utf8(), c.is_whitespace(), char_cells(c))
+        }),
     };
     std::iter::from_fn(move || {
         while at < bytes.len() {
-            let (length, blank) = character_at(at);
+            let (length, blank, _) = character_at(at);
             if !blank {
                 break;
             }
@@ -129,12 +150,12 @@ fn words(text: &str) -> impl Iterator<Item = (Range<usize>, usize)> + '_ {
             if at == bytes.len() {
                 break;
             }
-            let (length, blank) = character_at(at);
+            let (length, blank, width) = character_at(at);
             if blank {
                 break;
             }
             at += length;
-            word_cells += 1;
+            word_cells += width;
         }
         Some((start..at, word_cells))
     })

@@ -12,8 +12,8 @@ use crate::cli::layout::{wrap_into, Column, Give};
 use crate::cli::output::{sig, sig_opt, View};
 use crate::cli::text::{
     cautions_for, course_pitch_text, diameter, diameter_symbol, fixed, force, force_with_unit,
-    gauge_line, push_closing, shows_length, status, stress_bar, total_sentence, user,
-    warning_kinds, Lead, StringReport,
+    gauge_line, plural, push_closing, shows_length, status, stress_bar, total_sentence, user,
+    warning_kinds, Lead, LeadRanks, StringReport,
 };
 
 /// A tension in newtons and, unless the unit is N, also in that unit.
@@ -49,21 +49,29 @@ fn string_warnings(
 /// stress as a bar; then totals, the set's gauges on one line, warnings and cautions.
 pub fn table(plan: &Plan, view: &View) -> String {
     let show_length = shows_length(plan.courses.iter().map(|c| c.length_m), view);
+    // Order of giving way (see `taut help reports`): the wide view's details, Hz, then the
+    // kind's name shortens; the length (a harp's lengths are the point) goes last.
     let mut columns = vec![
-        Column::text("string").give(Give::Shorten(10)),
+        Column::text("string").give(Give::Shorten(10, 4)),
         Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
         Column::figure(view.force.symbol()),
-        Column::figure("aim"),
+        Column::figure("aim").give(Give::Drop(2)),
         Column::text("stress"),
     ];
     if view.wide {
         columns.extend([
-            Column::figure("μ g/m").give(Give::Drop(4)),
-            Column::figure("breaks at Hz").give(Give::Drop(5)),
-            Column::figure("B").give(Give::Drop(6)),
+            Column::figure("μ g/m").give(Give::Drop(6)),
+            Column::figure("breaks at Hz").give(Give::Drop(7)),
+            Column::figure("B").give(Give::Drop(8)),
         ]);
     }
-    let mut report = StringReport::new(view, "status", show_length, columns);
+    let mut report = StringReport::new(
+        view,
+        "status",
+        show_length,
+        LeadRanks { hz: 5, length: 1 },
+        columns,
+    );
     for course in &plan.courses {
         let pitch = course_pitch_text(&course.pitch);
         for (index, string) in course.strings.iter().enumerate() {
@@ -134,9 +142,10 @@ pub fn table(plan: &Plan, view: &View) -> String {
     );
     let total = total_sentence(
         format!(
-            "Total tension {} over {} strings",
+            "Total tension {} over {} {}",
             force_with_unit(plan.total_tension_n, view.force),
-            plan.string_count()
+            plan.string_count(),
+            plural(plan.string_count(), "string", "strings")
         ),
         plan.total_tension_n,
         plan.rated_load_n,

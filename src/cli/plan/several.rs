@@ -11,8 +11,8 @@ use super::render::{self, worst_severity};
 use crate::cli::layout::{paragraph, Column, Give, Grid};
 use crate::cli::output::View;
 use crate::cli::text::{
-    force, force_with_unit, letter, lettered_warnings, severity_flag, share_of_rated, side_by_side,
-    tuning_legend, user, warnings_and_cautions,
+    diameter, diameter_symbol, force, force_with_unit, letter, lettered_warnings, severity_flag,
+    share_of_rated, side_by_side, tuning_legend, user, warnings_and_cautions,
 };
 
 fn agreement_text(agreement: Agreement) -> &'static str {
@@ -24,21 +24,37 @@ fn agreement_text(agreement: Agreement) -> &'static str {
 }
 
 /// The set: per string the chosen kind and gauge, how well it fits the list, and the tunings
-/// that set its limits.
+/// that set its limits, by letter and name, or by letter alone (the legend above names them)
+/// where the names would not fit whole: a name such as `12edo@A4=587.33hz` holds figures.
 fn set_table(plan: &SeveralPlan, view: &View) -> String {
+    let named = set_table_with(plan, view, true);
+    if named.contains('…') {
+        set_table_with(plan, view, false)
+    } else {
+        named
+    }
+}
+
+/// [`set_table`], the limiting tunings by letter and name (`names`) or by letter alone.
+fn set_table_with(plan: &SeveralPlan, view: &View, names: bool) -> String {
     let mut table = Grid::new(vec![
         Column::figure("#"),
-        Column::text("string").give(Give::Shorten(12)),
+        Column::text("string").give(Give::Shorten(12, 1)),
+        Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
         Column::text("fit"),
-        Column::text("slackest in").give(Give::Shorten(8)),
-        Column::text("most stressed in").give(Give::Shorten(8)),
+        Column::text("slackest in").give(Give::Shorten(8, 2)),
+        Column::text("most stressed in").give(Give::Shorten(8, 2)),
     ]);
     for (course_index, shared) in plan.courses.iter().enumerate() {
         for (string_index, string) in shared.strings.iter().enumerate() {
             let first = string_index == 0;
             let name = |variant: &str| {
                 let index = plan.tunings.iter().position(|b| b.variant == variant);
-                format!("{} {variant}", index.map_or('?', letter))
+                if names {
+                    format!("{} {variant}", index.map_or('?', letter))
+                } else {
+                    index.map_or('?', letter).to_string()
+                }
             };
             table.row(vec![
                 if first {
@@ -47,7 +63,7 @@ fn set_table(plan: &SeveralPlan, view: &View) -> String {
                     String::new()
                 },
                 user(&if first {
-                    format!("{} {}", string.kind, string.gauge)
+                    string.kind.clone()
                 } else {
                     let interval = plan
                         .tunings
@@ -55,9 +71,11 @@ fn set_table(plan: &SeveralPlan, view: &View) -> String {
                         .and_then(|block| block.plan.courses.get(course_index))
                         .and_then(|course| course.strings.get(string_index))
                         .map_or("", |s| s.interval.as_str());
-                    format!("  {interval}: {} {}", string.kind, string.gauge)
+                    format!("  {interval}: {}", string.kind)
                 })
                 .into_owned(),
+                shown_gauge(plan, course_index, string_index, view)
+                    .unwrap_or_else(|| string.gauge.clone()),
                 agreement_text(string.agreement).to_string(),
                 user(&name(&string.slackest_variant)).into_owned(),
                 user(&name(&string.most_stressed_variant)).into_owned(),
@@ -67,14 +85,37 @@ fn set_table(plan: &SeveralPlan, view: &View) -> String {
     table.render(view.width).0
 }
 
+/// The diameter of a string of the set in the unit of the report (mm, or thousandths of an
+/// inch with `--length-unit in`), as `plan` shows it; the same string in every tuning.
+fn shown_gauge(
+    plan: &SeveralPlan,
+    course_index: usize,
+    string_index: usize,
+    view: &View,
+) -> Option<String> {
+    let planned = plan
+        .tunings
+        .first()?
+        .plan
+        .courses
+        .get(course_index)?
+        .strings
+        .get(string_index)?;
+    Some(diameter(planned.choice.diameter_mm, view.length))
+}
+
 /// The tunings `shown` (indices into `plan.tunings`) side by side: per string its gauge, then
 /// pitch, tension and stress in each.
 fn chunk_table(plan: &SeveralPlan, shown: &[usize], view: &View) -> String {
-    let mut columns = vec![Column::figure("#"), Column::figure("gauge")];
+    let mut columns = vec![
+        Column::figure("#"),
+        Column::figure(&format!("⌀ {}", diameter_symbol(view.length))),
+    ];
+    // A tuning's cell is figures (pitch, tension, stress): never shortened.
     columns.extend(
         shown
             .iter()
-            .map(|&i| Column::figure(&letter(i).to_string()).give(Give::Shorten(12))),
+            .map(|&i| Column::figure(&letter(i).to_string())),
     );
     let mut table = Grid::new(columns);
     for (course_index, shared) in plan.courses.iter().enumerate() {
@@ -86,7 +127,8 @@ fn chunk_table(plan: &SeveralPlan, shown: &[usize], view: &View) -> String {
                 } else {
                     String::new()
                 },
-                string.gauge.clone(),
+                shown_gauge(plan, course_index, string_index, view)
+                    .unwrap_or_else(|| string.gauge.clone()),
             ];
             for &tuning in shown {
                 let course = plan

@@ -8,6 +8,7 @@ use taut::plan::warning::Warning;
 
 use super::{
     feel_legend, fixed, leading_columns, length, push_warnings_and_cautions, share_of_rated,
+    LeadRanks,
 };
 use crate::cli::layout::{hidden_note, wrap_into, Column, Give, Grid};
 use crate::cli::output::View;
@@ -42,14 +43,16 @@ pub struct Lead<'a> {
 
 impl<'v> StringReport<'v> {
     /// A report led by `#`, `status_header`, pitch, Hz and (when `show_length`) the length,
-    /// followed by the command's `own` columns.
+    /// followed by the command's `own` columns; `ranks` places Hz and length in the command's
+    /// order of giving way.
     pub fn new(
         view: &'v View,
         status_header: &str,
         show_length: bool,
+        ranks: LeadRanks,
         own: impl IntoIterator<Item = Column>,
     ) -> Self {
-        let mut columns = leading_columns(status_header, show_length, view);
+        let mut columns = leading_columns(status_header, show_length, ranks, view);
         columns.extend(own);
         StringReport {
             grid: Grid::new(columns),
@@ -103,14 +106,19 @@ impl<'v> StringReport<'v> {
 }
 
 /// The stiffness and feel columns of the wide view (the cells come from
-/// `taut::strings::feel::cells`), left out for width from rank `first_rank` up.
-pub fn feel_columns(first_rank: u8) -> [Column; 3] {
+/// `taut::strings::feel::cells`): every command leaves them out first, bend, then partials,
+/// then B.
+pub fn feel_columns() -> [Column; 3] {
     [
-        Column::figure("B").give(Give::Drop(first_rank)),
-        Column::figure("partials c").give(Give::Drop(first_rank + 1)),
-        Column::figure("bend N").give(Give::Drop(first_rank + 2)),
+        Column::figure("B").give(Give::Drop(FEEL_RANK)),
+        Column::figure("partials c").give(Give::Drop(FEEL_RANK + 1)),
+        Column::figure("bend N").give(Give::Drop(FEEL_RANK + 2)),
     ]
 }
+
+/// The rank of the first feel column to go (see [`feel_columns`]); each command's own ranks
+/// stay below it.
+pub const FEEL_RANK: u8 = 20;
 
 /// A totals sentence: `lead`, then the share of the rated load where the instrument gives one,
 /// and a full stop.

@@ -69,9 +69,12 @@ pub fn push_warnings_and_cautions(
             );
         }
         let mut tagged = String::new();
-        for warning in warnings {
+        for line in grouped_warnings(warnings, view) {
+            let Some(warning) = line.members.first().and_then(|&m| warnings.get(m)) else {
+                continue;
+            };
             let lead = warning_lead(warning.severity);
-            let message = shown(&warning.message);
+            let message = shown(&line.text);
             if view.wide {
                 tagged.clear();
                 let _ = write!(tagged, "{message} [{}]", warning.kind.name());
@@ -89,6 +92,64 @@ pub fn push_warnings_and_cautions(
             wrap_into(out, &shown(caution.as_ref()), view.width, "  - ", "    ");
         }
     }
+}
+
+/// The warnings as the terminal shows them: those that say the same thing about several courses
+/// or strings on one line (see [`grouping`](super::grouping)); a danger never shares a line with
+/// a different figure.
+pub fn grouped_warnings(warnings: &[Warning], view: &View) -> Vec<super::grouping::Line> {
+    let texts: Vec<std::borrow::Cow<'_, str>> =
+        warnings.iter().map(|w| in_length_unit(w, view)).collect();
+    let keys: Vec<String> = warnings
+        .iter()
+        .map(|w| format!("{} {}", w.kind.name(), severity_flag(w.severity)))
+        .collect();
+    let items: Vec<super::grouping::Item<'_>> = warnings
+        .iter()
+        .zip(&keys)
+        .zip(&texts)
+        .map(|((warning, key), text)| super::grouping::Item {
+            key,
+            ranges: warning.severity < Severity::Danger,
+            message: text,
+            course: warning.course,
+            string: warning.string,
+        })
+        .collect();
+    super::grouping::group(&items)
+}
+
+/// A warning's sentence with its string widths in the report's unit: the library writes them
+/// in mm; with `--length-unit in` a conversion's slot note gives them in inches, as the set's
+/// gauges are written.
+fn in_length_unit<'w>(warning: &'w Warning, view: &View) -> std::borrow::Cow<'w, str> {
+    use taut::plan::warning::WarningKind;
+    if view.length != LengthUnit::In || warning.kind != WarningKind::WiderThanSlot {
+        return std::borrow::Cow::Borrowed(&warning.message);
+    }
+    // Each `0.076 mm` (three decimals, as the library writes a width) becomes `0.0030 in`.
+    let mut out = String::with_capacity(warning.message.len() + 8);
+    let mut rest = warning.message.as_str();
+    while let Some(at) = rest.find(" mm") {
+        let before = &rest[..at];
+        let start = before
+            .rfind(|c: char| !(c.is_ascii_digit() || c == '.'))
+            .map_or(0, |i| i + 1);
+        match before[start..].parse::<f64>() {
+            Ok(mm) if before[start..].contains('.') => {
+                out.push_str(&before[..start]);
+                push_fixed(&mut out, mm / 1000.0 / METRES_PER_INCH, 4);
+                out.push_str(" in");
+            }
+            _ => {
+                out.push_str(before);
+                out.push_str(" mm");
+            }
+        }
+        rest = &rest[at + 3..];
+    }
+    out.push_str(rest);
+    std::borrow::Cow::Owned(out)
 }
 
 /// The safety cautions a report shows when any warning is a caution or a danger.

@@ -162,9 +162,9 @@ impl Render for Comparison {
         let left = &self.left.name;
         let right = &self.right.name;
         let mut grid = Grid::new(vec![
-            Column::figure(&format!("{left} deg")).give(Give::Shorten(8)),
+            Column::figure(&format!("{left} deg")).give(Give::Shorten(8, 1)),
             Column::figure("Hz"),
-            Column::figure(&format!("{right} deg")).give(Give::Shorten(8)),
+            Column::figure(&format!("{right} deg")).give(Give::Shorten(8, 1)),
             Column::figure("Hz"),
             Column::figure("apart"),
         ]);
@@ -217,7 +217,7 @@ pub(super) struct CompareCsv {
 impl Render for FoundPitches {
     fn table(&self, view: &View) -> String {
         let mut grid = Grid::new(vec![
-            Column::text("written").give(Give::Shorten(8)),
+            Column::text("written").give(Give::Shorten(8, 1)),
             Column::figure("deg"),
             Column::figure("Hz"),
             Column::figure("up from 0"),
@@ -270,7 +270,7 @@ impl Render for ShippedTunings {
             Column::text("name"),
             Column::figure("degrees"),
             Column::text("period"),
-            Column::text("description").give(Give::Shorten(20)),
+            Column::text("description").give(Give::Shorten(20, 1)),
         ]);
         for tuning in &self.tunings {
             grid.row(vec![

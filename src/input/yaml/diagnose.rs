@@ -60,8 +60,19 @@ pub(super) fn convert_error(
     if !path.is_empty() && path != "." && path != "?" {
         error = error.field(shorten_field(path));
     }
+    let names_one_string = path == "string" || path.ends_with(".string");
     if message.starts_with("merge keys") {
         error = error.help("an anchor (`&name`) and alias (`*name`) may repeat a whole value");
+    } else if names_one_string && message.starts_with("invalid type: sequence") {
+        // `string:` names one string outright; a list there is nearly always `strings:` mistyped.
+        error = Error::input(
+            "`string:` names one string (a mapping such as `{kind: plain-steel, diameter: 0.012in}`), but a list was given here",
+        )
+        .help("a course's list of strings goes under `strings:` (with an s)");
+        if let Some((line, column)) = position {
+            error = error.at(line, column);
+        }
+        error = error.field(shorten_field(path));
     } else if let Some(hint) = unknown_field_hint(&message) {
         error = error.help(hint);
     } else if message.contains("found character that cannot start any token")

@@ -63,6 +63,22 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
         }
         return Ok(out);
     }
+    if let Some(spec) = tunings.first() {
+        if !instrument.variants.is_empty() && instrument.variants.iter().all(|v| v.tuning.is_some())
+        {
+            // The option is the tuning of variants without their own; here it would change
+            // nothing, and a silent no-op reads as if it had been used.
+            return Err(instrument.point(
+                Error::input(format!(
+                    "every variant names its own tuning, so {flag} `{spec}` would apply to none of them"
+                ))
+                .help(format!(
+                    "leave out {flag}, or remove `tuning:` from the variants that should follow it"
+                )),
+                &[PathStep::Key("variants")],
+            ));
+        }
+    }
     let base = tuning_for(instrument, tunings.first().map(String::as_str), flag)?;
     if instrument.variants.is_empty() {
         return Ok(vec![Resolved {
@@ -116,6 +132,71 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
         });
     }
     Ok(out)
+}
+
+/// The instrument as one of its variants, for the commands that draw or audit one tuning: the
+/// variant's course pitches written into its courses, no variants left, and the tuning the
+/// variant names, if any. `tuning` is the option's tuning for a variant without its own; a
+/// variant that names its own beside it is refused (the option would change nothing). `flag`
+/// names the option that picks the variant.
+pub fn pick(
+    instrument: &Instrument,
+    name: &str,
+    tuning: Option<&str>,
+    flag: &str,
+) -> Result<(Instrument, Option<String>)> {
+    let names: Vec<&str> = instrument.variants.iter().map(|v| v.name.trim()).collect();
+    if names.is_empty() {
+        return Err(Error::input(format!(
+            "{} lists no `variants`, so there is no variant `{}` to pick",
+            instrument.origin(),
+            name.trim()
+        ))
+        .in_origin(flag)
+        .help(format!(
+            "leave out {flag}, or add a `variants:` list to the file"
+        )));
+    }
+    let Some(index) = names.iter().position(|n| *n == name.trim()) else {
+        let error = Error::input(format!(
+            "{} has no variant named `{}`",
+            instrument.origin(),
+            name.trim()
+        ))
+        .in_origin(flag);
+        return Err(
+            match crate::error::did_you_mean(name.trim(), names.iter().copied()) {
+                Some(best) => error.help(format!("did you mean `{best}`?")),
+                None => error.help(format!("its variants are: {}", names.join(", "))),
+            },
+        );
+    };
+    let own = instrument.variants[index].tuning.clone();
+    if let (Some(own), Some(given)) = (&own, tuning) {
+        return Err(instrument.point(
+            Error::input(format!(
+                "the variant `{}` names its own tuning `{}`, so --tuning `{given}` would not apply",
+                name.trim(),
+                own.trim()
+            ))
+            .help("leave out --tuning when picking a variant that names its tuning"),
+            &[
+                PathStep::Key("variants"),
+                PathStep::Index(index),
+                PathStep::Key("tuning"),
+            ],
+        ));
+    }
+    let given: Vec<String> = tuning.map(str::to_string).into_iter().collect();
+    let mut resolved = resolve(instrument, &given, "--tuning")?;
+    if index >= resolved.len() {
+        return Err(Error::input("the variants could not be resolved").in_origin(flag));
+    }
+    let mut picked = resolved.swap_remove(index).instrument;
+    picked.variants.clear();
+    // Reports and pictures name the variant beside the instrument.
+    picked.name = format!("{} (variant {})", picked.name, name.trim());
+    Ok((picked, own.or_else(|| tuning.map(str::to_string))))
 }
 
 /// Resolves every course pitch up front, so a pitch a tuning cannot address is reported with
