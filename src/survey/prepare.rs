@@ -13,11 +13,13 @@ impl<'a> Survey<'a> {
     ) -> Result<Survey<'a>> {
         let kinds = stock.kinds();
         let size = Size::of(instrument, settings)?;
+        let order = order::CourseOrder::of(instrument, settings)?;
         let limits = solve::stress_limits(instrument)?;
         let tolerance = instrument
             .tolerance
             .map_or(select::DEFAULT_TOLERANCE, |percent| percent.fraction());
         let mut strings = Vec::new();
+        let mut string_checks = Vec::new();
         for index in 0..instrument.courses.len() {
             let course = instrument
                 .course_input(index, None)
@@ -79,6 +81,7 @@ impl<'a> Survey<'a> {
                     kinds: &kind_list,
                 };
                 let table = StringTable::build(&spec);
+                string_checks.push(spec.checks);
                 strings.push(StringSlot {
                     course: index,
                     two_length: 2.0 * course.length_m,
@@ -100,6 +103,8 @@ impl<'a> Survey<'a> {
             pairs: Vec::new(),
             offset_ratios,
             rated_load_n: instrument.rated_load.map(|load| load.si()),
+            order,
+            checks: string_checks,
         };
         for tuning_index in 0..size.tunings as usize {
             let spec = settings.tuning_spec(tuning_index);
@@ -141,12 +146,15 @@ impl<'a> Survey<'a> {
             PatternRule::ModesOf(scale) => scale[..pattern].iter().sum(),
             _ => 0,
         };
+        // Intervals and steps are taken in the direction the courses run (down when course 1
+        // is the highest).
+        let sign = self.order.direction.sign();
         degrees.push(0);
         for course in 1..courses {
             let previous = degrees[course - 1];
             let next = match &self.settings.pattern {
                 PatternRule::NearestTo(interval) => {
-                    let target = cents(start + previous)? + interval.cents;
+                    let target = cents(start + previous)? + sign as f64 * interval.cents;
                     let nearest = tuning
                         .nearest_to_cents_above_degree_zero(target)
                         .ok_or_else(|| {
@@ -161,10 +169,17 @@ impl<'a> Survey<'a> {
                         })?;
                     nearest.degree - start
                 }
-                PatternRule::Steps(steps) => previous + steps[course - 1],
-                PatternRule::ModesOf(scale) => {
-                    previous + scale[(pattern + course - 1) % scale.len()]
-                }
+                PatternRule::Steps(steps) => previous + sign * steps[course - 1],
+                // Up, mode p climbs from scale note p by steps p, p+1, …; down, it falls from
+                // the same note by the steps below it: p−1, p−2, …
+                PatternRule::ModesOf(scale) => match self.order.direction {
+                    Direction::Up => previous + scale[(pattern + course - 1) % scale.len()],
+                    Direction::Down => {
+                        let len = scale.len() as i64;
+                        let below = (pattern as i64 - course as i64).rem_euclid(len);
+                        previous - scale[below as usize]
+                    }
+                },
             };
             degrees.push(next);
         }

@@ -7,6 +7,8 @@
 //! offset_cents: {from: -600, to: 600, step: 0.1}
 //! courses:
 //!   nearest_to: 4/3                # or `steps: [5, 5, 5, 4, 5]` or `modes_of: [2, 2, 1, 2, 2, 2, 1]`
+//!   direction: up                  # optional: up (course 1 lowest) or down (course 1 highest);
+//!                                  # default and check: the instrument's own pitches
 //! rank_by: spread                  # spread | stress | load | target
 //! top: 10
 //! every_offset: false              # true: every stringable offset, not each setting once
@@ -94,6 +96,36 @@ impl TuningChoice {
     }
 }
 
+/// Which way the courses run in pitch from course 1: the pattern's intervals and steps are
+/// taken in this direction.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Direction {
+    /// Course 1 is the lowest; each course lies above the one before.
+    #[default]
+    Up,
+    /// Course 1 is the highest (as guitarists count); each course lies below the one before.
+    Down,
+}
+
+impl Direction {
+    /// +1 for up, −1 for down.
+    pub fn sign(self) -> i64 {
+        match self {
+            Direction::Up => 1,
+            Direction::Down => -1,
+        }
+    }
+
+    /// `above` or `below`.
+    pub fn word(self) -> &'static str {
+        match self {
+            Direction::Up => "above",
+            Direction::Down => "below",
+        }
+    }
+}
+
 /// Which degree each course takes.
 #[derive(Debug, Clone, PartialEq)]
 pub enum PatternRule {
@@ -128,6 +160,9 @@ pub struct Settings {
     pub offsets: CentsRange,
     /// How courses climb.
     pub pattern: PatternRule,
+    /// The direction the settings state (`courses: direction`), if any; the survey checks it
+    /// against the instrument's own pitches and otherwise takes the direction from them.
+    pub direction: Option<Direction>,
     /// The ranking rule.
     pub rank_by: RankRule,
     /// How many results to list.
@@ -189,6 +224,8 @@ struct PatternSpec {
     steps: Option<Vec<i64>>,
     #[serde(default)]
     modes_of: Option<Vec<i64>>,
+    #[serde(default)]
+    direction: Option<Direction>,
 }
 
 /// Default number of results listed.
@@ -212,6 +249,7 @@ impl Settings {
             course_1_hz: 0.0,
             offsets: CentsRange::single(0.0)?,
             pattern: PatternRule::Steps(Vec::new()),
+            direction: file.courses.direction,
             rank_by: file.rank_by,
             top: file.top.unwrap_or(DEFAULT_TOP),
             every_offset: file.every_offset,

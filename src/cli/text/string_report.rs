@@ -107,7 +107,7 @@ impl<'v> StringReport<'v> {
 pub fn feel_columns(first_rank: u8) -> [Column; 3] {
     [
         Column::figure("B").give(Give::Drop(first_rank)),
-        Column::figure("partials c").give(Give::Drop(first_rank + 1)),
+        Column::figure("partials c vs n·f1").give(Give::Drop(first_rank + 1)),
         Column::figure("bend N").give(Give::Drop(first_rank + 2)),
     ]
 }
