@@ -106,16 +106,37 @@ impl<'a> Survey<'a> {
             order,
             checks: string_checks,
         };
+        // Each file is read once, however often the list names it (the size check counted it
+        // so).
+        let mut loaded: std::collections::HashMap<String, std::rc::Rc<Tuning>> =
+            std::collections::HashMap::new();
         for tuning_index in 0..size.tunings as usize {
             let spec = settings.tuning_spec(tuning_index);
-            let tuning = tuning::load(&spec)
-                .map_err(|err| settings.point(err, &[PathStep::Key("tunings")]))?;
+            let at = match settings.tunings {
+                TuningChoice::List(_) => vec![
+                    PathStep::Key("tunings"),
+                    PathStep::Key("list"),
+                    PathStep::Index(tuning_index),
+                ],
+                TuningChoice::Edos { .. } => vec![PathStep::Key("tunings")],
+            };
+            let (key, _) = settings.tuning_source(tuning_index);
+            let tuning = match loaded.get(&key) {
+                Some(tuning) => std::rc::Rc::clone(tuning),
+                None => {
+                    let tuning = std::rc::Rc::new(
+                        tuning::load(&spec).map_err(|err| settings.point(err, &at))?,
+                    );
+                    loaded.insert(key, std::rc::Rc::clone(&tuning));
+                    tuning
+                }
+            };
             if matches!(tuning.layout(), Layout::Absolute { .. }) {
                 return Err(settings.point(
                     Error::input(format!(
                         "`{spec}` is a fixed list of frequencies; a survey moves tunings in pitch, so it needs a tuning with degrees"
                     )),
-                    &[PathStep::Key("tunings")],
+                    &at,
                 ));
             }
             for pattern in 0..size.patterns as usize {
