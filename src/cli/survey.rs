@@ -10,9 +10,9 @@ use serde::Serialize;
 use taut::error::{Error, Result};
 use taut::instrument::Instrument;
 use taut::plan::warning::SAFETY_REMINDER;
-use taut::survey::{RankRule, Report, Settings, Survey, Verdict};
+use taut::survey::{CourseDiagnosis, Limit, RankRule, Report, Settings, Survey, Verdict};
 
-use super::layout::{hidden_note, paragraph, Column, Give, Grid};
+use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
 use super::output::View;
 use super::output::{self, OutputArgs, Render};
 use super::plan::render;
@@ -170,8 +170,12 @@ impl Render for SurveyOutput<'_> {
                 view.width,
             ));
         }
+        for note in &report.notes {
+            out.push_str(&paragraph(&user(note), view.width));
+        }
         if report.results.is_empty() {
             out.push_str("\nNo candidate is stringable.\n");
+            out.push_str(&diagnosis_text(report, view));
             out.push_str(&paragraph(SAFETY_REMINDER, view.width));
             return out;
         }
@@ -239,4 +243,130 @@ impl Render for SurveyOutput<'_> {
         }
         out
     }
+}
+
+/// Why nothing passes, course by course: which limit refuses each string and how far the
+/// candidates are from a pitch it passes at.
+fn diagnosis_text(report: &Report, view: &View) -> String {
+    let mut out = String::new();
+    if report.diagnosis.is_empty() {
+        return out;
+    }
+    let several_strings = report.diagnosis.iter().any(|d| d.string > 1);
+    let refused_everywhere = report
+        .diagnosis
+        .iter()
+        .any(|d| d.refused_candidates == d.candidates);
+    out.push_str(&paragraph(
+        if refused_everywhere {
+            "Why, course by course (each string alone, over every candidate):"
+        } else {
+            "Every string passes in some candidates, but no candidate passes them all at once (or the total load is above the rated load). Course by course:"
+        },
+        view.width,
+    ));
+    for diagnosis in &report.diagnosis {
+        let mut line = if several_strings {
+            format!("course {} string {}: ", diagnosis.course, diagnosis.string)
+        } else {
+            format!("course {}: ", diagnosis.course)
+        };
+        line.push_str(&course_reason(diagnosis));
+        out.push_str(&wrap(&line, view.width, "  ", "    "));
+    }
+    out
+}
+
+fn limit_words(limit: Limit) -> &'static str {
+    match limit {
+        Limit::StressDanger => "stress above the danger limit",
+        Limit::ThinnerThanCatalog => "lighter than any string of its kinds",
+        Limit::ThickerThanCatalog => "heavier than any string of its kinds",
+        Limit::BelowWindow => "tension below the window",
+        Limit::AboveWindow => "tension above the window",
+        Limit::WiderThanSlot => "wider than its slot",
+        Limit::StrengthUnknown => "strength unknown",
+    }
+}
+
+/// One string's reason in words: the limits, the figures at the candidate nearest to passing
+/// against the limit, and the distance in cents.
+fn course_reason(d: &CourseDiagnosis) -> String {
+    let limits: Vec<&str> = d.limits.iter().map(|&l| limit_words(l)).collect();
+    if d.refused_candidates == 0 {
+        return "passes in every candidate.".to_string();
+    }
+    if d.refused_candidates < d.candidates {
+        return format!(
+            "refused in {} of {} candidates ({}).",
+            d.refused_candidates,
+            d.candidates,
+            limits.join(", ")
+        );
+    }
+    let mut text = format!("refused in all {} candidates", d.candidates);
+    if let Some(closest) = &d.closest {
+        let mut figures: Vec<String> = Vec::new();
+        for limit in &closest.limits {
+            match limit {
+                Limit::StressDanger => {
+                    if let Some(stress) = closest.stress_ratio {
+                        figures.push(format!(
+                            "stress {:.0}% of breaking, danger from {:.0}%",
+                            stress * 100.0,
+                            d.danger_ratio * 100.0
+                        ));
+                    }
+                }
+                Limit::BelowWindow => {
+                    if let (Some(tension), Some(min)) = (closest.tension_n, d.window_n.0) {
+                        figures.push(format!("tension {tension:.1} N, window from {min:.1} N"));
+                    }
+                }
+                Limit::AboveWindow => {
+                    if let (Some(tension), Some(max)) = (closest.tension_n, d.window_n.1) {
+                        figures.push(format!("tension {tension:.1} N, window up to {max:.1} N"));
+                    }
+                }
+                Limit::WiderThanSlot => {
+                    if let (Some(diameter), Some(slot)) = (closest.diameter_m, d.slot_m) {
+                        figures.push(format!(
+                            "{:.3} mm wide, slot {:.3} mm",
+                            diameter * 1000.0,
+                            slot * 1000.0
+                        ));
+                    }
+                }
+                _ => figures.push(limit_words(*limit).to_string()),
+            }
+        }
+        let closest_limits: Vec<&str> = closest.limits.iter().map(|&l| limit_words(l)).collect();
+        text.push_str(&format!(
+            ": {}; nearest to passing at {:.2} Hz",
+            closest_limits.join(", "),
+            closest.hz
+        ));
+        if let (Some(kind), Some(diameter)) = (&closest.kind, closest.diameter_m) {
+            text.push_str(&format!(" ({} {:.3} mm)", user(kind), diameter * 1000.0));
+        }
+        let figures: Vec<&String> = figures
+            .iter()
+            .filter(|f| !closest_limits.contains(&f.as_str()))
+            .collect();
+        if !figures.is_empty() {
+            let figures: Vec<&str> = figures.iter().map(|f| f.as_str()).collect();
+            text.push_str(&format!(", {}", figures.join(", ")));
+        }
+    } else {
+        text.push_str(&format!(" ({})", limits.join(", ")));
+    }
+    match d.nearest_passing_cents {
+        Some(cents) => text.push_str(&format!(
+            "; it would pass {:.0} cents {} than the candidates reach.",
+            cents.abs().max(1.0),
+            if cents > 0.0 { "higher" } else { "lower" }
+        )),
+        None => text.push_str("; it passes at no pitch with these kinds and limits."),
+    }
+    text
 }

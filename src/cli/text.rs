@@ -278,7 +278,7 @@ pub fn build_of_kind(stock: &Stock, id: &str) -> Build {
 pub fn feel_legend(bend_cents: f64, view: &View) -> String {
     paragraph(
         &format!(
-            "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental. Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise."
+            "B: Fletcher's inharmonicity coefficient (core diameter for wound strings). Partials c vs n·f1: cents that partials 2/4/8 sit above 2, 4 and 8 times the sounding fundamental f1 (not the flexible string's f0). Bend: sideways force at mid-length for a {bend_cents:.0}-cent rise."
         ),
         view.width,
     )

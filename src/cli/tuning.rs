@@ -24,6 +24,7 @@ TUNING is looked up in this order:
   2. an inline spec:
        19edo                            19 equal divisions of the octave
        13ed3/1, 88ed1950c               N equal divisions of any interval
+       17-TET, 17tet, 13edt, 13ed3      other spellings (13ed3: of the tritave 3/1)
        ratios:1/1,9/8,5/4,4/3,3/2[:2/1] exact ratios of one period, from 1/1
        cents:0,200,400,500,700[:1200c]  cents of one period, from 0
        hertz:98,110,123.47              a fixed list of frequencies

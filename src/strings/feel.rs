@@ -74,11 +74,14 @@ impl Default for FeelOptions {
 pub struct Feel {
     /// Fletcher's inharmonicity coefficient B (dimensionless).
     pub inharmonicity_b: Option<f64>,
-    /// Cents partial 2 sits above twice the sounding fundamental.
+    /// Cents partial 2 sits above twice the sounding fundamental f₁ = f₀·√(1+B) (the
+    /// baseline is n·f₁, not n·f₀ of the flexible string).
     pub partial_2_cents: Option<f64>,
-    /// Cents partial 4 sits above four times the sounding fundamental.
+    /// Cents partial 4 sits above four times the sounding fundamental f₁ = f₀·√(1+B) (the
+    /// baseline is n·f₁, not n·f₀ of the flexible string).
     pub partial_4_cents: Option<f64>,
-    /// Cents partial 8 sits above eight times the sounding fundamental.
+    /// Cents partial 8 sits above eight times the sounding fundamental f₁ = f₀·√(1+B) (the
+    /// baseline is n·f₁, not n·f₀ of the flexible string).
     pub partial_8_cents: Option<f64>,
     /// The rise the bend figures are for, cents.
     pub bend_cents: f64,

@@ -38,10 +38,13 @@ use crate::strings::stock::Stock;
 use crate::tuning::pitch::ratio_from_cents;
 use crate::tuning::{self, Layout, Reference, Tuning};
 
+pub use diagnose::{CourseDiagnosis, Limit};
 pub use search::{Metrics, Rejections};
-pub use settings::{PatternRule, RankRule, Settings, TuningChoice};
+pub use settings::{Direction, PatternRule, RankRule, Settings, TuningChoice};
 use table::{StringSpec, StringTable};
 
+mod diagnose;
+mod order;
 mod prepare;
 mod size;
 #[allow(unused_imports)]
@@ -89,6 +92,10 @@ pub struct Survey<'a> {
     pairs: Vec<Pair>,
     offset_ratios: Vec<f64>,
     rated_load_n: Option<f64>,
+    /// Which way the courses run from course 1, and why.
+    order: order::CourseOrder,
+    /// Per string (in the order of `strings`), its window, slot and stress limits.
+    checks: Vec<Checks>,
 }
 
 /// The course pattern of a result.
@@ -98,9 +105,10 @@ pub struct CoursePattern {
     pub rule: String,
     /// The degree course 1 takes in the tuning.
     pub start_degree: i64,
-    /// Each course's degree above course 1's.
+    /// Each course's degree relative to course 1's (negative below it).
     pub degrees: Vec<i64>,
-    /// Degree steps between neighbouring courses.
+    /// Degree steps between neighbouring courses, from course 1 on (negative where a course
+    /// lies below the one before).
     pub steps: Vec<i64>,
 }
 
@@ -166,6 +174,14 @@ pub struct Report {
     pub rejected: Rejections,
     /// Seconds the search took (building the tables and checking every candidate).
     pub elapsed_s: f64,
+    /// Which way the courses run in pitch from course 1 (`up`: course 1 is the lowest).
+    pub course_direction: Direction,
+    /// How the direction was decided, and anything about the settings worth knowing (e.g.
+    /// `course_1` far from the instrument's own course 1), as sentences.
+    pub notes: Vec<String>,
+    /// When no candidate is stringable: per string, which limit refuses it and how far it is
+    /// from passing (empty otherwise).
+    pub diagnosis: Vec<CourseDiagnosis>,
     /// The best candidates, best first.
     pub results: Vec<Ranked>,
     /// The full plan of the best candidate, from the plain plan solver.
@@ -260,7 +276,10 @@ impl<'a> Survey<'a> {
 
     fn pattern_of(&self, pair: &Pair) -> CoursePattern {
         let rule = match &self.settings.pattern {
-            PatternRule::NearestTo(interval) => format!("nearest {interval}"),
+            PatternRule::NearestTo(interval) => match self.order.direction {
+                Direction::Up => format!("nearest {interval}"),
+                Direction::Down => format!("nearest {interval} below"),
+            },
             PatternRule::Steps(_) => "steps".to_string(),
             PatternRule::ModesOf(scale) => format!("mode {} of {}", pair.pattern + 1, scale.len()),
         };

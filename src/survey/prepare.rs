@@ -13,11 +13,13 @@ impl<'a> Survey<'a> {
     ) -> Result<Survey<'a>> {
         let kinds = stock.kinds();
         let size = Size::of(instrument, settings)?;
+        let order = order::CourseOrder::of(instrument, settings)?;
         let limits = solve::stress_limits(instrument)?;
         let tolerance = instrument
             .tolerance
             .map_or(select::DEFAULT_TOLERANCE, |percent| percent.fraction());
         let mut strings = Vec::new();
+        let mut string_checks = Vec::new();
         for index in 0..instrument.courses.len() {
             let course = instrument
                 .course_input(index, None)
@@ -79,6 +81,7 @@ impl<'a> Survey<'a> {
                     kinds: &kind_list,
                 };
                 let table = StringTable::build(&spec);
+                string_checks.push(spec.checks);
                 strings.push(StringSlot {
                     course: index,
                     two_length: 2.0 * course.length_m,
@@ -100,17 +103,40 @@ impl<'a> Survey<'a> {
             pairs: Vec::new(),
             offset_ratios,
             rated_load_n: instrument.rated_load.map(|load| load.si()),
+            order,
+            checks: string_checks,
         };
+        // Each file is read once, however often the list names it (the size check counted it
+        // so).
+        let mut loaded: std::collections::HashMap<String, std::rc::Rc<Tuning>> =
+            std::collections::HashMap::new();
         for tuning_index in 0..size.tunings as usize {
             let spec = settings.tuning_spec(tuning_index);
-            let tuning = tuning::load(&spec)
-                .map_err(|err| settings.point(err, &[PathStep::Key("tunings")]))?;
+            let at = match settings.tunings {
+                TuningChoice::List(_) => vec![
+                    PathStep::Key("tunings"),
+                    PathStep::Key("list"),
+                    PathStep::Index(tuning_index),
+                ],
+                TuningChoice::Edos { .. } => vec![PathStep::Key("tunings")],
+            };
+            let (key, _) = settings.tuning_source(tuning_index);
+            let tuning = match loaded.get(&key) {
+                Some(tuning) => std::rc::Rc::clone(tuning),
+                None => {
+                    let tuning = std::rc::Rc::new(
+                        tuning::load(&spec).map_err(|err| settings.point(err, &at))?,
+                    );
+                    loaded.insert(key, std::rc::Rc::clone(&tuning));
+                    tuning
+                }
+            };
             if matches!(tuning.layout(), Layout::Absolute { .. }) {
                 return Err(settings.point(
                     Error::input(format!(
                         "`{spec}` is a fixed list of frequencies; a survey moves tunings in pitch, so it needs a tuning with degrees"
                     )),
-                    &[PathStep::Key("tunings")],
+                    &at,
                 ));
             }
             for pattern in 0..size.patterns as usize {
@@ -141,12 +167,15 @@ impl<'a> Survey<'a> {
             PatternRule::ModesOf(scale) => scale[..pattern].iter().sum(),
             _ => 0,
         };
+        // Intervals and steps are taken in the direction the courses run (down when course 1
+        // is the highest).
+        let sign = self.order.direction.sign();
         degrees.push(0);
         for course in 1..courses {
             let previous = degrees[course - 1];
             let next = match &self.settings.pattern {
                 PatternRule::NearestTo(interval) => {
-                    let target = cents(start + previous)? + interval.cents;
+                    let target = cents(start + previous)? + sign as f64 * interval.cents;
                     let nearest = tuning
                         .nearest_to_cents_above_degree_zero(target)
                         .ok_or_else(|| {
@@ -161,10 +190,17 @@ impl<'a> Survey<'a> {
                         })?;
                     nearest.degree - start
                 }
-                PatternRule::Steps(steps) => previous + steps[course - 1],
-                PatternRule::ModesOf(scale) => {
-                    previous + scale[(pattern + course - 1) % scale.len()]
-                }
+                PatternRule::Steps(steps) => previous + sign * steps[course - 1],
+                // Up, mode p climbs from scale note p by steps p, p+1, …; down, it falls from
+                // the same note by the steps below it: p−1, p−2, …
+                PatternRule::ModesOf(scale) => match self.order.direction {
+                    Direction::Up => previous + scale[(pattern + course - 1) % scale.len()],
+                    Direction::Down => {
+                        let len = scale.len() as i64;
+                        let below = (pattern as i64 - course as i64).rem_euclid(len);
+                        previous - scale[below as usize]
+                    }
+                },
             };
             degrees.push(next);
         }

@@ -24,7 +24,7 @@ const CHUNK: u64 = 2048;
 
 /// Flags that make a string unstringable.
 #[inline]
-fn reject_mask() -> u16 {
+pub(super) fn reject_mask() -> u16 {
     Warnings::STRESS_DANGER
         .union(Warnings::THINNER_THAN_CATALOG)
         .union(Warnings::THICKER_THAN_CATALOG)
@@ -378,6 +378,13 @@ impl Survey<'_> {
             stringable: found.stringable,
             rejected: found.rejected,
             elapsed_s,
+            course_direction: self.order.direction,
+            notes: self.order.notes.clone(),
+            diagnosis: if found.stringable == 0 {
+                self.diagnose()
+            } else {
+                Vec::new()
+            },
             results,
             best_plan: None,
         }

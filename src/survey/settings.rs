@@ -7,6 +7,8 @@
 //! offset_cents: {from: -600, to: 600, step: 0.1}
 //! courses:
 //!   nearest_to: 4/3                # or `steps: [5, 5, 5, 4, 5]` or `modes_of: [2, 2, 1, 2, 2, 2, 1]`
+//!   direction: up                  # optional: up (course 1 lowest) or down (course 1 highest);
+//!                                  # default and check: the instrument's own pitches
 //! rank_by: spread                  # spread | stress | load | target
 //! top: 10
 //! every_offset: false              # true: every stringable offset, not each setting once
@@ -31,6 +33,9 @@ pub const MAX_TOP: usize = 10_000;
 pub const MAX_TUNINGS: usize = 2_000;
 /// Most offsets one survey sweeps (the table of offset ratios is kept in memory).
 pub const MAX_OFFSETS: u64 = 2_000_000;
+/// Most bytes of tuning files one survey reads (each file once): about 3 s of YAML at the
+/// 10 MB/s serde_yaml reads.
+pub const MAX_TUNING_BYTES: u64 = 32 * 1024 * 1024;
 /// Most steps a scale for `modes_of` may have.
 pub const MAX_SCALE_STEPS: usize = 1_000;
 
@@ -94,6 +99,36 @@ impl TuningChoice {
     }
 }
 
+/// Which way the courses run in pitch from course 1: the pattern's intervals and steps are
+/// taken in this direction.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Direction {
+    /// Course 1 is the lowest; each course lies above the one before.
+    #[default]
+    Up,
+    /// Course 1 is the highest (as guitarists count); each course lies below the one before.
+    Down,
+}
+
+impl Direction {
+    /// +1 for up, −1 for down.
+    pub fn sign(self) -> i64 {
+        match self {
+            Direction::Up => 1,
+            Direction::Down => -1,
+        }
+    }
+
+    /// `above` or `below`.
+    pub fn word(self) -> &'static str {
+        match self {
+            Direction::Up => "above",
+            Direction::Down => "below",
+        }
+    }
+}
+
 /// Which degree each course takes.
 #[derive(Debug, Clone, PartialEq)]
 pub enum PatternRule {
@@ -128,6 +163,9 @@ pub struct Settings {
     pub offsets: CentsRange,
     /// How courses climb.
     pub pattern: PatternRule,
+    /// The direction the settings state (`courses: direction`), if any; the survey checks it
+    /// against the instrument's own pitches and otherwise takes the direction from them.
+    pub direction: Option<Direction>,
     /// The ranking rule.
     pub rank_by: RankRule,
     /// How many results to list.
@@ -189,6 +227,8 @@ struct PatternSpec {
     steps: Option<Vec<i64>>,
     #[serde(default)]
     modes_of: Option<Vec<i64>>,
+    #[serde(default)]
+    direction: Option<Direction>,
 }
 
 /// Default number of results listed.
@@ -212,6 +252,7 @@ impl Settings {
             course_1_hz: 0.0,
             offsets: CentsRange::single(0.0)?,
             pattern: PatternRule::Steps(Vec::new()),
+            direction: file.courses.direction,
             rank_by: file.rank_by,
             top: file.top.unwrap_or(DEFAULT_TOP),
             every_offset: file.every_offset,
@@ -329,6 +370,40 @@ impl Settings {
     /// Attaches this file's name and the line of `path` to an error.
     pub fn point(&self, error: Error, path: &[PathStep<'_>]) -> Error {
         yaml::point(error, &self.text, &self.origin, path)
+    }
+
+    /// What reading tuning `index` costs and which other entries read the same: its key (the
+    /// file's canonical path and any `@reference` for a file, the spec itself otherwise) and the
+    /// bytes of file it reads (0 for a shipped name or an inline spec; the file's size for a
+    /// regular file; the most a definition file may hold for standard input, a device or a
+    /// pipe, whose size is not known before reading). Mirrors the order of
+    /// [`crate::tuning::load`]: shipped names and inline specs come before files.
+    pub fn tuning_source(&self, index: usize) -> (String, u64) {
+        let spec = self.tuning_spec(index);
+        let trimmed = spec.trim();
+        let (body, reference) = match trimmed.rsplit_once('@') {
+            Some((body, reference)) if !Path::new(trimmed).exists() => (body.trim(), reference),
+            _ => (trimmed, ""),
+        };
+        let built_in = crate::tuning::library::names().any(|name| name.eq_ignore_ascii_case(body))
+            || crate::tuning::inline::looks_inline(body)
+            || (!Path::new(body).exists() && crate::tuning::inline::read_spelling(body).is_some());
+        if built_in || body.is_empty() {
+            return (spec, 0);
+        }
+        let most = yaml::MAX_INPUT_BYTES;
+        if body == "-" {
+            return ("-".to_string(), most);
+        }
+        let path = Path::new(body);
+        let bytes = match std::fs::metadata(path) {
+            Ok(meta) if meta.is_file() => meta.len().min(most + 1),
+            Ok(_) => most,
+            // Missing: loading it fails with its own message, having read nothing.
+            Err(_) => 0,
+        };
+        let canonical = std::fs::canonicalize(path).unwrap_or_else(|_| path.to_path_buf());
+        (format!("{}@{reference}", canonical.display()), bytes)
     }
 
     /// The spec of tuning `index` for [`crate::tuning::load`]: a relative file path is taken

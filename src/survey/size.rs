@@ -26,6 +26,8 @@ pub struct Size {
     pub candidates: u64,
     /// Candidates × courses.
     pub course_checks: u64,
+    /// Bytes of tuning files to read, each file once.
+    pub tuning_bytes: u64,
 }
 
 impl Size {
@@ -76,6 +78,27 @@ impl Size {
                 &[PathStep::Key("tunings")],
             ));
         }
+        // The work of reading: each tuning file once, however often the list names it.
+        let mut tuning_bytes = 0u64;
+        if let TuningChoice::List(_) = settings.tunings {
+            let mut seen = std::collections::HashSet::new();
+            for index in 0..tunings.min(settings::MAX_TUNINGS as u64) as usize {
+                let (key, bytes) = settings.tuning_source(index);
+                if seen.insert(key) {
+                    tuning_bytes = tuning_bytes.saturating_add(bytes);
+                }
+            }
+        }
+        if tuning_bytes > settings::MAX_TUNING_BYTES {
+            return Err(settings.point(
+                Error::input(format!(
+                    "the tunings listed are too much to read: {tuning_bytes} bytes of tuning files (each file counted once; at most {}, about 3 s of reading)",
+                    settings::MAX_TUNING_BYTES
+                ))
+                .help("list fewer or smaller tuning files, or split the survey"),
+                &[PathStep::Key("tunings"), PathStep::Key("list")],
+            ));
+        }
         if offsets > settings::MAX_OFFSETS {
             return Err(too_big(
                 format!("{offsets} offsets (at most {})", settings::MAX_OFFSETS),
@@ -109,6 +132,7 @@ impl Size {
             courses,
             candidates: candidates as u64,
             course_checks: checks as u64,
+            tuning_bytes,
         })
     }
 }

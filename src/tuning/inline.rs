@@ -9,6 +9,12 @@
 //! | `hertz:98,110,123.47` | a fixed list of frequencies |
 //! | `chain:3/2,6,5` | generator, steps up, steps down, reduced into the period |
 //!
+//! Equal divisions are also read in the spellings people use, and the report says so
+//! ([`read_spelling`]): `17-edo`, `17 EDO`, `17tet`, `17-TET`, `17et` are 17 equal divisions of
+//! the octave (`17edo`); `13edt` is 13 equal divisions of the tritave 3/1 (`13ed3`), `9edf` 9 of
+//! the fifth 3/2 (`9ed3/2`). A bare whole number after `ed` is the harmonic N/1: `13ed3` is 13
+//! equal divisions of 3/1, as in the usual `13ed3` for the tritave; 3 cents is written `13ed3c`.
+//!
 //! The list forms take a period after a second colon (`ratios:1/1,7/6,4/3:3/2`, default
 //! `2/1`). Any spec may end in `@reference` (see [`super::reference`]), e.g. `31edo@A4=415`.
 
@@ -32,6 +38,57 @@ pub fn looks_inline(spec: &str) -> bool {
     let unsigned = lower.trim_start_matches(['-', '+']);
     let digits = unsigned.bytes().take_while(u8::is_ascii_digit).count();
     digits > 0 && unsigned[digits..].starts_with("ed")
+}
+
+/// An equal division written in another common spelling, read into the inline form:
+/// `(inline spec, note)`, where the note says what was read, e.g. ``read `17-TET` as 17edo``.
+/// `None` when `spec` is no such spelling (the plain inline form `17edo` included).
+///
+/// Read: a whole number N, then optionally `-`, `_` or a space, then (any case) `edo`, `tet` or
+/// `et` (N equal divisions of the octave), `edt` (of the tritave 3/1), `edf` (of the fifth 3/2),
+/// or `ed` and an interval (`17-ed3/2`).
+pub fn read_spelling(spec: &str) -> Option<(String, String)> {
+    let trimmed = spec.trim();
+    let digits = trimmed.bytes().take_while(u8::is_ascii_digit).count();
+    if digits == 0 {
+        return None;
+    }
+    let (count, rest) = trimmed.split_at(digits);
+    let rest = rest
+        .strip_prefix(['-', '_', ' '])
+        .map_or(rest, str::trim_start);
+    let lower = rest.to_ascii_lowercase();
+    let inline = match lower.as_str() {
+        "edo" | "tet" | "et" => format!("{count}edo"),
+        "edt" => format!("{count}ed3"),
+        "edf" => format!("{count}ed3/2"),
+        _ => match lower.strip_prefix("ed") {
+            Some(interval) if !interval.is_empty() => format!("{count}ed{interval}"),
+            _ => return None,
+        },
+    };
+    if inline == trimmed {
+        return None;
+    }
+    Some((inline.clone(), format!("read `{trimmed}` as {inline}")))
+}
+
+/// A likely meant spelling for an inline spec that does not parse: the shipped tuning or the
+/// `Nedo` nearest to it (e.g. `12edo` for `12edoo`).
+pub fn suggestion(spec: &str) -> Option<String> {
+    let trimmed = spec.trim();
+    let digits = trimmed.bytes().take_while(u8::is_ascii_digit).count();
+    let mut candidates: Vec<String> = super::library::names().map(str::to_string).collect();
+    if digits > 0 {
+        let count = &trimmed[..digits];
+        candidates.push(format!("{count}edo"));
+        candidates.push(format!("{count}ed3"));
+    }
+    crate::error::did_you_mean(
+        &trimmed.to_ascii_lowercase(),
+        candidates.iter().map(String::as_str),
+    )
+    .map(str::to_string)
 }
 
 /// Parses an inline tuning spec (without its `@reference`).
@@ -169,6 +226,10 @@ fn parse_shape(spec: &str) -> Result<(Shape, String)> {
     let interval_text = &spec[at + 2..];
     let period = if interval_text.eq_ignore_ascii_case("o") {
         Interval::octave()
+    } else if !interval_text.is_empty() && interval_text.bytes().all(|b| b.is_ascii_digit()) {
+        // A bare whole number is the harmonic N/1 (`13ed3`: the tritave), as equal divisions
+        // are usually named; cents take their `c` (`13ed3c`).
+        Interval::parse(&format!("{interval_text}/1")).map_err(|e| e.field("period"))?
     } else {
         Interval::parse(interval_text).map_err(|e| e.field("period"))?
     };

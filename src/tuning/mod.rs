@@ -160,6 +160,12 @@ impl Tuning {
         &self.name
     }
 
+    /// The same tuning with another one-line description.
+    pub fn described(mut self, description: impl Into<String>) -> Self {
+        self.description = description.into();
+        self
+    }
+
     /// The tuning's one-line description.
     pub fn description(&self) -> &str {
         &self.description
@@ -409,10 +415,28 @@ fn load_body(body: &str) -> Result<Tuning> {
     if let Some(tuning) = library::load(body) {
         return tuning;
     }
-    if inline::looks_inline(body) {
-        return inline::parse(body);
-    }
     let path = std::path::Path::new(body);
+    // An inline spec that does not parse gets the shipped name or `Nedo` nearest to it.
+    let parse_inline = |spec: &str| {
+        inline::parse(spec).map_err(|err| match inline::suggestion(spec) {
+            Some(meant) if !meant.eq_ignore_ascii_case(spec) => err.help(format!(
+                "did you mean `{meant}`? ({})",
+                inline::INLINE_SYNTAX_HELP
+            )),
+            _ => err,
+        })
+    };
+    if !path.exists() {
+        if let Some((inline, note)) = inline::read_spelling(body) {
+            // The spelling read, looked up as if written so (a shipped `19edo` first).
+            let tuning = load_body(&inline)?;
+            let description = format!("{} ({note})", tuning.description());
+            return Ok(tuning.described(description));
+        }
+    }
+    if inline::looks_inline(body) {
+        return parse_inline(body);
+    }
     if body == "-" || path.exists() || body.ends_with(".yaml") || body.ends_with(".yml") {
         return definition::load_file(path);
     }

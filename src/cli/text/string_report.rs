@@ -111,7 +111,7 @@ impl<'v> StringReport<'v> {
 pub fn feel_columns() -> [Column; 3] {
     [
         Column::figure("B").give(Give::Drop(FEEL_RANK)),
-        Column::figure("partials c").give(Give::Drop(FEEL_RANK + 1)),
+        Column::figure("partials c vs n·f1").give(Give::Drop(FEEL_RANK + 1)),
         Column::figure("bend N").give(Give::Drop(FEEL_RANK + 2)),
     ]
 }

@@ -43,14 +43,25 @@ pub(super) fn finish(grid: &Grid, view: &View) -> String {
     format!("{table}{}", hidden_note(&hidden, view.wide, view.width))
 }
 
+/// The headers of the two columns measured from the reference degree: cents from it and the
+/// exact ratio to it (the JSON and CSV fields `cents_from_reference` and `ratio`).
+pub(super) fn from_reference_headers(summary: &TuningSummary) -> (String, String) {
+    let degree = summary.reference.degree;
+    (
+        format!("from deg {degree}"),
+        format!("ratio to deg {degree}"),
+    )
+}
+
 impl Render for DegreeListing {
     fn table(&self, view: &View) -> String {
+        let (cents_header, ratio_header) = from_reference_headers(&self.tuning);
         let mut grid = Grid::new(vec![
             Column::figure("deg"),
             Column::figure("Hz"),
-            Column::figure("up from 0"),
+            Column::figure(&cents_header),
             Column::figure("gap"),
-            Column::text("exact"),
+            Column::text(&ratio_header),
             Column::text("12-tone"),
         ]);
         for row in &self.rows {
@@ -216,12 +227,13 @@ pub(super) struct CompareCsv {
 
 impl Render for FoundPitches {
     fn table(&self, view: &View) -> String {
+        let (cents_header, ratio_header) = from_reference_headers(&self.tuning);
         let mut grid = Grid::new(vec![
             Column::text("written").give(Give::Shorten(8, 1)),
             Column::figure("deg"),
             Column::figure("Hz"),
-            Column::figure("up from 0"),
-            Column::text("exact"),
+            Column::figure(&cents_header),
+            Column::text(&ratio_header),
             Column::text("12-tone"),
         ]);
         for found in &self.pitches {
