@@ -15,6 +15,7 @@ use plotters::style::FontStyle;
 
 use crate::error::{Error, Result};
 
+use super::label::label;
 use super::palette::{self, Marker, Pattern, Rgb};
 use super::scale::{padded, tick_text, trim_number, x_coord, Ticked};
 use super::{Chart, Flag, Look, Point};
@@ -70,9 +71,45 @@ fn ensure_font() -> Result<()> {
     }
 }
 
+/// A copy of `chart` whose every text passes [`label`]: characters XML forbids replaced, long
+/// names cut, so the SVG is well-formed and the cost of laying out text stays bounded whatever
+/// the files named things.
+fn with_clean_labels(chart: &Chart) -> Chart {
+    let clean = |text: &mut String| {
+        if let std::borrow::Cow::Owned(cleaned) = label(text) {
+            *text = cleaned;
+        }
+    };
+    let mut chart = chart.clone();
+    clean(&mut chart.title);
+    let axes = [&mut chart.x_axis, &mut chart.y_axis]
+        .into_iter()
+        .chain(chart.y2_axis.as_mut());
+    for axis in axes {
+        clean(&mut axis.label);
+        for (_, name) in &mut axis.tick_names {
+            clean(name);
+        }
+    }
+    for band in &mut chart.bands {
+        clean(&mut band.name);
+    }
+    for level in &mut chart.levels {
+        clean(&mut level.name);
+    }
+    for series in &mut chart.series {
+        clean(&mut series.name);
+        for tag in series.points.iter_mut().filter_map(|p| p.tag.as_mut()) {
+            clean(tag);
+        }
+    }
+    chart
+}
+
 /// The chart as an SVG document of `size` pixels (text as `<text>` in a sans-serif family).
 pub fn svg(chart: &Chart, size: Size) -> Result<String> {
     ensure_font()?;
+    let chart = &with_clean_labels(chart);
     let mut text = String::new();
     {
         let root =
@@ -86,6 +123,7 @@ pub fn svg(chart: &Chart, size: Size) -> Result<String> {
 /// The chart as a PNG file (8-bit RGB) of `size` pixels.
 pub fn png(chart: &Chart, size: Size) -> Result<Vec<u8>> {
     ensure_font()?;
+    let chart = &with_clean_labels(chart);
     let pixels = (size.width as usize)
         .checked_mul(size.height as usize)
         .and_then(|n| n.checked_mul(3))

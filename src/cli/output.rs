@@ -142,10 +142,7 @@ pub trait Render: Serialize {
 
 /// Rounds to 6 significant digits, so CSV shows `0.6477` and not `0.6476999999999999`.
 pub fn sig(value: f64) -> f64 {
-    if value == 0.0 || !value.is_finite() {
-        return value;
-    }
-    format!("{value:.5e}").parse().unwrap_or(value)
+    taut::charts::records::significant(value)
 }
 
 /// Rounds an optional figure to 6 significant digits.
@@ -164,6 +161,13 @@ pub fn csv_text<T: Serialize>(rows: impl IntoIterator<Item = T>) -> Result<Strin
     String::from_utf8(bytes).map_err(|err| fail(err.to_string()))
 }
 
+/// A CSV export made safe to open in a spreadsheet: every cell that a spreadsheet would run as
+/// a formula gets a leading `'` (see [`taut::charts::records::safe_cell`]). Every CSV taut writes
+/// passes through here.
+pub fn safe_csv(text: &str) -> Result<String> {
+    taut::charts::records::guarded(text)
+}
+
 /// Renders `report` in the chosen format, as text ending in a newline; the numbers are checked
 /// first (see [`check_finite`]).
 pub fn render<R: Render>(
@@ -175,7 +179,7 @@ pub fn render<R: Render>(
     let mut text = match args.format {
         Format::Table => terminal_text(report.table(&View::new(args, units))),
         Format::Json => json_text(report)?,
-        Format::Csv => report.csv()?,
+        Format::Csv => safe_csv(&report.csv()?)?,
         Format::Yaml => taut::input::yaml::to_text(report)?,
     };
     if !text.ends_with('\n') {

@@ -106,6 +106,24 @@ impl Inputs {
         }
         found
     }
+
+    /// Device, inode and path of every input: those named here and every file the run has
+    /// read (the library notes each file where it opens it, so a tuning named inside an
+    /// instrument's variants or a survey's settings counts as well as the files on the command
+    /// line).
+    fn all(&self) -> Vec<(u64, u64, PathBuf)> {
+        let mut found: Vec<(u64, u64, PathBuf)> = self
+            .identities()
+            .into_iter()
+            .map(|(dev, ino, path)| (dev, ino, path.to_path_buf()))
+            .collect();
+        found.extend(
+            taut::input::opened::opened()
+                .into_iter()
+                .map(|o| (o.device, o.inode, o.path)),
+        );
+        found
+    }
 }
 
 static STDOUT_OPEN_AT_START: OnceLock<bool> = OnceLock::new();
@@ -211,7 +229,7 @@ impl<'a> Outputs<'a> {
     }
 
     fn check(&self) -> Result<Vec<Method>> {
-        let inputs = self.inputs.identities();
+        let inputs = self.inputs.all();
         let mut methods: Vec<Method> = Vec::with_capacity(self.planned.len());
         let mut places: Vec<(Place, &'static str)> = Vec::new();
         for planned in &self.planned {

@@ -55,6 +55,9 @@ fn read_standard_input() -> Result<String> {
         )
         .in_origin(shown));
     }
+    if let Ok(meta) = std::fs::metadata("/dev/stdin") {
+        crate::input::opened::note(Path::new(shown), &meta);
+    }
     let mut bytes = Vec::new();
     std::io::stdin()
         .lock()
@@ -101,6 +104,10 @@ pub fn read_text(path: &Path) -> Result<String> {
     std::fs::File::open(path)
         .and_then(|file| {
             use std::io::Read;
+            // Noted before reading: whatever happens next, no output may land on this file.
+            if let Ok(meta) = file.metadata() {
+                crate::input::opened::note(path, &meta);
+            }
             file.take(MAX_INPUT_BYTES + 1).read_to_end(&mut bytes)
         })
         .map_err(|source| Error::Read {
