@@ -90,10 +90,15 @@ pub fn run(args: GenerateArgs) -> Result<()> {
         What::Completions { shell } => {
             let mut script = Vec::new();
             clap_complete::generate(shell.shell(), &mut command, "taut", &mut script);
-            output::write_bytes("--output", None, script, &output::Inputs::new())
+            output::write_bytes(
+                output::STANDARD_OUTPUT_ONLY,
+                None,
+                script,
+                &output::Inputs::new(),
+            )
         }
         What::Man { dir: None } => output::write_bytes(
-            "--output",
+            "--dir",
             None,
             main_page(command)?,
             &output::Inputs::new(),

@@ -4,6 +4,7 @@
 
 mod files;
 mod finite;
+mod partial;
 
 use std::borrow::Cow;
 use std::io::{self, Write};
@@ -15,7 +16,10 @@ use serde::Serialize;
 use taut::error::{shown, Error, Result};
 use taut::input::units::{ForceUnit, LengthUnit};
 
-pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target};
+pub use files::{
+    note_standard_output, write_bytes, Inputs, Outputs, Target, STANDARD_OUTPUT_ONLY,
+};
+pub use partial::watch_signals;
 pub use finite::check_finite;
 
 /// How a report is written.
