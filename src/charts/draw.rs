@@ -399,3 +399,63 @@ fn marks<DB: DrawingBackend>(
     }
     Ok(())
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::charts::{Axis, Band, Level, Series};
+
+    #[test]
+    fn every_text_of_a_chart_is_cleaned_and_cut_before_drawing() {
+        // The work of measuring and drawing text grows with its length: a 100,000-character
+        // name must reach plotters (SVG and PNG alike) as a label of bounded length.
+        let long = format!("a\u{b}b\u{1b}{}", "x".repeat(100_000));
+        let mut axis = Axis::numeric(long.clone(), true);
+        axis.tick_names.push((1, long.clone()));
+        let chart = Chart {
+            title: long.clone(),
+            x_axis: axis.clone(),
+            y_axis: axis.clone(),
+            y2_axis: Some(axis),
+            bands: vec![Band {
+                name: long.clone(),
+                edges: vec![(1.0, 1.0, 2.0)],
+            }],
+            levels: vec![Level {
+                name: long.clone(),
+                y: 1.0,
+                look: Look::Danger,
+            }],
+            series: vec![Series {
+                name: long.clone(),
+                look: Look::Danger,
+                joined: false,
+                secondary: false,
+                points: vec![Point {
+                    x: 1.0,
+                    y: 1.0,
+                    tag: Some(long.clone()),
+                    flag: None,
+                }],
+            }],
+        };
+        let cleaned = with_clean_labels(&chart);
+        let texts = serde_json::to_value(&cleaned).unwrap();
+        let mut strings = Vec::new();
+        fn walk<'a>(value: &'a serde_json::Value, out: &mut Vec<&'a str>) {
+            match value {
+                serde_json::Value::String(text) => out.push(text),
+                serde_json::Value::Array(items) => items.iter().for_each(|i| walk(i, out)),
+                serde_json::Value::Object(map) => map.values().for_each(|v| walk(v, out)),
+                _ => {}
+            }
+        }
+        walk(&texts, &mut strings);
+        let labels: Vec<&&str> = strings.iter().filter(|s| s.starts_with('a')).collect();
+        assert_eq!(labels.len(), 11, "{labels:?}");
+        for text in labels {
+            assert_eq!(text.chars().count(), crate::charts::label::MAX_LABEL_CHARS);
+            assert!(text.starts_with("a\u{fffd}b\u{fffd}x") && text.ends_with('…'));
+        }
+    }
+}

@@ -97,12 +97,9 @@ pub fn run(args: GenerateArgs) -> Result<()> {
                 &output::Inputs::new(),
             )
         }
-        What::Man { dir: None } => output::write_bytes(
-            "--dir",
-            None,
-            main_page(command)?,
-            &output::Inputs::new(),
-        ),
+        What::Man { dir: None } => {
+            output::write_bytes("--dir", None, main_page(command)?, &output::Inputs::new())
+        }
         What::Man { dir: Some(dir) } => {
             if !dir.is_dir() {
                 return Err(Error::input(format!("`{}` is not a folder", dir.display()))

@@ -16,11 +16,9 @@ use serde::Serialize;
 use taut::error::{shown, Error, Result};
 use taut::input::units::{ForceUnit, LengthUnit};
 
-pub use files::{
-    note_standard_output, write_bytes, Inputs, Outputs, Target, STANDARD_OUTPUT_ONLY,
-};
-pub use partial::watch_signals;
+pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target, STANDARD_OUTPUT_ONLY};
 pub use finite::check_finite;
+pub use partial::watch_signals;
 
 /// How a report is written.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]

@@ -596,9 +596,10 @@ fn folder_refused(target: &Path, folder: &Path, err: io::Error) -> io::Error {
     if err.kind() != ErrorKind::PermissionDenied {
         return err;
     }
-    let name = target
-        .file_name()
-        .map_or_else(|| target.display().to_string(), |n| n.to_string_lossy().to_string());
+    let name = target.file_name().map_or_else(
+        || target.display().to_string(),
+        |n| n.to_string_lossy().to_string(),
+    );
     io::Error::new(
         ErrorKind::PermissionDenied,
         format!(

@@ -32,7 +32,9 @@ static LEDGER: Mutex<Vec<Undo>> = Mutex::new(Vec::new());
 
 /// The ledger, held while the writer changes files so that the watcher never sees half a step.
 pub fn ledger() -> MutexGuard<'static, Vec<Undo>> {
-    LEDGER.lock().unwrap_or_else(|poisoned| poisoned.into_inner())
+    LEDGER
+        .lock()
+        .unwrap_or_else(|poisoned| poisoned.into_inner())
 }
 
 /// Forgets a file the writer removed (or renamed) itself.

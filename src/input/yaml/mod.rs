@@ -148,6 +148,33 @@ pub fn text_from_bytes(bytes: Vec<u8>, origin: &str) -> Result<String> {
     })
 }
 
+/// `text` as a YAML double-quoted scalar that reads back as the same text: every character
+/// YAML does not hold raw (controls, DEL, the C1 controls, U+2028, U+2029, U+FEFF, U+FFFE,
+/// U+FFFF) is written as an escape, as are `"` and `\`.
+pub fn quoted(text: &str) -> String {
+    let mut out = String::with_capacity(text.len() + 2);
+    out.push('"');
+    for c in text.chars() {
+        match c {
+            '"' => out.push_str("\\\""),
+            '\\' => out.push_str("\\\\"),
+            '\n' => out.push_str("\\n"),
+            '\t' => out.push_str("\\t"),
+            c if c.is_control()
+                || matches!(
+                    c,
+                    '\u{2028}' | '\u{2029}' | BYTE_ORDER_MARK | '\u{fffe}' | '\u{ffff}'
+                ) =>
+            {
+                out.push_str(&format!("\\u{:04X}", u32::from(c)));
+            }
+            c => out.push(c),
+        }
+    }
+    out.push('"');
+    out
+}
+
 /// The UTF-8 byte-order mark (U+FEFF) some editors write at the start of a file.
 const BYTE_ORDER_MARK: char = '\u{feff}';
 
