@@ -15,6 +15,7 @@ use plotters::style::FontStyle;
 
 use crate::error::{Error, Result};
 
+use super::label::label;
 use super::palette::{self, Marker, Pattern, Rgb};
 use super::scale::{padded, tick_text, trim_number, x_coord, Ticked};
 use super::{Chart, Flag, Look, Point};
@@ -70,9 +71,45 @@ fn ensure_font() -> Result<()> {
     }
 }
 
+/// A copy of `chart` whose every text passes [`label`]: characters XML forbids replaced, long
+/// names cut, so the SVG is well-formed and the cost of laying out text stays bounded whatever
+/// the files named things.
+fn with_clean_labels(chart: &Chart) -> Chart {
+    let clean = |text: &mut String| {
+        if let std::borrow::Cow::Owned(cleaned) = label(text) {
+            *text = cleaned;
+        }
+    };
+    let mut chart = chart.clone();
+    clean(&mut chart.title);
+    let axes = [&mut chart.x_axis, &mut chart.y_axis]
+        .into_iter()
+        .chain(chart.y2_axis.as_mut());
+    for axis in axes {
+        clean(&mut axis.label);
+        for (_, name) in &mut axis.tick_names {
+            clean(name);
+        }
+    }
+    for band in &mut chart.bands {
+        clean(&mut band.name);
+    }
+    for level in &mut chart.levels {
+        clean(&mut level.name);
+    }
+    for series in &mut chart.series {
+        clean(&mut series.name);
+        for tag in series.points.iter_mut().filter_map(|p| p.tag.as_mut()) {
+            clean(tag);
+        }
+    }
+    chart
+}
+
 /// The chart as an SVG document of `size` pixels (text as `<text>` in a sans-serif family).
 pub fn svg(chart: &Chart, size: Size) -> Result<String> {
     ensure_font()?;
+    let chart = &with_clean_labels(chart);
     let mut text = String::new();
     {
         let root =
@@ -86,6 +123,7 @@ pub fn svg(chart: &Chart, size: Size) -> Result<String> {
 /// The chart as a PNG file (8-bit RGB) of `size` pixels.
 pub fn png(chart: &Chart, size: Size) -> Result<Vec<u8>> {
     ensure_font()?;
+    let chart = &with_clean_labels(chart);
     let pixels = (size.width as usize)
         .checked_mul(size.height as usize)
         .and_then(|n| n.checked_mul(3))
@@ -360,4 +398,64 @@ fn marks<DB: DrawingBackend>(
         Marker::None => {}
     }
     Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::charts::{Axis, Band, Level, Series};
+
+    #[test]
+    fn every_text_of_a_chart_is_cleaned_and_cut_before_drawing() {
+        // The work of measuring and drawing text grows with its length: a 100,000-character
+        // name must reach plotters (SVG and PNG alike) as a label of bounded length.
+        let long = format!("a\u{b}b\u{1b}{}", "x".repeat(100_000));
+        let mut axis = Axis::numeric(long.clone(), true);
+        axis.tick_names.push((1, long.clone()));
+        let chart = Chart {
+            title: long.clone(),
+            x_axis: axis.clone(),
+            y_axis: axis.clone(),
+            y2_axis: Some(axis),
+            bands: vec![Band {
+                name: long.clone(),
+                edges: vec![(1.0, 1.0, 2.0)],
+            }],
+            levels: vec![Level {
+                name: long.clone(),
+                y: 1.0,
+                look: Look::Danger,
+            }],
+            series: vec![Series {
+                name: long.clone(),
+                look: Look::Danger,
+                joined: false,
+                secondary: false,
+                points: vec![Point {
+                    x: 1.0,
+                    y: 1.0,
+                    tag: Some(long.clone()),
+                    flag: None,
+                }],
+            }],
+        };
+        let cleaned = with_clean_labels(&chart);
+        let texts = serde_json::to_value(&cleaned).unwrap();
+        let mut strings = Vec::new();
+        fn walk<'a>(value: &'a serde_json::Value, out: &mut Vec<&'a str>) {
+            match value {
+                serde_json::Value::String(text) => out.push(text),
+                serde_json::Value::Array(items) => items.iter().for_each(|i| walk(i, out)),
+                serde_json::Value::Object(map) => map.values().for_each(|v| walk(v, out)),
+                _ => {}
+            }
+        }
+        walk(&texts, &mut strings);
+        let labels: Vec<&&str> = strings.iter().filter(|s| s.starts_with('a')).collect();
+        assert_eq!(labels.len(), 11, "{labels:?}");
+        for text in labels {
+            assert_eq!(text.chars().count(), crate::charts::label::MAX_LABEL_CHARS);
+            assert!(text.starts_with("a\u{fffd}b\u{fffd}x") && text.ends_with('…'));
+        }
+    }
 }

@@ -9,6 +9,7 @@
 
 pub mod build;
 pub mod draw;
+pub mod label;
 pub mod palette;
 pub mod records;
 mod scale;

@@ -146,9 +146,92 @@ fn cell(value: &Value) -> String {
         Value::Null => String::new(),
         Value::String(text) => text.clone(),
         Value::Bool(flag) => flag.to_string(),
-        Value::Number(number) => number.to_string(),
+        Value::Number(number) => match (number.is_f64(), number.as_f64()) {
+            (true, Some(float)) => serde_json::Number::from_f64(significant(float))
+                .map_or_else(|| number.to_string(), |rounded| rounded.to_string()),
+            _ => number.to_string(),
+        },
         Value::Array(_) | Value::Object(_) => value.to_string(),
     }
+}
+
+/// Rounds to 6 significant digits, the precision of every CSV export (`0.6477`, not
+/// `0.6476999999999999`); zero and non-finite values are returned as they are.
+pub fn significant(value: f64) -> f64 {
+    if value == 0.0 || !value.is_finite() {
+        return value;
+    }
+    format!("{value:.5e}").parse().unwrap_or(value)
+}
+
+/// The characters that make a spreadsheet read a cell as a formula when they start it: `=`, `+`,
+/// `-`, `@`, tab and carriage return (the list in OWASP's "CSV Injection" page).
+const FORMULA_STARTS: [char; 6] = ['=', '+', '-', '@', '\t', '\r'];
+
+/// Whether `text` is a plain decimal number as taut writes numbers (`-12`, `0.5`, `-1.5e-7`):
+/// such a cell is read as a number, never as a formula, so it is left as it is.
+fn is_plain_number(text: &str) -> bool {
+    let unsigned = text.strip_prefix('-').unwrap_or(text);
+    let (mantissa, exponent) = match unsigned.split_once(['e', 'E']) {
+        Some((mantissa, exponent)) => (mantissa, Some(exponent)),
+        None => (unsigned, None),
+    };
+    let (whole, fraction) = match mantissa.split_once('.') {
+        Some((whole, fraction)) => (whole, Some(fraction)),
+        None => (mantissa, None),
+    };
+    let digits = |part: &str| !part.is_empty() && part.bytes().all(|b| b.is_ascii_digit());
+    digits(whole)
+        && fraction.is_none_or(digits)
+        && exponent.is_none_or(|e| digits(e.strip_prefix(['+', '-']).unwrap_or(e)))
+}
+
+fn at_risk(piece: &str) -> bool {
+    piece.starts_with(FORMULA_STARTS) && !is_plain_number(piece)
+}
+
+/// One CSV cell made safe to open in a spreadsheet, following OWASP's "CSV Injection" guidance:
+/// text that starts with `=`, `+`, `-`, `@`, tab or carriage return gets a single quote (`'`) in
+/// front, so it is shown as text and never run as a formula. The same goes for each piece after
+/// a `;` (the field separator in many spreadsheet locales; taut also joins lists with it). Plain
+/// numbers (`-3.5`) are left as they are: they are read as numbers.
+pub fn safe_cell(text: &str) -> std::borrow::Cow<'_, str> {
+    let pieces_at_risk = at_risk(text) || text.split(';').skip(1).any(at_risk);
+    if !pieces_at_risk {
+        return std::borrow::Cow::Borrowed(text);
+    }
+    let mut out = String::with_capacity(text.len() + 4);
+    for (index, piece) in text.split(';').enumerate() {
+        if index > 0 {
+            out.push(';');
+        }
+        if at_risk(piece) {
+            out.push('\'');
+        }
+        out.push_str(piece);
+    }
+    std::borrow::Cow::Owned(out)
+}
+
+/// A CSV document with every cell passed through [`safe_cell`]: the last step of every CSV
+/// export (reports, string charts, fret tables), so no name from a file reaches a spreadsheet
+/// as a formula.
+pub fn guarded(text: &str) -> Result<String> {
+    let mut reader = csv::ReaderBuilder::new()
+        .has_headers(false)
+        .flexible(true)
+        .from_reader(text.as_bytes());
+    let mut writer = csv::WriterBuilder::new()
+        .flexible(true)
+        .from_writer(Vec::new());
+    let mut record = csv::StringRecord::new();
+    while reader.read_record(&mut record).map_err(fail)? {
+        writer
+            .write_record(record.iter().map(|cell| safe_cell(cell).into_owned()))
+            .map_err(fail)?;
+    }
+    let bytes = writer.into_inner().map_err(fail)?;
+    String::from_utf8(bytes).map_err(fail)
 }
 
 #[cfg(test)]
@@ -180,6 +263,39 @@ mod tests {
         assert_eq!(lines[1], "1,E4,a;b,1,stress_caution,1,70.5,,unison");
         assert_eq!(lines[2], "1,E4,a;b,1,stress_caution,2,60.0,0.010 in,octave");
         assert_eq!(lines[3], "2,B3,,,,1,,0.013 in,unison");
+    }
+
+    #[test]
+    fn formula_cells_get_a_quote_and_numbers_stay_numbers() {
+        // OWASP, "CSV Injection": cells starting with = + - @ tab or CR are prefixed with '.
+        for (cell, safe) in [
+            ("=HYPERLINK(\"x\")", "'=HYPERLINK(\"x\")"),
+            ("+1", "'+1"),
+            ("-x", "'-x"),
+            ("@SUM(A1)", "'@SUM(A1)"),
+            ("\tx", "'\tx"),
+            ("\rx", "'\rx"),
+            ("a;=cmd", "a;'=cmd"),
+            ("-", "'-"),
+            ("-1e", "'-1e"),
+            ("-3.5", "-3.5"),
+            ("-12", "-12"),
+            ("-1.5e-7", "-1.5e-7"),
+            ("-3;-4.5", "-3;-4.5"),
+            ("E4", "E4"),
+            ("a=b", "a=b"),
+        ] {
+            assert_eq!(safe_cell(cell), safe, "{cell:?}");
+        }
+        let text = guarded("name,x\n=1+2,-3\n\"a,b\",@c\n").unwrap();
+        assert_eq!(text, "name,x\n'=1+2,-3\n\"a,b\",'@c\n");
+    }
+
+    #[test]
+    fn floats_are_written_to_six_significant_digits() {
+        let text =
+            csv(&json!({"a": 58.270470189761255, "b": 0.7000000000000001, "c": 1234567})).unwrap();
+        assert_eq!(text, "a,b,c\n58.2705,0.7,1234567\n");
     }
 
     #[test]

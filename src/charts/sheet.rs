@@ -10,6 +10,7 @@ use crate::plan::warning::{Severity, SAFETY_CAUTIONS};
 use crate::plan::Plan;
 
 use super::draw::{self, Size};
+use super::label::label;
 use super::palette::{self, Look};
 use super::Named;
 
@@ -118,20 +119,10 @@ pub fn csv(plan: &Plan) -> Result<String> {
     String::from_utf8(bytes).map_err(|e| fail(&e))
 }
 
-/// Escapes text for HTML content and attribute values.
+/// Escapes text for HTML content and attribute values; characters XML forbids are replaced
+/// (see [`super::label`]).
 pub fn escape(text: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    for c in text.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            other => out.push(other),
-        }
-    }
-    out
+    super::label::escaped(text)
 }
 
 const STYLE: &str = r#"
@@ -182,7 +173,12 @@ pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
         .replace("BAND", &palette::hex(palette::BAND))
         .replace("DANGER", &Look::Danger.hex())
         .replace("CAUTION", &Look::Caution.hex());
-    let title = format!("String chart: {} in {}", plan.instrument, plan.tuning);
+    // Names are cut to a label's length: a page has no room for more.
+    let title = format!(
+        "String chart: {} in {}",
+        label(&plan.instrument),
+        label(&plan.tuning)
+    );
     let mut out = String::new();
     out.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
     out.push_str("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
@@ -313,12 +309,12 @@ fn table(plan: &Plan) -> String {
             classes.join(" "),
             row.course,
             row.string,
-            escape(&row.pitch),
-            escape(&row.note),
+            escape(&label(&row.pitch)),
+            escape(&label(&row.note)),
             row.pitch_hz,
             row.length_mm,
-            escape(&row.kind),
-            escape(&row.gauge),
+            escape(&label(&row.kind)),
+            escape(&label(&row.gauge)),
             row.diameter_mm,
             row.diameter_in,
             row.tension_n,

@@ -104,7 +104,7 @@ pub fn run(args: &FretsArgs) -> Result<()> {
     let text = match args.format {
         FretsFormat::Table => render::table(&layout, args.length_unit.unit()),
         FretsFormat::Json => render::json(&layout)?,
-        FretsFormat::Csv => render::csv(&layout)?,
+        FretsFormat::Csv => output::safe_csv(&render::csv(&layout)?)?,
         FretsFormat::Svg => svg::svg(&layout),
     };
     let text = match args.format {

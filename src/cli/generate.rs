@@ -90,14 +90,16 @@ pub fn run(args: GenerateArgs) -> Result<()> {
         What::Completions { shell } => {
             let mut script = Vec::new();
             clap_complete::generate(shell.shell(), &mut command, "taut", &mut script);
-            output::write_bytes("--output", None, script, &output::Inputs::new())
+            output::write_bytes(
+                output::STANDARD_OUTPUT_ONLY,
+                None,
+                script,
+                &output::Inputs::new(),
+            )
         }
-        What::Man { dir: None } => output::write_bytes(
-            "--output",
-            None,
-            main_page(command)?,
-            &output::Inputs::new(),
-        ),
+        What::Man { dir: None } => {
+            output::write_bytes("--dir", None, main_page(command)?, &output::Inputs::new())
+        }
         What::Man { dir: Some(dir) } => {
             if !dir.is_dir() {
                 return Err(Error::input(format!("`{}` is not a folder", dir.display()))

@@ -26,7 +26,12 @@ const TOPICS_WORD: &str = "topics";
 /// Runs `taut help`.
 pub fn run(args: &HelpArgs) -> Result<()> {
     let text = text_for(&args.names)?;
-    output::write_bytes("--output", None, text.into_bytes(), &output::Inputs::new())
+    output::write_bytes(
+        output::STANDARD_OUTPUT_ONLY,
+        None,
+        text.into_bytes(),
+        &output::Inputs::new(),
+    )
 }
 
 /// What `taut help NAMES…` prints.

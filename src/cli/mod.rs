@@ -73,6 +73,8 @@ where
 pub fn main() -> ExitCode {
     // Before anything opens a file, which could take over a closed descriptor 1.
     output::note_standard_output();
+    // A run stopped by SIGINT or SIGTERM takes back its half-written files.
+    output::watch_signals();
     let cli = Cli::parse();
     let result = match cli.command {
         Command::Plan(args) => plan::run(&args),

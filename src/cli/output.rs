@@ -4,6 +4,7 @@
 
 mod files;
 mod finite;
+mod partial;
 
 use std::borrow::Cow;
 use std::io::{self, Write};
@@ -15,8 +16,9 @@ use serde::Serialize;
 use taut::error::{shown, Error, Result};
 use taut::input::units::{ForceUnit, LengthUnit};
 
-pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target};
+pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target, STANDARD_OUTPUT_ONLY};
 pub use finite::check_finite;
+pub use partial::watch_signals;
 
 /// How a report is written.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
@@ -149,10 +151,7 @@ pub trait Render: Serialize {
 
 /// Rounds to 6 significant digits, so CSV shows `0.6477` and not `0.6476999999999999`.
 pub fn sig(value: f64) -> f64 {
-    if value == 0.0 || !value.is_finite() {
-        return value;
-    }
-    format!("{value:.5e}").parse().unwrap_or(value)
+    taut::charts::records::significant(value)
 }
 
 /// Rounds an optional figure to 6 significant digits.
@@ -171,6 +170,13 @@ pub fn csv_text<T: Serialize>(rows: impl IntoIterator<Item = T>) -> Result<Strin
     String::from_utf8(bytes).map_err(|err| fail(err.to_string()))
 }
 
+/// A CSV export made safe to open in a spreadsheet: every cell that a spreadsheet would run as
+/// a formula gets a leading `'` (see [`taut::charts::records::safe_cell`]). Every CSV taut writes
+/// passes through here.
+pub fn safe_csv(text: &str) -> Result<String> {
+    taut::charts::records::guarded(text)
+}
+
 /// Renders `report` in the chosen format, as text ending in a newline; the numbers are checked
 /// first (see [`check_finite`]).
 pub fn render<R: Render>(
@@ -182,7 +188,7 @@ pub fn render<R: Render>(
     let mut text = match args.format {
         Format::Table => terminal_text(report.table(&View::new(args, units))),
         Format::Json => json_text(report)?,
-        Format::Csv => report.csv()?,
+        Format::Csv => safe_csv(&report.csv()?)?,
         Format::Yaml => taut::input::yaml::to_text(report)?,
     };
     if !text.ends_with('\n') {

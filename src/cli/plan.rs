@@ -182,7 +182,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         outputs.add(
             "--string-chart",
             Some(output::Target::Path(path.clone())),
-            taut::charts::sheet::csv(&plan)?.into_bytes(),
+            output::safe_csv(&taut::charts::sheet::csv(&plan)?)?.into_bytes(),
         );
     }
     if let Some(target) = &args.save_set {
@@ -251,7 +251,7 @@ fn run_several(
     let mut text = match args.output.format {
         Format::Table => output::terminal_text(several::table(&plan, &view)),
         Format::Json => several::json(&plan)?,
-        Format::Csv => several::csv(&plan)?,
+        Format::Csv => output::safe_csv(&several::csv(&plan)?)?,
         Format::Yaml => several::yaml(&plan)?,
     };
     if args.output.output.is_none() && args.output.format == Format::Table {

@@ -1,7 +1,6 @@
 //! `taut survey`: search tunings, offsets and course patterns for stringable settings.
 
 use std::io::IsTerminal;
-use std::path::PathBuf;
 
 use clap::{Args, ValueEnum};
 use indicatif::{ProgressBar, ProgressStyle};
@@ -42,9 +41,9 @@ pub struct SurveyArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
     #[arg(value_name = "INSTRUMENT")]
     pub instrument: String,
-    /// Survey settings (a YAML file).
+    /// Survey settings (a YAML file) or the name of a shipped example (`survey-fourths`).
     #[arg(value_name = "SETTINGS")]
-    pub settings: PathBuf,
+    pub settings: String,
     /// List this many results instead of the settings' `top`.
     #[arg(long, value_name = "N")]
     pub top: Option<usize>,

@@ -44,6 +44,26 @@ pub const EXAMPLES: &[(&str, &str)] = &[
         "psaltery-layout",
         include_str!("../../examples/psaltery-layout.yaml"),
     ),
+    (
+        "fanned-8-fourths",
+        include_str!("../../examples/fanned-8-fourths.yaml"),
+    ),
+    (
+        "guitar-kept-strings",
+        include_str!("../../examples/guitar-kept-strings.yaml"),
+    ),
+    (
+        "guitar-three-tunings",
+        include_str!("../../examples/guitar-three-tunings.yaml"),
+    ),
+    (
+        "survey-fourths",
+        include_str!("../../examples/survey-fourths.yaml"),
+    ),
+    (
+        "zither-pairs-layout",
+        include_str!("../../examples/zither-pairs-layout.yaml"),
+    ),
 ];
 
 /// What a YAML file describes.
@@ -59,6 +79,8 @@ pub enum FileKind {
     Tuning,
     /// Extra materials, catalogs and kinds (`--stock`).
     Stock,
+    /// What `taut survey` searches (its SETTINGS).
+    SurveySettings,
 }
 
 impl FileKind {
@@ -70,6 +92,7 @@ impl FileKind {
             FileKind::Layout => "a layout file: use it with `taut lengths FILE`",
             FileKind::Tuning => "a tuning file: use it with `--tuning FILE` or `taut tuning show FILE`",
             FileKind::Stock => "a stock file: add it to any string command with `--stock FILE`",
+            FileKind::SurveySettings => "a survey settings file: use it with `taut survey INSTRUMENT FILE`",
         }
     }
 }
@@ -85,6 +108,9 @@ pub fn sniff(text: &str) -> Option<FileKind> {
     }
     if has("materials") || has("catalogs") || has("kinds") {
         return Some(FileKind::Stock);
+    }
+    if has("course_1") || has("offset_cents") || has("rank_by") {
+        return Some(FileKind::SurveySettings);
     }
     if has("instrument") {
         return Some(FileKind::StringSet);
@@ -158,6 +184,7 @@ pub fn wrong_kind(text: &str, origin: &str, expected: FileKind) -> Option<Error>
                 FileKind::Layout => "a layout file",
                 FileKind::Tuning => "a tuning file",
                 FileKind::Stock => "a stock file",
+                FileKind::SurveySettings => "a survey settings file",
             }
         ))
     })
@@ -173,7 +200,8 @@ mod tests {
             let kind = sniff(text);
             let expected = match *name {
                 "steel-guitar-set" => FileKind::StringSet,
-                "psaltery-layout" => FileKind::Layout,
+                "psaltery-layout" | "zither-pairs-layout" => FileKind::Layout,
+                "survey-fourths" => FileKind::SurveySettings,
                 _ => FileKind::Instrument,
             };
             assert_eq!(kind, Some(expected), "{name}");

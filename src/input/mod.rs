@@ -7,6 +7,7 @@
 
 pub mod examples;
 pub mod id;
+pub mod opened;
 pub mod registry;
 pub mod shipped;
 pub mod units;

@@ -235,11 +235,14 @@ struct PatternSpec {
 pub const DEFAULT_TOP: usize = 10;
 
 impl Settings {
-    /// Reads a settings file.
-    pub fn load(path: &Path) -> Result<Settings> {
-        let text = yaml::read_text(path)?;
-        let mut settings = Settings::from_text(text, &path.display().to_string())?;
-        settings.folder = path.parent().map(Path::to_path_buf);
+    /// Reads a settings file, or the shipped example of that name (`survey-fourths`).
+    pub fn load(spec: &str) -> Result<Settings> {
+        let (text, origin) = crate::input::examples::read(spec, "SETTINGS")?;
+        let mut settings = Settings::from_text(text, &origin)?;
+        let path = Path::new(spec);
+        if path.exists() {
+            settings.folder = path.parent().map(Path::to_path_buf);
+        }
         Ok(settings)
     }
 

@@ -17,6 +17,8 @@ mod frets_bad_input;
 mod frets_cli;
 mod frets_properties;
 mod help_topics;
+mod hostile_outputs;
+mod hostile_pictures;
 mod lengths_courses;
 mod lengths_solve;
 mod output_safety;

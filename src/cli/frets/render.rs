@@ -7,6 +7,7 @@ use taut::frets::{CourseFrets, FretLayout};
 use taut::tuning::pitch::format_ratio;
 
 use crate::cli::layout::{paragraph, wrap, Column, Grid};
+use crate::cli::output::{sig, sig_opt};
 use crate::cli::text::grouping::{group, Item};
 use crate::cli::text::{course_pitch_text, fixed, user};
 use taut::input::units::LengthUnit;
@@ -351,14 +352,14 @@ pub fn csv(layout: &FretLayout) -> Result<String> {
                 .serialize(CsvRow {
                     course: course.course,
                     pitch: &course.pitch.written,
-                    length_m: course.length_m,
+                    length_m: sig(course.length_m),
                     fret: fret.fret,
                     degree: fret.degree,
-                    cents: fret.cents,
+                    cents: sig(fret.cents),
                     ratio: fret.ratio.as_ref().map(format_ratio),
-                    distance_from_nut_m: fret.distance_from_nut_m,
-                    spacing_m: fret.spacing_m,
-                    angle_deg: fret.angle_deg,
+                    distance_from_nut_m: sig(fret.distance_from_nut_m),
+                    spacing_m: sig(fret.spacing_m),
+                    angle_deg: sig_opt(fret.angle_deg),
                 })
                 .map_err(fail)?;
         }

@@ -15,11 +15,9 @@ const LABEL_GAP: f64 = 3.2;
 /// The scale bar's length, in mm.
 const SCALE_BAR: f64 = 100.0;
 
+/// A name for the drawing: characters XML forbids replaced, long names cut, markup escaped.
 fn escape(text: &str) -> String {
-    text.replace('&', "&amp;")
-        .replace('<', "&lt;")
-        .replace('>', "&gt;")
-        .replace('"', "&quot;")
+    taut::charts::label::escaped_label(text)
 }
 
 /// The SVG document for `layout`.
@@ -151,7 +149,10 @@ pub fn svg(layout: &FretLayout) -> String {
                 ""
             }
         ),
-        format!("Assumes {}.", escape(&layout.compensation)),
+        format!(
+            "Assumes {}.",
+            taut::charts::label::escaped(&layout.compensation)
+        ),
     ];
     for (index, note) in notes.iter().enumerate() {
         let size = if index == 0 { 3.5 } else { 2.5 };

@@ -27,6 +27,8 @@ use std::sync::OnceLock;
 
 use taut::error::{Error, Result};
 
+use super::partial;
+
 /// Where an output goes: standard output (`-`) or a path.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub enum Target {
@@ -106,6 +108,24 @@ impl Inputs {
         }
         found
     }
+
+    /// Device, inode and path of every input: those named here and every file the run has
+    /// read (the library notes each file where it opens it, so a tuning named inside an
+    /// instrument's variants or a survey's settings counts as well as the files on the command
+    /// line).
+    fn all(&self) -> Vec<(u64, u64, PathBuf)> {
+        let mut found: Vec<(u64, u64, PathBuf)> = self
+            .identities()
+            .into_iter()
+            .map(|(dev, ino, path)| (dev, ino, path.to_path_buf()))
+            .collect();
+        found.extend(
+            taut::input::opened::opened()
+                .into_iter()
+                .map(|o| (o.device, o.inode, o.path)),
+        );
+        found
+    }
 }
 
 static STDOUT_OPEN_AT_START: OnceLock<bool> = OnceLock::new();
@@ -143,14 +163,40 @@ fn closed_at_start() -> bool {
         .is_some_and(|flags| flags & ACCESS_MODE == READ_WRITE)
 }
 
-fn standard_output() -> io::Result<File> {
+/// The option that sends a command's output to standard output when it is not given: `--output`
+/// for reports, `--dir` for manual pages; [`STANDARD_OUTPUT_ONLY`] for output that has no file
+/// option (completions, help topics).
+pub const STANDARD_OUTPUT_ONLY: &str = "standard output";
+
+/// What to do about a closed standard output, in terms of the options of the command that
+/// printed it (`flag` is the option whose absence sent the output there).
+fn closed_hint(flag: &str) -> (String, String) {
+    match flag {
+        "--output" => (
+            "give `-o FILE` or redirect it".to_string(),
+            "give `-o /dev/null`".to_string(),
+        ),
+        "--dir" => (
+            "redirect it (`> taut.1`), or give `--dir FOLDER` to write every page as a file"
+                .to_string(),
+            "give `--dir FOLDER`, or redirect it with `> /dev/null`".to_string(),
+        ),
+        _ => (
+            "redirect it to a file (`> FILE`)".to_string(),
+            "redirect it with `> /dev/null`".to_string(),
+        ),
+    }
+}
+
+fn standard_output(flag: &str) -> io::Result<File> {
+    let (hint, null_hint) = closed_hint(flag);
     if !STDOUT_OPEN_AT_START.get().copied().unwrap_or(true) {
         // Indistinguishable from a closed one: /dev/null opened for reading and writing, as
         // Python's `subprocess.DEVNULL` and Node's `'ignore'` open it (measured: the same
         // `/proc/self/fdinfo/1` flags as the runtime's reopening), so say how to avoid it.
-        return Err(io::Error::other(
-            "standard output is closed; give `-o FILE` or redirect it\n  help: a read-write /dev/null (Python's `subprocess.DEVNULL`) looks closed too: give `-o /dev/null`",
-        ));
+        return Err(io::Error::other(format!(
+            "standard output is closed; {hint}\n  help: a read-write /dev/null (Python's `subprocess.DEVNULL`) looks closed too: {null_hint}",
+        )));
     }
     // A duplicate of descriptor 1 as a plain file: the standard library's own handle treats a
     // closed descriptor as a silent success, which would lose the report without a word.
@@ -158,7 +204,7 @@ fn standard_output() -> io::Result<File> {
         .as_fd()
         .try_clone_to_owned()
         .map(File::from)
-        .map_err(|_| io::Error::other("standard output is closed; give `-o FILE` or redirect it"))
+        .map_err(|_| io::Error::other(format!("standard output is closed; {hint}")))
 }
 
 /// One output of a run.
@@ -211,7 +257,7 @@ impl<'a> Outputs<'a> {
     }
 
     fn check(&self) -> Result<Vec<Method>> {
-        let inputs = self.inputs.identities();
+        let inputs = self.inputs.all();
         let mut methods: Vec<Method> = Vec::with_capacity(self.planned.len());
         let mut places: Vec<(Place, &'static str)> = Vec::new();
         for planned in &self.planned {
@@ -386,9 +432,11 @@ fn write_all(planned: &[Planned], methods: &[Method]) -> Result<()> {
     // 1. Every file's contents into a temporary file beside it.
     let mut prepared: Vec<Prepared> = Vec::new();
     let forget = |prepared: &[Prepared]| {
+        let mut ledger = partial::ledger();
         for p in prepared {
             // Best effort: the temporary files are ours and must not be left behind.
             let _ = fs::remove_file(&p.temporary);
+            partial::forget(&mut ledger, &p.temporary);
         }
     };
     for (planned, method) in planned.iter().zip(methods) {
@@ -409,7 +457,7 @@ fn write_all(planned: &[Planned], methods: &[Method]) -> Result<()> {
     // 2. The streams, which cannot be taken back: if one fails, no file is touched.
     for (planned, method) in planned.iter().zip(methods) {
         let written = match method {
-            Method::Stdout => write_stdout(&planned.bytes),
+            Method::Stdout => write_stdout(&planned.bytes, planned.flag),
             Method::Through(path) => write_through(path, &planned.bytes),
             Method::Replace { .. } => Ok(()),
         };
@@ -418,9 +466,15 @@ fn write_all(planned: &[Planned], methods: &[Method]) -> Result<()> {
             return Err(err);
         }
     }
-    // 3. The renames; a failure puts back what was renamed before it.
+    // 3. The renames; a failure puts back what was renamed before it. The ledger is held
+    // throughout (renames are quick), so a signal is handled before or after, never between
+    // a rename and its note.
+    let mut ledger = partial::ledger();
     for index in 0..prepared.len() {
         let backup = keep_backup(&prepared[index].target);
+        if let Some(backup) = &backup {
+            ledger.push(partial::Undo::Remove(backup.clone()));
+        }
         prepared[index].backup = backup;
         if let Err(err) = fs::rename(&prepared[index].temporary, &prepared[index].target) {
             for done in &prepared[..index] {
@@ -435,15 +489,41 @@ fn write_all(planned: &[Planned], methods: &[Method]) -> Result<()> {
                     let _ = fs::remove_file(backup);
                 }
             }
+            settle(&mut ledger, &prepared);
             return Err(write_error(&prepared[index].target, err));
         }
+        // Renamed: on a signal now, the old file comes back (or the new one goes).
+        let p = &prepared[index];
+        partial::forget(&mut ledger, &p.temporary);
+        if let Some(backup) = &p.backup {
+            partial::forget(&mut ledger, backup);
+        }
+        ledger.push(match &p.backup {
+            Some(backup) => partial::Undo::PutBack {
+                backup: backup.clone(),
+                target: p.target.clone(),
+            },
+            None => partial::Undo::Remove(p.target.clone()),
+        });
     }
     for p in &prepared {
         if let Some(backup) = &p.backup {
             let _ = fs::remove_file(backup);
         }
     }
+    settle(&mut ledger, &prepared);
     Ok(())
+}
+
+/// Takes every step of these outputs off the ledger: they are done (or undone) for good.
+fn settle(ledger: &mut Vec<partial::Undo>, prepared: &[Prepared]) {
+    for p in prepared {
+        partial::forget(ledger, &p.temporary);
+        partial::forget(ledger, &p.target);
+        if let Some(backup) = &p.backup {
+            partial::forget(ledger, backup);
+        }
+    }
 }
 
 /// A hard link to the file about to be replaced, so a later failure can put it back (only
@@ -471,6 +551,8 @@ fn prepare(target: &Path, existing: Option<&fs::Metadata>, bytes: &[u8]) -> Resu
             file_name.to_string_lossy(),
             std::process::id()
         ));
+        // Made and noted under the ledger's lock, so a signal cannot fall between the two.
+        let mut ledger = partial::ledger();
         let mut file = match OpenOptions::new()
             .write(true)
             .create_new(true)
@@ -478,8 +560,10 @@ fn prepare(target: &Path, existing: Option<&fs::Metadata>, bytes: &[u8]) -> Resu
         {
             Ok(file) => file,
             Err(err) if err.kind() == ErrorKind::AlreadyExists => continue,
-            Err(err) => return Err(fail(err)),
+            Err(err) => return Err(fail(folder_refused(target, folder, err))),
         };
+        ledger.push(partial::Undo::Remove(temporary.clone()));
+        drop(ledger);
         let written = (|| {
             if let Some(meta) = existing {
                 file.set_permissions(fs::Permissions::from_mode(meta.permissions().mode()))?;
@@ -492,7 +576,9 @@ fn prepare(target: &Path, existing: Option<&fs::Metadata>, bytes: &[u8]) -> Resu
         return match written {
             Ok(()) => Ok(temporary),
             Err(err) => {
+                let mut ledger = partial::ledger();
                 let _ = fs::remove_file(&temporary);
+                partial::forget(&mut ledger, &temporary);
                 Err(fail(err))
             }
         };
@@ -502,11 +588,32 @@ fn prepare(target: &Path, existing: Option<&fs::Metadata>, bytes: &[u8]) -> Resu
     )))
 }
 
+/// The reason a temporary file could not be made beside `target`, saying why the folder matters
+/// when the folder refused it: the file itself may be writable, but the writer never writes
+/// into it; it makes a new file beside it and renames that into place, so that the file is
+/// replaced whole or not at all, and both steps need the right to change the folder.
+fn folder_refused(target: &Path, folder: &Path, err: io::Error) -> io::Error {
+    if err.kind() != ErrorKind::PermissionDenied {
+        return err;
+    }
+    let name = target.file_name().map_or_else(
+        || target.display().to_string(),
+        |n| n.to_string_lossy().to_string(),
+    );
+    io::Error::new(
+        ErrorKind::PermissionDenied,
+        format!(
+            "{err}: the folder `{}` does not let taut create files. taut never writes into `{name}` itself: it writes a new file beside it and renames that over it, so the file is replaced whole or not at all, and that needs the right to create files in the folder, not only to write the file\n  help: make the folder writable (`chmod u+w`), or write to another folder and copy the file",
+            folder.display()
+        ),
+    )
+}
+
 /// Writes to standard output; a reader that stopped early (`taut … | head`) is not an error,
 /// a closed standard output is.
-fn write_stdout(bytes: &[u8]) -> Result<()> {
+fn write_stdout(bytes: &[u8], flag: &str) -> Result<()> {
     let fail = |source: io::Error| write_error(Path::new("standard output"), source);
-    let mut stdout = standard_output().map_err(fail)?;
+    let mut stdout = standard_output(flag).map_err(fail)?;
     match stdout.write_all(bytes).and_then(|()| stdout.flush()) {
         Ok(()) => Ok(()),
         Err(err) if err.kind() == ErrorKind::BrokenPipe => Ok(()),

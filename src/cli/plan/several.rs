@@ -262,27 +262,37 @@ pub fn csv(plan: &SeveralPlan) -> Result<String> {
             Agreement::Conflict => "conflict",
         })
         .collect();
-    let mut out = String::new();
+    let fail =
+        |err: csv::Error| taut::Error::input(format!("cannot render the plan as CSV: {err}"));
+    let mut writer = csv::WriterBuilder::new()
+        .flexible(true)
+        .from_writer(Vec::new());
     for (index, block) in plan.tunings.iter().enumerate() {
         let rows = render::csv(&block.plan)?;
-        let mut lines = rows.lines();
-        let header = lines.next().unwrap_or_default();
+        // Read back as records, so a cell holding a line break stays one cell.
+        let mut reader = csv::ReaderBuilder::new()
+            .has_headers(false)
+            .flexible(true)
+            .from_reader(rows.as_bytes());
+        let mut records = reader.records();
+        let header = records.next().transpose().map_err(fail)?;
         if index == 0 {
-            out.push_str(&format!("variant,agreement,{header}\n"));
+            if let Some(header) = header {
+                let names = ["variant", "agreement"].into_iter().chain(header.iter());
+                writer.write_record(names).map_err(fail)?;
+            }
         }
-        let variant = csv_field(&block.variant);
-        for (line, fit) in lines.zip(fits.iter()) {
-            out.push_str(&format!("{variant},{fit},{line}\n"));
+        for (record, fit) in records.zip(fits.iter()) {
+            let record = record.map_err(fail)?;
+            let cells = [block.variant.as_str(), fit]
+                .into_iter()
+                .chain(record.iter());
+            writer.write_record(cells).map_err(fail)?;
         }
     }
-    Ok(out)
-}
-
-/// One CSV field, quoted when it needs to be.
-fn csv_field(text: &str) -> String {
-    if text.contains([',', '"', '\n', '\r']) {
-        format!("\"{}\"", text.replace('"', "\"\""))
-    } else {
-        text.to_string()
-    }
+    let bytes = writer
+        .into_inner()
+        .map_err(|err| taut::Error::input(format!("cannot render the plan as CSV: {err}")))?;
+    String::from_utf8(bytes)
+        .map_err(|err| taut::Error::input(format!("cannot render the plan as CSV: {err}")))
 }

@@ -55,6 +55,9 @@ fn read_standard_input() -> Result<String> {
         )
         .in_origin(shown));
     }
+    if let Ok(meta) = std::fs::metadata("/dev/stdin") {
+        crate::input::opened::note(Path::new(shown), &meta);
+    }
     let mut bytes = Vec::new();
     std::io::stdin()
         .lock()
@@ -101,6 +104,10 @@ pub fn read_text(path: &Path) -> Result<String> {
     std::fs::File::open(path)
         .and_then(|file| {
             use std::io::Read;
+            // Noted before reading: whatever happens next, no output may land on this file.
+            if let Ok(meta) = file.metadata() {
+                crate::input::opened::note(path, &meta);
+            }
             file.take(MAX_INPUT_BYTES + 1).read_to_end(&mut bytes)
         })
         .map_err(|source| Error::Read {
@@ -139,6 +146,33 @@ pub fn text_from_bytes(bytes: Vec<u8>, origin: &str) -> Result<String> {
         Some(rest) => rest.to_string(),
         None => text,
     })
+}
+
+/// `text` as a YAML double-quoted scalar that reads back as the same text: every character
+/// YAML does not hold raw (controls, DEL, the C1 controls, U+2028, U+2029, U+FEFF, U+FFFE,
+/// U+FFFF) is written as an escape, as are `"` and `\`.
+pub fn quoted(text: &str) -> String {
+    let mut out = String::with_capacity(text.len() + 2);
+    out.push('"');
+    for c in text.chars() {
+        match c {
+            '"' => out.push_str("\\\""),
+            '\\' => out.push_str("\\\\"),
+            '\n' => out.push_str("\\n"),
+            '\t' => out.push_str("\\t"),
+            c if c.is_control()
+                || matches!(
+                    c,
+                    '\u{2028}' | '\u{2029}' | BYTE_ORDER_MARK | '\u{fffe}' | '\u{ffff}'
+                ) =>
+            {
+                out.push_str(&format!("\\u{:04X}", u32::from(c)));
+            }
+            c => out.push(c),
+        }
+    }
+    out.push('"');
+    out
 }
 
 /// The UTF-8 byte-order mark (U+FEFF) some editors write at the start of a file.

@@ -116,3 +116,12 @@ fn locate_finds_nested_fields() {
         Some((4, 5))
     );
 }
+
+#[test]
+fn quoted_text_reads_back_as_itself() {
+    // Every character YAML will not hold raw, and the ones it quotes, round-trip.
+    let hostile = "n\0\u{7}\u{b}\u{1b}\u{7f}\u{85}\u{9f}\u{2028}\u{2029}\u{feff}\u{fffe}\u{ffff}\"\\\n\t'<&> 名前";
+    let text = format!("name: {}\n", quoted(hostile));
+    let value: serde_yaml::Value = parse(&text, "test").unwrap();
+    assert_eq!(value["name"].as_str(), Some(hostile));
+}

@@ -192,7 +192,7 @@ impl StringSet {
             "# A string set written by taut: the strings of each course, in the order the\n\
              # instrument lists them. Read it back with `taut audit` or `taut convert`.\n",
         );
-        let quoted = |text: &str| serde_json::to_string(text).unwrap_or_default();
+        let quoted = crate::input::yaml::quoted;
         let _ = writeln!(out, "name: {}", quoted(&self.name));
         if let Some(about) = &self.about {
             let _ = writeln!(out, "description: {}", quoted(about));
