@@ -139,10 +139,8 @@ pub fn add(
     plan: &Plan,
     tuning: &Tuning,
 ) -> Result<()> {
-    let notes = score::score(plan, Some(tuning), &request.play, &request.score).map_err(|e| {
-        e.in_origin("--play")
-            .help(format!("--play takes {PLAY_SYNTAX}"))
-    })?;
+    let notes = score::score(plan, Some(tuning), &request.play, &request.score)
+        .map_err(|e| e.in_origin("--play"))?;
     let samples = render::render(&notes, &request.render).map_err(|e| e.in_origin("--seconds"))?;
     let bytes = wav::wav_bytes(&samples, request.render.sample_rate_hz)?;
     outputs.add(
