@@ -17,6 +17,7 @@ mod frets_properties;
 mod help_topics;
 mod lengths_courses;
 mod lengths_solve;
+mod midi_tuning;
 mod output_safety;
 mod physics_mersenne;
 mod physics_stiffness;
