@@ -35,6 +35,7 @@ mod regressions;
 mod report_look;
 mod report_widths;
 mod set_files;
+mod sound_cli;
 mod sound_partials;
 mod strings_data;
 mod strings_materials;
