@@ -17,6 +17,10 @@ pub const MAX_SECONDS: f64 = 600.0;
 /// Sample rates a rendering may use, in hertz.
 pub const SAMPLE_RATES: [u32; 2] = [44_100, 48_000];
 
+/// Most partial-samples (partials × samples, summed over the notes) one rendering may take:
+/// about a few seconds of work, so no accepted request runs for minutes.
+pub const MAX_WORK: f64 = 2.0e9;
+
 /// Each note ends with a linear release of this length, in seconds, so it stops without a click.
 pub const RELEASE_S: f64 = 0.01;
 
@@ -89,6 +93,25 @@ pub fn check(notes: &[Note], options: &RenderOptions) -> Result<()> {
     if seconds > MAX_SECONDS {
         return Err(Error::input(format!(
             "the sound would last {seconds:.1} s; taut writes at most {MAX_SECONDS} s"
+        ))
+        .help("shorten each note or play fewer notes"));
+    }
+    let rate = f64::from(options.sample_rate_hz);
+    let work: f64 = notes
+        .iter()
+        .map(|note| {
+            let partials = (super::NYQUIST_SHARE * rate / note.pitch_hz)
+                .floor()
+                .clamp(0.0, f64::from(super::MAX_PARTIALS));
+            partials * note.duration_s * rate
+        })
+        .sum();
+    if work > MAX_WORK {
+        return Err(Error::input(format!(
+            "{} notes ringing {:.1} s in all are more sound than taut renders in one file              ({:.1e} partial-samples, at most {MAX_WORK:.0e})",
+            notes.len(),
+            notes.iter().map(|n| n.duration_s).sum::<f64>(),
+            work
         ))
         .help("shorten each note or play fewer notes"));
     }
@@ -193,6 +216,10 @@ mod tests {
         assert!(render(&[note(f64::NAN, 0.0, 1.0)], &options).is_err());
         let many = vec![note(220.0, 0.0, 0.1); MAX_NOTES + 1];
         assert!(render(&many, &options).is_err());
+        // 512 low notes of 60 s each: within the note count and the length, too much work.
+        let heavy = vec![note(50.0, 0.0, 60.0); MAX_NOTES];
+        let err = render(&heavy, &options).unwrap_err();
+        assert!(err.to_string().contains("partial-samples"), "{err}");
         let odd_rate = RenderOptions {
             sample_rate_hz: 22_050,
             ..options

@@ -79,6 +79,10 @@ fn bad_sound_options_exit_2_and_write_nothing() {
         ),
         (vec!["--play", many.as_str()], "at most 512"),
         (vec!["--play", "courses:99"], "no course 99"),
+        (
+            vec!["--play", "strum", "--seconds", "60"],
+            "partial-samples",
+        ),
         (vec!["--play", "degrees:-100"], "below every open string"),
         (vec!["--play", "chord"], "--play"),
         (vec!["--pluck", "1"], "--pluck"),
@@ -89,7 +93,7 @@ fn bad_sound_options_exit_2_and_write_nothing() {
             "several tunings",
         ),
     ] {
-        let instrument = if args.contains(&"strings") {
+        let instrument = if args.contains(&"strings") || args.contains(&"strum") {
             "lever-harp-34"
         } else {
             "guitar-19edo"
