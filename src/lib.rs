@@ -14,6 +14,8 @@
 //! | 6. frets | [`frets`] | fret positions for any tuning, straight or fanned, per course; the board drawing |
 //! | 7. survey | [`survey`] | search tunings, offsets and course patterns for stringable settings, ranked |
 //! | 8. charts | [`charts`] | pictures and exports of any result: chart data, SVG/PNG drawing, the builder's string chart, flat CSV records |
+//! | 8. sound | [`sound`] | a plan's strings as sound: stiff partials, pluck amplitudes, damping, notes rendered to samples, WAV bytes |
+//! | 8. MIDI | [`midi`] | tunings as MIDI Tuning Standard messages and Standard MIDI Files |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -28,10 +30,12 @@ pub mod frets;
 pub mod input;
 pub mod instrument;
 pub mod lengths;
+pub mod midi;
 pub mod plan;
 /// The published sources behind the physics and data, cited in the tree as `REFERENCES §x.y`.
 pub mod references;
 pub mod sets;
+pub mod sound;
 pub mod strings;
 pub mod survey;
 pub mod tuning;

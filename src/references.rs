@@ -454,3 +454,98 @@
 //!   about four.
 //! - *Provenance:* **derived** from the entries above; the caution about conventions also
 //!   **read** in the sources of §5.
+//!
+//! ## 11 Sound and MIDI
+//!
+//! ### 11.1 The ideal pluck: partial amplitudes
+//!
+//! ```text
+//! y(x, 0) = a triangle of height h with its apex at x = βL, released from rest
+//! c_n     = 2h·sin(nπβ) / (n²·π²·β·(1 − β))      amplitude of mode n (displacement)
+//!         ∝ sin(nπβ) / n²
+//! ```
+//!
+//! - *Source:* N. H. Fletcher & T. D. Rossing, *The Physics of Musical Instruments*, 2nd ed.
+//!   (Springer, 1998), ch. 2, the section on the plucked string (time and frequency analysis);
+//!   the same Fourier series in any text on the wave equation.
+//! - *Taken:* the amplitude of every partial of `taut`'s string sound (`src/sound/`): partial n
+//!   goes as sin(nπβ)/n² for a pluck at the fraction β of the length, so a pluck at β = 1/k has
+//!   no partials at multiples of k (at β = 1/2 no even partials). `taut` keeps the shape and
+//!   drops the constant, and applies the same amplitudes to a stiff string's modes (the mode
+//!   shapes of a pinned stiff string are the same sines).
+//! - *Provenance:* the series **derived** (the Fourier sine series of the triangle); the book's
+//!   section **from memory** (its number not checked).
+//!
+//! ### 11.2 Damping: one decay rate per partial
+//!
+//! ```text
+//! σ(ω) = b₁ + b₃·ω²          decay rate of a partial at angular frequency ω = 2πf, in 1/s
+//! a(t) = a₀·e^(−σt)          T₆₀ = ln(1000)/σ ≈ 6.91/σ
+//! ```
+//!
+//! - *Source:* A. Chaigne & A. Askenfelt, "Numerical simulations of piano strings. I. A
+//!   physical model for a struck string using finite difference methods", *J. Acoust. Soc. Am.*
+//!   95(2), 1112–1118 (1994): the damped stiff-string equation with a first-order loss term
+//!   −2b₁·∂y/∂t and a third-order term 2b₃·∂³y/∂t³, whose modes decay at σ ≈ b₁ + b₃·ω².
+//! - *Taken:* the frequency-dependent decay of every rendered partial: high partials die away
+//!   faster, as on a real string. The defaults b₁ = 0.6 s⁻¹ and b₃ = 4×10⁻⁹ s are `taut`'s own
+//!   choice, of the order of the paper's fitted piano-string values: a fundamental rings for
+//!   about 11 s (T₆₀) and a partial at 5 kHz for about 1.5 s. They are not a measurement of any
+//!   particular string, body or room.
+//! - *Provenance:* the paper, its damping terms and the list of symbols **read** (in a
+//!   reproduction of the paper's first page); the decay rate of a mode **derived** from the
+//!   equation for light damping; the order of magnitude of the paper's values **from memory**.
+//!
+//! ### 11.3 A fretted note's inharmonicity
+//!
+//! ```text
+//! L' = L·f_open/f          (§8.1: same tension and mass, shorter length)
+//! B' = B·(f/f_open)²       (§5.1: B ∝ 1/L² at fixed d, E and T)
+//! ```
+//!
+//! - *Source:* §5.1 and §8.1.
+//! - *Taken:* a degree played on a string stopped above its open pitch keeps the string's
+//!   tension and takes the shorter length's B. The small rise in tension from pressing the
+//!   string to the fret is left out.
+//! - *Provenance:* **derived**.
+//!
+//! ### 11.4 The MIDI Tuning Standard
+//!
+//! ```text
+//! frequency data  xx yy zz         xx the 12-EDO semitone (MIDI note, A4 = 69 at 440 Hz) at or
+//!                                  below the frequency; yy zz a 14-bit fraction of 100 cents above
+//!                                  it, yy the high 7 bits (resolution 100/16384 ≈ 0.0061 cents)
+//!                                  7F 7F 7F means "no change"
+//! m = 69 + 12·log₂(f / 440 Hz)     the fractional note number the three bytes encode
+//! bulk tuning dump                 F0 7E dev 08 01 pp name[16] (xx yy zz)×128 checksum F7
+//! single-note change (real time)   F0 7F dev 08 02 pp ll (kk xx yy zz)×ll F7
+//! checksum                         XOR of every byte from 7E to the last data byte, & 7F
+//! ```
+//!
+//! - *Source:* MIDI Manufacturers Association, *MIDI Tuning Standard* (1992), a part of *The
+//!   Complete MIDI 1.0 Detailed Specification*, the sections "Frequency data format", "Bulk
+//!   tuning dump" and "Single note tuning change (real-time)". Its worked examples of the
+//!   frequency data: 00 00 00 = 8.1758 Hz (note 0), 01 00 00 = 8.6620 Hz, 0C 00 00 = 16.3516 Hz,
+//!   3C 00 00 = 261.6256 Hz (middle C), 3D 00 00 = 277.1826 Hz, 44 7F 7F = 439.9984 Hz,
+//!   45 00 00 = 440.0000 Hz, 78 00 00 = 8372.018 Hz, 7F 7F 7E the highest value (about
+//!   13289.66 Hz). The printed table has known errors in its last decimals (00 00 01 is printed
+//!   as 8.2104 Hz, and 7F 7F 7E as 13289.73 Hz); the values above are the formula's, which the
+//!   MIDI association's forum confirms.
+//! - *Taken:* every byte of `taut tuning midi` (`src/midi/`): the frequency data, the bulk dump
+//!   with its checksum, the single-note changes, and the range the standard can express.
+//! - *Provenance:* the frequency data format and the worked values **read** (in a quotation of
+//!   the specification's text and the association's forum); the message layouts and the
+//!   checksum **from memory** (the specification itself not opened), consistent with the forum's
+//!   quotation of the single-note message.
+//!
+//! ### 11.5 Standard MIDI Files and WAV
+//!
+//! - *Sources:* MIDI Manufacturers Association, *Standard MIDI Files 1.0* (1988), in *The
+//!   Complete MIDI 1.0 Detailed Specification*: the `MThd` and `MTrk` chunks, variable-length
+//!   delta times, the `F0 length bytes` form of a system-exclusive event, the tempo meta event
+//!   (FF 51 03) and end of track (FF 2F 00); the WAV (RIFF) format of Microsoft and IBM's
+//!   *Multimedia Programming Interface and Data Specifications 1.0* (1991), written and read
+//!   through the `hound` crate.
+//! - *Taken:* the layout of the MIDI files and the sound files `taut` writes.
+//! - *Provenance:* **from memory** (the specifications not opened); the files `taut` writes are
+//!   read back by independent parsers in the tests (`midly`, `hound`).

@@ -11,6 +11,7 @@ mod lengths;
 mod output;
 mod pictures;
 mod plan;
+mod sound;
 mod stock;
 mod survey;
 mod text;

@@ -21,6 +21,7 @@ use taut::charts::draw::DEFAULT_SIZE;
 use super::output::{self, Format, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
+use super::sound::{self, SoundArgs};
 use super::stock::StockArgs;
 
 /// How a string shared by several tunings is balanced among them.
@@ -36,7 +37,7 @@ pub enum BalanceChoice {
 #[derive(Debug, Args)]
 #[command(
     about = "Choose a string for every course of an instrument in a tuning, with tension, stress and warnings",
-    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nCourse pitches are written in the tuning's own addressing: a note (`E2`, `F#3`), the nearest degree to a note (`~E2`), a degree (`deg7`, `deg3p1`), cents (`386.3c`), a ratio (`3/2`) or a frequency (`82.41hz`); `taut tuning --help` has the details and the tuning forms.\n\nCharts for --plot CHART=FILE: tension (window shaded, warnings ringed), stress (caution and danger lines), diameter (by construction).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
+    after_help = "INSTRUMENT is a YAML file or a built-in template: guitar-19edo, lever-harp-34, psaltery-26, fanned-8-just.\n\nCourse pitches are written in the tuning's own addressing: a note (`E2`, `F#3`), the nearest degree to a note (`~E2`), a degree (`deg7`, `deg3p1`), cents (`386.3c`), a ratio (`3/2`) or a frequency (`82.41hz`); `taut tuning --help` has the details and the tuning forms.\n\nCharts for --plot CHART=FILE: tension (window shaded, warnings ringed), stress (caution and danger lines), diameter (by construction).\n\n--sound FILE.wav plays the planned strings with their own stiffness (`taut help sound`).\n\nStrings break and instruments fail under too much load: wear eye protection, bring tension up gradually, respect the maker's load rating and defer to the maker's specifications."
 )]
 pub struct PlanArgs {
     /// Instrument definition (a YAML file) or the name of a built-in template.
@@ -80,6 +81,8 @@ pub struct PlanArgs {
     pub string_chart: Option<PathBuf>,
     #[command(flatten)]
     pub plots: PlotArgs,
+    #[command(flatten)]
+    pub sound: SoundArgs,
 }
 
 /// The charts of a plan, for `--plot CHART=FILE`.
@@ -90,6 +93,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let (plots, size) = args.plots.requests(&PLAN_CHARTS)?;
     let sheet = args.string_chart.as_deref().map(sheet_format).transpose()?;
+    let sound = args.sound.request()?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let mut inputs = output::Inputs::new();
@@ -142,6 +146,13 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             .in_origin(flag)
             .help(help));
         }
+        if sound.is_some() {
+            return Err(taut::Error::input(
+                "--sound plays one tuning; it does not take several tunings yet",
+            )
+            .in_origin("--sound")
+            .help("plan one tuning at a time to hear it (`--tuning NAME` once)"));
+        }
         return run_several(args, &instrument, &stock, tension, &inputs);
     }
     let mut plan = solve::plan(
@@ -184,6 +195,14 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             Some(output::Target::Path(path.clone())),
             output::safe_csv(&taut::charts::sheet::csv(&plan)?)?.into_bytes(),
         );
+    }
+    if let Some(request) = &sound {
+        let tuning = solve::tuning_for(
+            &instrument,
+            args.tuning.first().map(String::as_str),
+            "--tuning",
+        )?;
+        sound::add(&mut outputs, request, &plan, &tuning)?;
     }
     if let Some(target) = &args.save_set {
         let mut set = taut::sets::set::StringSet::from_plan(&plan);

@@ -78,6 +78,10 @@ pub const TOPICS: &[Topic] = &[
         "the charts each command draws (--plot) and the builder's string chart"
     ),
     topic!(
+        "sound",
+        "hearing the strings (--sound) and tunings out through MIDI"
+    ),
+    topic!(
         "output-files",
         "where output goes: --output, --save-set and standard output"
     ),

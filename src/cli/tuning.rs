@@ -14,6 +14,7 @@ use taut::tuning::listing::{default_range, list, DegreeListing};
 use taut::tuning::pitch::{format_ratio, nearest_note_as_written, PitchSpec};
 use taut::tuning::{library, load, ResolvedPitch, TuningSummary};
 
+mod midi;
 mod render;
 #[allow(unused_imports)]
 use render::*;
@@ -73,6 +74,11 @@ enum TuningCommand {
     Find(FindArgs),
     /// List the tunings shipped with taut.
     List(ListArgs),
+    /// Send a tuning to synthesizers: MIDI Tuning Standard messages (a bulk dump, single-note
+    /// changes) and a Standard MIDI File of its scale or chords; lists which note carries
+    /// which degree.
+    #[command(after_long_help = TUNING_HELP)]
+    Midi(midi::MidiArgs),
 }
 
 #[derive(Debug, Args)]
@@ -216,6 +222,7 @@ pub fn run(args: TuningArgs) -> Result<()> {
             };
             emit(&report, &args.output, &inputs(&[&args.tuning]))
         }
+        TuningCommand::Midi(args) => midi::run(&args),
         TuningCommand::List(args) => {
             let mut tunings = Vec::new();
             for (_, loaded) in library::load_all() {
