@@ -67,7 +67,15 @@ proptest! {
         let set = StringSet::from_text(set, "probe-set.yaml", Stock::builtin().unwrap()).unwrap();
         let tuning = tuning::load("12edo").unwrap();
         let options = ConvertOptions::default();
-        let conversion = convert(&instrument, &set, &tuning, &instrument, &tuning, Stock::builtin().unwrap(), &options).unwrap();
+        // A random gauge at a random pitch may be beyond its breaking load: no state the
+        // strings can be in, so the conversion refuses it (tests/it/convert_current_state.rs).
+        let conversion = match convert(&instrument, &set, &tuning, &instrument, &tuning, Stock::builtin().unwrap(), &options) {
+            Err(err) if format!("{err:?}").contains("beyond its breaking load") => {
+                prop_assume!(false);
+                unreachable!()
+            }
+            result => result.unwrap(),
+        };
         let safe = conversion.courses.iter().flat_map(|c| &c.strings).all(|s| {
             s.before.as_ref().and_then(|b| b.stress_ratio).is_some_and(|r| r <= 0.85)
         });

@@ -35,7 +35,7 @@ use crate::strings::select::{self, Checks, StressLimits, Warnings};
 use crate::strings::stock::Stock;
 use crate::tuning::Tuning;
 
-mod reference;
+pub(crate) mod reference;
 pub use reference::{Reference, ReferenceSource};
 
 /// Default largest tension change from the reference tuning before a course gets "no": ±30 %

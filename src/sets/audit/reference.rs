@@ -61,6 +61,26 @@ impl ReferenceSource<'_> {
     }
 }
 
+/// How far apart, in cents, a course's pitch lands when read in another tuning than the one it
+/// was written for, if that reading names another pitch: a degree, a ratio or cents count in the
+/// tuning they are read in, while a note name or a frequency reads the same in any tuning.
+/// `None` when both readings agree (float noise aside).
+pub(crate) fn reread_apart_cents(
+    course: &CourseInput<'_>,
+    written_for: &CoursePitch,
+    read_as: &CoursePitch,
+) -> Option<f64> {
+    let relative = matches!(
+        course.pitch.parse::<PitchSpec>(),
+        Ok(PitchSpec::Degree { .. }
+            | PitchSpec::PeriodStep { .. }
+            | PitchSpec::Ratio { .. }
+            | PitchSpec::Cents { .. })
+    );
+    let apart_cents = 1200.0 * (read_as.hz / written_for.hz).log2();
+    (relative && apart_cents.abs() >= SAME_PITCH_CENTS).then_some(apart_cents)
+}
+
 impl Reference<'_> {
     /// Refuses a course whose pitch, written as a degree, ratio or cents of the audited
     /// tuning, names another pitch when read in the reference tuning: that reading says nothing
@@ -77,17 +97,9 @@ impl Reference<'_> {
         if !self.source.rereads_pitches() {
             return Ok(());
         }
-        let relative = matches!(
-            course.pitch.parse::<PitchSpec>(),
-            Ok(PitchSpec::Degree { .. }
-                | PitchSpec::PeriodStep { .. }
-                | PitchSpec::Ratio { .. }
-                | PitchSpec::Cents { .. })
-        );
-        let apart_cents = 1200.0 * (now.hz / audited.hz).log2();
-        if !relative || apart_cents.abs() < SAME_PITCH_CENTS {
+        let Some(apart_cents) = reread_apart_cents(course, audited, now) else {
             return Ok(());
-        }
+        };
         let message = format!(
             "course {}'s pitch `{}` in {} counts in the audited tuning {}; read in {}, as {} \
              has it, it is {:.1} Hz instead of {:.1} Hz ({:+.0} cents), so it cannot say where \

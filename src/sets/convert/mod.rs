@@ -44,6 +44,7 @@ use crate::plan::warning::{
     with_load_check, Severity, StringRef, Warning, WarningKind, SAFETY_CAUTIONS,
 };
 use crate::plan::CoursePitch;
+use crate::sets::audit::reference::reread_apart_cents;
 use crate::sets::matching::{cautions_for, check_no_extra_courses, missing_course, set_strings};
 use crate::sets::set::{SetCourse, SetString, StringSet};
 use crate::strings::construction::Construction;
@@ -102,6 +103,7 @@ pub fn convert(
     let mut courses = Vec::with_capacity(after.courses.len());
     let mut total_before_n = 0.0;
     let mut seen_before = Vec::new();
+    let own_tuning = crate::plan::solve::tuning_for(before, None, "tuning")?;
     // The whole set, before: every course of the old instrument.
     for index in 0..before.courses.len() {
         let course = before
@@ -109,12 +111,20 @@ pub fn convert(
             .ok_or_else(|| Error::input("a course has no vibrating length"))?;
         let strings = installed(set, before, &course, kinds, materials)?;
         let pitch = before.course_pitch(&course, tuning_before)?;
-        for ((_, construction, _), layout) in strings.iter().zip(course.strings) {
-            total_before_n += physics::tension(
-                construction.unit_mass(),
-                course.length_m,
-                pitch.hz * layout.interval.ratio(),
-            );
+        check_reading(before, &own_tuning, tuning_before, &course, &pitch)?;
+        for ((written, construction, _), layout) in strings.iter().zip(course.strings) {
+            let hz = pitch.hz * layout.interval.ratio();
+            let tension = physics::tension(construction.unit_mass(), course.length_m, hz);
+            check_possible(
+                before,
+                tuning_before,
+                &course,
+                written,
+                hz,
+                tension,
+                construction,
+            )?;
+            total_before_n += tension;
         }
         seen_before.push(course.number);
     }

@@ -173,3 +173,74 @@ pub(super) fn flag_common(
         warnings.push(window);
     }
 }
+
+/// What a refusal of the current state asks for.
+const SAY_WHERE_THE_STRINGS_ARE: &str = "write the instrument's course pitches as notes (`E2`) or frequencies, which read the same in any tuning, or give --from the tuning the pitches are written in (it overrides the set's `tuning:` line)";
+
+/// Refuses a course whose pitch, written as a degree, ratio or cents of the instrument's own
+/// tuning, names another pitch in the tuning the strings are said to be in now (`--from` or
+/// the set's `tuning:`): that reading cannot say where the strings are, and every "before"
+/// tension built on it would be invented (the rule `audit` follows, `sets::audit::reference`).
+pub(super) fn check_reading(
+    before: &Instrument,
+    own_tuning: &Tuning,
+    tuning_now: &Tuning,
+    course: &CourseInput<'_>,
+    now: &CoursePitch,
+) -> Result<()> {
+    let written_for = before.course_pitch(course, own_tuning)?;
+    let Some(apart_cents) = reread_apart_cents(course, &written_for, now) else {
+        return Ok(());
+    };
+    let message = format!(
+        "course {}'s pitch `{}` counts in {}, the instrument's own tuning; read in {}, the \
+         tuning the strings are said to be in now, it is {:.1} Hz instead of {:.1} Hz ({:+.0} \
+         cents), so it cannot say where the strings are now",
+        course.number,
+        course.pitch.trim(),
+        own_tuning.name(),
+        tuning_now.name(),
+        now.hz,
+        written_for.hz,
+        apart_cents,
+    );
+    Err(before
+        .point(Error::input(message), &pitch_line(course.index))
+        .help(SAY_WHERE_THE_STRINGS_ARE))
+}
+
+/// Refuses a current state in which an installed string carries its breaking load or more: a
+/// string that would have broken is not where the strings are now, and its tension is no
+/// "before" to keep.
+pub(super) fn check_possible(
+    before: &Instrument,
+    tuning_now: &Tuning,
+    course: &CourseInput<'_>,
+    written: &SetString,
+    hz: f64,
+    tension_n: f64,
+    construction: &Construction<'_>,
+) -> Result<()> {
+    let Some(breaking) = construction.breaking_tension().filter(|b| tension_n >= *b) else {
+        return Ok(());
+    };
+    let message = format!(
+        "course {} ({}) cannot be at {hz:.1} Hz now, in {}: it would carry {tension_n:.1} N \
+         there, beyond its breaking load of {breaking:.1} N",
+        course.number,
+        written.label(),
+        tuning_now.name(),
+    );
+    Err(before
+        .point(Error::input(message), &pitch_line(course.index))
+        .help(SAY_WHERE_THE_STRINGS_ARE))
+}
+
+/// The path of a course's `pitch:` line in an instrument file.
+fn pitch_line(course_index: usize) -> [PathStep<'static>; 3] {
+    [
+        PathStep::Key("courses"),
+        PathStep::Index(course_index),
+        PathStep::Key("pitch"),
+    ]
+}
