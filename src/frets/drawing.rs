@@ -114,3 +114,61 @@ pub fn draw(layout: &FretLayout) -> Option<Drawing> {
         body_joint: layout.board.body_joint_m.map(|joint| across(joint, joint)),
     })
 }
+
+/// Two fret ends closer than this, in metres, meet: they are one fret drawn across two lanes.
+const ENDS_MEET_M: f64 = 1e-5;
+
+/// The frets that need a number of their own in a drawing: one segment for each run of frets
+/// (a fret drawn across neighbouring lanes) that reaches neither outer course, whose numbers a
+/// renderer shows beside the board. Each is the run's segment nearest the first course.
+pub fn inner_fret_runs(drawing: &Drawing) -> Vec<&DrawnFret> {
+    let order: Vec<u32> = drawing.strings.iter().map(|(course, _)| *course).collect();
+    if order.len() < 3 {
+        return Vec::new();
+    }
+    let lane = |course: u32| order.iter().position(|&c| c == course);
+    let meets = |a: &DrawnFret, b: &DrawnFret| {
+        a.line.iter().any(|p| {
+            b.line
+                .iter()
+                .any(|q| (p[0] - q[0]).hypot(p[1] - q[1]) < ENDS_MEET_M)
+        })
+    };
+    let in_lane = |index: usize| {
+        let course = order[index];
+        drawing.frets.iter().filter(move |f| f.course == course)
+    };
+    // Follows a run from `fret` (in lane `index`) one lane at a time in `step`'s direction and
+    // gives the lane it ends in.
+    let run_end = |fret: &DrawnFret, index: usize, toward_first: bool| {
+        let (mut current, mut index) = (fret, index);
+        loop {
+            let next = if toward_first {
+                index.checked_sub(1)
+            } else {
+                Some(index + 1).filter(|&i| i < order.len())
+            };
+            let Some(next) = next else { return index };
+            match in_lane(next).find(|other| meets(current, other)) {
+                Some(other) => (current, index) = (other, next),
+                None => return index,
+            }
+        }
+    };
+    let last = order.len() - 1;
+    drawing
+        .frets
+        .iter()
+        .filter(|fret| {
+            let Some(index) = lane(fret.course) else {
+                return false;
+            };
+            if index == 0 || index == last {
+                return false;
+            }
+            // The run's segment nearest the first course speaks for the run.
+            let starts_here = run_end(fret, index, true) == index;
+            starts_here && run_end(fret, index, false) != last
+        })
+        .collect()
+}

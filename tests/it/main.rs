@@ -16,6 +16,7 @@ mod feel_fletcher;
 mod fix_advice;
 mod frets_bad_input;
 mod frets_cli;
+mod frets_partial_labels;
 mod frets_properties;
 mod help_topics;
 mod hostile_outputs;

@@ -132,6 +132,29 @@ pub fn svg(layout: &FretLayout) -> String {
             break;
         }
     }
+    // Partial frets that reach neither outer course carry their number beside their line,
+    // smaller, so a fret cut for one inner course is not a line without a name.
+    let mut last_inner: Vec<(u32, f64)> = Vec::new();
+    for fret in drawing::inner_fret_runs(&drawing) {
+        let middle = [
+            (fret.line[0][0] + fret.line[1][0]) / 2.0,
+            (fret.line[0][1] + fret.line[1][1]) / 2.0,
+        ];
+        let x = page_x(middle[0]) + 0.6;
+        let crowded = last_inner
+            .iter()
+            .any(|&(course, previous)| course == fret.course && (x - previous).abs() < LABEL_GAP);
+        if crowded {
+            continue;
+        }
+        last_inner.push((fret.course, x));
+        let _ = writeln!(
+            out,
+            r##"<text x="{x:.3}" y="{:.3}" font-size="1.6" dominant-baseline="middle" fill="#5a4a2a">{}</text>"##,
+            page_y(middle[1]),
+            fret.fret
+        );
+    }
     // Title, notes and the scale bar below the board.
     let mut y = top + board_height + 10.0;
     let notes = [
