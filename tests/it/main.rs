@@ -37,6 +37,7 @@ mod plan_unreachable;
 mod plan_variant_pick;
 mod plan_warnings;
 mod readme;
+mod readme_promises;
 mod references;
 mod regressions;
 mod report_column_priority;
