@@ -23,6 +23,7 @@ use super::layout::{paragraph, wrap, Column, Give};
 use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
+use super::sound::{self, SoundArgs};
 use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, course_pitch_text, diameter, diameter_symbol, force, force_with_unit,
@@ -135,11 +136,14 @@ pub struct AuditArgs {
     pub output: OutputArgs,
     #[command(flatten)]
     pub plots: PlotArgs,
+    #[command(flatten)]
+    pub sound: SoundArgs,
 }
 
 /// Runs `taut audit`.
 pub fn run(args: AuditArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["tension", "stress"])?;
+    let sound = args.sound.request()?;
     let instrument = Instrument::load(&args.instrument)?;
     let variant_tunings: Vec<String> = instrument
         .variants
@@ -248,6 +252,13 @@ pub fn run(args: AuditArgs) -> Result<()> {
                     .help(help),
             );
         }
+        if sound.is_some() {
+            return Err(taut::Error::input(
+                "--sound plays one tuning, and this audit has several",
+            )
+            .in_origin("--sound")
+            .help("audit one tuning or variant at a time to hear it (`--tuning NAME` once or `--variant NAME`)"));
+        }
         let list = taut::plan::several::variants::resolve(&instrument, &args.tuning, "--tuning")?;
         let report = taut::sets::several::audit(&set, &list, reference, &stock, &options)?;
         return output::emit_in(&report, &args.output, Some(&args.units), &inputs);
@@ -255,11 +266,20 @@ pub fn run(args: AuditArgs) -> Result<()> {
     let tuning = tuning_for(&instrument, given.map(String::as_str), "--tuning")?;
     let mut report = audit::audit(&instrument, &set, &tuning, reference, &stock, &options)?;
     attach_fixes(&mut report, &stock);
+    pictures::check_places(&plots, args.output.output.as_ref())?;
+    let text = output::report_text(&report, &args.output, Some(&args.units))?;
+    // Pictures, sound and the report are written together: all of them or none.
+    let mut outputs = output::Outputs::new(&inputs);
     if !plots.is_empty() {
         let charts = taut::charts::build::audit(&report, &instrument);
-        pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
+        pictures::add(&mut outputs, &plots, size, &charts)?;
     }
-    output::emit_in(&report, &args.output, Some(&args.units), &inputs)
+    if let Some(request) = &sound {
+        let sources = taut::sound::score::sources_of_audit(&report);
+        sound::add_sources(&mut outputs, request, &sources, &tuning)?;
+    }
+    outputs.add("--output", args.output.output.clone(), text.into_bytes());
+    outputs.write()
 }
 
 /// Reads a string-set file, or the shipped example of that name; another kind of file is named

@@ -19,6 +19,7 @@ use super::layout::{paragraph, Column, Give};
 use super::output::{self, csv_text, sig, sig_opt, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
+use super::sound::{self, SoundArgs};
 use super::stock::StockArgs;
 use super::text::{
     build_of_kind, change, diameter, diameter_symbol, force, force_with_unit, gauge_line, length,
@@ -91,6 +92,8 @@ pub struct ConvertArgs {
     pub output: OutputArgs,
     #[command(flatten)]
     pub plots: PlotArgs,
+    #[command(flatten)]
+    pub sound: SoundArgs,
 }
 
 /// What `--keep-feel` keeps.
@@ -109,6 +112,7 @@ fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
 /// Runs `taut convert`.
 pub fn run(args: ConvertArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["tension", "stress"])?;
+    let sound = args.sound.request()?;
     let before = Instrument::load(&args.instrument)?;
     let after = match &args.to_instrument {
         Some(spec) => Instrument::load(spec).map_err(|err| err.in_origin("--to-instrument"))?,
@@ -203,6 +207,10 @@ pub fn run(args: ConvertArgs) -> Result<()> {
             Some(target.clone()),
             new_set.to_yaml().into_bytes(),
         );
+    }
+    if let Some(request) = &sound {
+        let sources = taut::sound::score::sources_of_conversion(&conversion);
+        sound::add_sources(&mut outputs, request, &sources, &tuning_after)?;
     }
     outputs.add("--output", args.output.output.clone(), report.into_bytes());
     outputs.write()

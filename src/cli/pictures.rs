@@ -161,6 +161,20 @@ pub fn add(
     Ok(())
 }
 
+/// Refuses a chart sent to standard output (`--plot -`) when the report goes there too
+/// (`report`: where the report goes, `None` for standard output).
+pub fn check_places(requests: &[PlotRequest], report: Option<&output::Target>) -> Result<()> {
+    let report_on_stdout = matches!(report, None | Some(output::Target::Stdout));
+    if report_on_stdout && requests.iter().any(|r| r.path.as_os_str() == "-") {
+        return Err(Error::input(
+            "--plot - and the report both go to standard output; give each its own place",
+        )
+        .in_origin("--plot")
+        .help("write the report with `-o FILE`, or the chart to a file"));
+    }
+    Ok(())
+}
+
 /// Draws the requested charts and writes them under the rules of every output (never over one
 /// of `inputs`, each file whole or not at all, all of them or none). `report` is where the
 /// report itself goes (`None`: standard output), so that a chart and the report never both
@@ -172,14 +186,7 @@ pub fn write(
     inputs: &output::Inputs,
     report: Option<&output::Target>,
 ) -> Result<()> {
-    let report_on_stdout = matches!(report, None | Some(output::Target::Stdout));
-    if report_on_stdout && requests.iter().any(|r| r.path.as_os_str() == "-") {
-        return Err(Error::input(
-            "--plot - and the report both go to standard output; give each its own place",
-        )
-        .in_origin("--plot")
-        .help("write the report with `-o FILE`, or the chart to a file"));
-    }
+    check_places(requests, report)?;
     let mut outputs = output::Outputs::new(inputs);
     add(&mut outputs, requests, size, charts)?;
     outputs.write()

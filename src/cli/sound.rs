@@ -139,7 +139,18 @@ pub fn add(
     plan: &Plan,
     tuning: &Tuning,
 ) -> Result<()> {
-    let notes = score::score(plan, Some(tuning), &request.play, &request.score)
+    add_sources(outputs, request, &score::sources_of_plan(plan), tuning)
+}
+
+/// Renders the strings `sources` (in `tuning`) as the request asks and adds the WAV file to
+/// `outputs`: what `audit` and `convert` play.
+pub fn add_sources(
+    outputs: &mut output::Outputs<'_>,
+    request: &SoundRequest,
+    sources: &[score::Source],
+    tuning: &Tuning,
+) -> Result<()> {
+    let notes = score::score_sources(sources, Some(tuning), &request.play, &request.score)
         .map_err(|e| e.in_origin("--play"))?;
     let samples = render::render(&notes, &request.render).map_err(|e| e.in_origin("--seconds"))?;
     let bytes = wav::wav_bytes(&samples, request.render.sample_rate_hz)?;

@@ -114,18 +114,78 @@ pub struct ScoreOptions {
     pub partials: Partials,
 }
 
-/// One planned string as a sound source.
+/// One string as a sound source: its course, open pitch and stiffness. Plans, audits and
+/// conversions each give theirs ([`sources_of_plan`], [`sources_of_audit`],
+/// [`sources_of_conversion`]), so every report plays through the same [`score_sources`].
 #[derive(Debug, Clone, Copy, PartialEq)]
-struct Source {
-    course: u32,
-    hz: f64,
-    b: f64,
+pub struct Source {
+    /// The course the string belongs to.
+    pub course: u32,
+    /// Its open pitch, Hz.
+    pub hz: f64,
+    /// Fletcher's inharmonicity coefficient B (0 where the kind gives no modulus).
+    pub b: f64,
+}
+
+/// The strings of a plan as sound sources.
+pub fn sources_of_plan(plan: &Plan) -> Vec<Source> {
+    plan.courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().map(|string| Source {
+                course: course.course,
+                hz: string.pitch_hz,
+                b: string.choice.inharmonicity.unwrap_or(0.0),
+            })
+        })
+        .collect()
+}
+
+/// The strings of an audited set, at the audited pitches, as sound sources.
+pub fn sources_of_audit(audit: &crate::sets::audit::Audit) -> Vec<Source> {
+    audit
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().map(|string| Source {
+                course: course.course,
+                hz: string.pitch_hz,
+                b: string.feel.inharmonicity_b.unwrap_or(0.0),
+            })
+        })
+        .collect()
+}
+
+/// The strings of a converted set (the new strings at the new pitches) as sound sources.
+pub fn sources_of_conversion(conversion: &crate::sets::convert::Conversion) -> Vec<Source> {
+    conversion
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().map(|string| Source {
+                course: course.course,
+                hz: string.after.pitch_hz,
+                b: string.feel_after.inharmonicity_b.unwrap_or(0.0),
+            })
+        })
+        .collect()
 }
 
 /// The notes that play `play` on `plan`'s strings. `tuning` (the plan's) is needed for
 /// [`Play::Degrees`] and [`Play::Scale`].
 pub fn score(
     plan: &Plan,
+    tuning: Option<&Tuning>,
+    play: &Play,
+    options: &ScoreOptions,
+) -> Result<Vec<Note>> {
+    score_sources(&sources_of_plan(plan), tuning, play, options)
+}
+
+/// The notes that play `play` on the strings `sources` (in course order); `tuning` is needed
+/// for [`Play::Degrees`] and [`Play::Scale`].
+pub fn score_sources(
+    sources: &[Source],
     tuning: Option<&Tuning>,
     play: &Play,
     options: &ScoreOptions,
@@ -142,17 +202,6 @@ pub fn score(
             options.pluck
         )));
     }
-    let sources: Vec<Source> = plan
-        .courses
-        .iter()
-        .flat_map(|course| {
-            course.strings.iter().map(|string| Source {
-                course: course.course,
-                hz: string.pitch_hz,
-                b: string.choice.inharmonicity.unwrap_or(0.0),
-            })
-        })
-        .collect();
     // (start, pitch, B) for each note.
     let mut events: Vec<(f64, f64, f64)> = Vec::new();
     let strum = |index: usize| index as f64 * STRUM_GAP_S;
@@ -172,9 +221,9 @@ pub fn score(
                 let chosen: Vec<&Source> = sources.iter().filter(|s| s.course == number).collect();
                 if chosen.is_empty() {
                     return Err(
-                        Error::input(format!("the plan has no course {number}")).help(format!(
+                        Error::input(format!("the report has no course {number}")).help(format!(
                             "its courses are numbered 1 to {}",
-                            plan.courses.len()
+                            sources.iter().map(|s| s.course).max().unwrap_or(0)
                         )),
                     );
                 }

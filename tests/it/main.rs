@@ -50,6 +50,7 @@ mod report_wording;
 mod set_files;
 mod sound_cli;
 mod sound_partials;
+mod sound_reports;
 mod strings_data;
 mod strings_harp_bass;
 mod strings_materials;
