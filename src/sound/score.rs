@@ -236,14 +236,14 @@ pub fn score_sources(
             let tuning = tuning.ok_or_else(|| Error::input("degrees need a tuning"))?;
             for &k in degrees {
                 let hz = tuning.degree(k)?.hz;
-                let b = stopped(&sources, hz, &format!("degree {k}"))?;
+                let b = stopped(sources, hz, &format!("degree {k}"))?;
                 events.push((strum(events.len()), hz, b));
             }
         }
         Play::Scale => {
             let tuning = tuning.ok_or_else(|| Error::input("a scale needs a tuning"))?;
-            for (i, (k, hz)) in scale(tuning, &sources)?.into_iter().enumerate() {
-                let b = stopped(&sources, hz, &format!("degree {k}"))?;
+            for (i, (k, hz)) in scale(tuning, sources)?.into_iter().enumerate() {
+                let b = stopped(sources, hz, &format!("degree {k}"))?;
                 events.push((i as f64 * options.seconds, hz, b));
             }
         }
