@@ -9,6 +9,7 @@ mod generate;
 mod help;
 mod layout;
 mod lengths;
+mod order;
 mod output;
 mod pictures;
 mod plan;

@@ -110,10 +110,11 @@ impl Listing {
                                 tension_n: choice.tension_n,
                                 stress_ratio: Some(choice.stress_ratio),
                                 bend_force_n: string.feel.and_then(|feel| feel.bend_force_n),
-                                bend_cents: string.feel.map_or(
-                                    crate::strings::feel::DEFAULT_BEND_CENTS,
-                                    |feel| feel.bend_cents,
-                                ),
+                                bend_cents: string
+                                    .feel
+                                    .map_or(crate::strings::feel::DEFAULT_BEND_CENTS, |feel| {
+                                        feel.bend_cents
+                                    }),
                             }
                         })
                         .collect(),
@@ -284,7 +285,13 @@ fn compare_string(before: Option<&ListedString>, after: Option<&ListedString>) -
         diameter_change_mm: both
             .and_then(|(b, a)| Some(a.diameter_mm? - b.diameter_mm?))
             .map(|d| if changed { d } else { 0.0 }),
-        tension_change_n: both.map(|(b, a)| if changed { a.tension_n - b.tension_n } else { 0.0 }),
+        tension_change_n: both.map(|(b, a)| {
+            if changed {
+                a.tension_n - b.tension_n
+            } else {
+                0.0
+            }
+        }),
         tension_change_pct: both
             .and_then(|(b, a)| pct(b.tension_n, a.tension_n))
             .map(|p| if changed { p } else { 0.0 }),

@@ -20,9 +20,10 @@ fn state(string: &CompareString) -> &'static str {
         (Some(before), Some(after)) if before.string != after.string => "new kind",
         (Some(before), Some(after))
             if matches!((&before.gauge, &after.gauge), (Some(x), Some(y)) if x != y)
-                || before.diameter_mm.zip(after.diameter_mm).is_some_and(|(b, a)| {
-                    (a - b).abs() > 1e-9 * a.abs().max(b.abs())
-                }) =>
+                || before
+                    .diameter_mm
+                    .zip(after.diameter_mm)
+                    .is_some_and(|(b, a)| (a - b).abs() > 1e-9 * a.abs().max(b.abs())) =>
         {
             "regauged"
         }
@@ -145,7 +146,9 @@ pub fn table(report: &Comparison, view: &View) -> String {
                     DEFAULT_CAUTION,
                     DEFAULT_DANGER,
                 ),
-                maybe(string.stress_change_points, |p| format!("{} pt", signed(p, 1))),
+                maybe(string.stress_change_points, |p| {
+                    format!("{} pt", signed(p, 1))
+                }),
                 maybe(string.bend_force_change_pct, |p| change(p, 0)),
             ]);
             let lead = Lead {
@@ -218,6 +221,13 @@ pub fn table(report: &Comparison, view: &View) -> String {
         ),
         view.width,
     ));
-    push_closing(&mut out, None, &report.warnings, &[], &report.cautions, view);
+    push_closing(
+        &mut out,
+        None,
+        &report.warnings,
+        &[],
+        &report.cautions,
+        view,
+    );
     out
 }
