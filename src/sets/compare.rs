@@ -282,9 +282,11 @@ fn compare_string(before: Option<&ListedString>, after: Option<&ListedString>) -
         before: before.cloned(),
         after: after.cloned(),
         changed,
-        diameter_change_mm: both
-            .and_then(|(b, a)| Some(a.diameter_mm? - b.diameter_mm?))
-            .map(|d| if changed { d } else { 0.0 }),
+        // The same diameter read back from a set differs in its last bits: that is no change.
+        diameter_change_mm: both.and_then(|(b, a)| {
+            let (x, y) = (b.diameter_mm?, a.diameter_mm?);
+            Some(if same(x, y) { 0.0 } else { y - x })
+        }),
         tension_change_n: both.map(|(b, a)| {
             if changed {
                 a.tension_n - b.tension_n
