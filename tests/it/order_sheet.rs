@@ -236,3 +236,72 @@ fn the_order_sheet_never_replaces_an_input() {
     assert_eq!(output.status.code(), Some(2));
     assert_eq!(std::fs::read_to_string(&harp).unwrap(), HARP);
 }
+
+#[test]
+fn lengths_and_convert_write_the_same_sheet_from_their_own_strings() {
+    let folder = tempfile::tempdir().unwrap();
+    let densities = densities();
+    let sheet = folder.path().join("order.csv");
+    let path = sheet.to_str().unwrap();
+    let layout = common::json(&["lengths", "zither-pairs-layout", "--order-sheet", path]);
+    let mut planned = Vec::new();
+    for course in layout["courses"].as_array().unwrap() {
+        planned.push((
+            number(&course["unit_mass_kg_per_m"]),
+            number(&course["length_m"]),
+        ));
+        for other in course["other_strings"].as_array().unwrap() {
+            planned.push((
+                number(&other["unit_mass_kg_per_m"]),
+                number(&course["length_m"]),
+            ));
+        }
+    }
+    let converted = common::json(&[
+        "convert",
+        "steel-guitar-12edo",
+        "--set",
+        "steel-guitar-set",
+        "--to-instrument",
+        "baritone-guitar",
+        "--order-sheet",
+        path,
+    ]);
+    let lengths_rows = {
+        common::table(&["lengths", "zither-pairs-layout", "--order-sheet", path]);
+        read_csv(&sheet)
+    };
+    assert_eq!(lengths_rows.len(), planned.len());
+    common::table(&[
+        "convert",
+        "steel-guitar-12edo",
+        "--set",
+        "steel-guitar-set",
+        "--to-instrument",
+        "baritone-guitar",
+        "--order-sheet",
+        path,
+    ]);
+    let convert_rows = read_csv(&sheet);
+    for course in converted["courses"].as_array().unwrap() {
+        for string in course["strings"].as_array().unwrap() {
+            planned.push((
+                number(&string["after"]["unit_mass_kg_per_m"]),
+                number(&course["length_after_m"]),
+            ));
+        }
+    }
+    let rows = lengths_rows.iter().chain(&convert_rows);
+    assert_eq!(rows.clone().count(), planned.len());
+    for (row, (mu, length)) in rows.zip(planned) {
+        let from_sheet = if row["build"] == "plain" {
+            let d = row["core_diameter_mm"].parse::<f64>().unwrap() / 1000.0;
+            densities[&row["core_material"]] * core_area("round", d)
+        } else {
+            unit_mass_from_row(row, &densities)
+        };
+        assert!((from_sheet / mu - 1.0).abs() < 1e-3, "{row:?}: {mu}");
+        let sheet_length: f64 = row["vibrating_length_mm"].parse().unwrap();
+        assert!((sheet_length / (length * 1000.0) - 1.0).abs() < 1e-5);
+    }
+}
