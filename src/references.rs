@@ -549,3 +549,37 @@
 //! - *Taken:* the layout of the MIDI files and the sound files `taut` writes.
 //! - *Provenance:* **from memory** (the specifications not opened); the files `taut` writes are
 //!   read back by independent parsers in the tests (`midly`, `hound`).
+//!
+//! ## 12 Builders' sheets
+//!
+//! ### 12.1 Colour marking of harp strings
+//!
+//! - *Source:* the trade; no published standard was found.
+//! - *Taken:* the order sheet's optional marking column: the C strings of a harp are coloured
+//!   red and the F strings dark blue (some makers use black), so a harpist finds the octaves at
+//!   a glance; the other strings are left plain.
+//! - *Provenance:* **common practice**, **from memory**.
+//!
+//! ### 12.2 Cut length
+//!
+//! ```text
+//! cut = anchor length + vibrating length + post length
+//! ```
+//!
+//! - *Source:* geometry of a string run from its anchor over the two ends of its vibrating
+//!   length to the tuning post.
+//! - *Taken:* the order sheet's cut length, where the instrument states its anchor and post
+//!   lengths; the turns round the post are left to the maker.
+//! - *Provenance:* **derived**.
+//!
+//! ### 12.3 The same strings on another scale length
+//!
+//! ```text
+//! T = μ·(2Lf)²   ⇒   T₂/T₁ = (L₂/L₁)²   at the same μ and f
+//! 647.7 mm → 685.8 mm:  (685.8/647.7)² − 1 = 12.11 %
+//! ```
+//!
+//! - *Source:* §1.2 (Mersenne's law, §1.1, solved for the tension).
+//! - *Taken:* the outside check of `taut compare`: one set moved from a 25.5 in to a 27 in
+//!   scale at the same pitches pulls 12.11 % more on every string and in total.
+//! - *Provenance:* **derived**.

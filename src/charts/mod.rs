@@ -10,6 +10,7 @@
 pub mod build;
 pub mod draw;
 pub mod label;
+pub mod order;
 pub mod palette;
 pub mod records;
 mod scale;

@@ -168,11 +168,7 @@ footer { font-size: 0.8rem; margin-top: 24px; color: #555; }
 /// The string chart as one HTML page: header, the per-string table, the charts as inline SVG,
 /// the warnings and the safety cautions. `charts` are drawn at `size` (see [`draw::svg`]).
 pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
-    let style = STYLE
-        .replace("INK", &palette::hex(palette::INK))
-        .replace("BAND", &palette::hex(palette::BAND))
-        .replace("DANGER", &Look::Danger.hex())
-        .replace("CAUTION", &Look::Caution.hex());
+    let style = style();
     // Names are cut to a label's length: a page has no room for more.
     let title = format!(
         "String chart: {} in {}",
@@ -258,6 +254,16 @@ pub fn html(plan: &Plan, charts: &[Named], size: Size) -> Result<String> {
     );
     out.push_str("</body>\n</html>\n");
     Ok(out)
+}
+
+/// The page's style sheet with taut's own colours filled in (shared with the order sheet's
+/// page, [`super::order::html`]).
+pub(crate) fn style() -> String {
+    STYLE
+        .replace("INK", &palette::hex(palette::INK))
+        .replace("BAND", &palette::hex(palette::BAND))
+        .replace("DANGER", &Look::Danger.hex())
+        .replace("CAUTION", &Look::Caution.hex())
 }
 
 /// What to read in each chart of a plan.

@@ -91,6 +91,8 @@ pub struct ConvertArgs {
     #[command(flatten)]
     pub output: OutputArgs,
     #[command(flatten)]
+    pub order: super::order::OrderArgs,
+    #[command(flatten)]
     pub plots: PlotArgs,
     #[command(flatten)]
     pub sound: SoundArgs,
@@ -113,6 +115,7 @@ fn positive_length(text: &Option<String>, flag: &str) -> Result<Option<f64>> {
 pub fn run(args: ConvertArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["tension", "stress"])?;
     let sound = args.sound.request()?;
+    let order = args.order.request()?;
     let before = Instrument::load(&args.instrument)?;
     let after = match &args.to_instrument {
         Some(spec) => Instrument::load(spec).map_err(|err| err.in_origin("--to-instrument"))?,
@@ -212,6 +215,53 @@ pub fn run(args: ConvertArgs) -> Result<()> {
         let sources = taut::sound::score::sources_of_conversion(&conversion);
         sound::add_sources(&mut outputs, request, &sources, &tuning_after)?;
     }
+    if order.is_some() {
+        let rows = order_rows(&conversion, &after, &stock, args.order.marking)?;
+        let view = output::View::new(&args.output, Some(&args.units));
+        let title = format!(
+            "{} in {}",
+            conversion.instrument_after, conversion.tuning_after
+        );
+        args.order.add(&mut outputs, &title, &rows, &view)?;
+    }
     outputs.add("--output", args.output.output.clone(), report.into_bytes());
     outputs.write()
+}
+
+/// The order sheet's rows of a conversion: the strings after, on the new instrument's lengths,
+/// with its anchor and post lengths where it states them.
+fn order_rows(
+    conversion: &Conversion,
+    after: &Instrument,
+    stock: &Stock,
+    marking: bool,
+) -> Result<Vec<taut::charts::order::OrderRow>> {
+    use taut::charts::order::{self, OrderString};
+    let (kinds, materials) = (stock.kinds(), stock.materials());
+    let mut strings = Vec::new();
+    for course in &conversion.courses {
+        let input = (0..after.courses.len())
+            .find(|&i| after.course_number(i) == course.course)
+            .and_then(|i| after.course_input(i, None));
+        for (index, string) in course.strings.iter().enumerate() {
+            strings.push(OrderString {
+                course: course.course,
+                string: index + 1,
+                pitch: if index == 0 {
+                    &course.pitch_label
+                } else {
+                    &string.interval
+                },
+                note_name: &course.note_name,
+                pitch_hz: string.after.pitch_hz,
+                kind: &string.after.string,
+                construction: string.set_string.resolve(kinds, materials)?.construction,
+                length_m: course.length_after_m,
+                anchor_m: input.and_then(|c| c.anchor_m),
+                post_m: input.and_then(|c| c.post_m),
+                tension_n: string.after.tension_n,
+            });
+        }
+    }
+    Ok(order::rows(strings, marking))
 }

@@ -65,12 +65,15 @@ pub struct LengthsArgs {
     #[command(flatten)]
     pub output: OutputArgs,
     #[command(flatten)]
+    pub order: super::order::OrderArgs,
+    #[command(flatten)]
     pub plots: PlotArgs,
 }
 
 /// Runs `taut lengths`.
 pub fn run(args: LengthsArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&["lengths"])?;
+    let order = args.order.request()?;
     let tension: Option<TensionSpec> = parse_flag(args.tension.as_deref(), "--tension")?;
     let stock = args.stock.load()?;
     let input = match (&args.layout, &args.pitch, &args.string) {
@@ -130,11 +133,65 @@ pub fn run(args: LengthsArgs) -> Result<()> {
     for file in &args.stock.files {
         inputs.file(file);
     }
+    let text = output::report_text(&report, &args.output, Some(&args.units))?;
+    let mut outputs = output::Outputs::new(&inputs);
     if !plots.is_empty() {
         let charts = taut::charts::build::layout(&report);
-        pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
+        pictures::add(&mut outputs, &plots, size, &charts)?;
     }
-    output::emit_in(&report, &args.output, Some(&args.units), &inputs)
+    if order.is_some() {
+        let rows = order_rows(&report, &input, &stock, args.order.marking)?;
+        let view = View::new(&args.output, Some(&args.units));
+        args.order.add(&mut outputs, &report.name, &rows, &view)?;
+    }
+    outputs.add("--output", args.output.output.clone(), text.into_bytes());
+    outputs.write()
+}
+
+/// The order sheet's rows of a layout: each course's strings as the layout names them, on the
+/// solved length (a layout states no anchor or post lengths, so no cut length).
+fn order_rows(
+    report: &Layout,
+    input: &LayoutInput,
+    stock: &taut::strings::stock::Stock,
+    marking: bool,
+) -> Result<Vec<taut::charts::order::OrderRow>> {
+    use taut::charts::order::{self, OrderString};
+    let (kinds, materials) = (stock.kinds(), stock.materials());
+    let mut strings = Vec::new();
+    for course in &report.courses {
+        let Some(given) = input.courses.iter().find(|c| c.course == course.course) else {
+            continue;
+        };
+        let first = OrderString {
+            course: course.course,
+            string: 1,
+            pitch: &course.pitch.label,
+            note_name: &course.pitch.note_name,
+            pitch_hz: course.pitch.hz,
+            kind: &course.string,
+            construction: given.string.resolve(kinds, materials)?.construction,
+            length_m: course.length_m,
+            anchor_m: None,
+            post_m: None,
+            tension_n: course.tension_n,
+        };
+        strings.push(first);
+        for (index, (other, (_, written))) in
+            course.other_strings.iter().zip(&given.others).enumerate()
+        {
+            strings.push(OrderString {
+                string: index + 2,
+                pitch: &other.interval,
+                pitch_hz: other.pitch_hz,
+                kind: &other.string,
+                construction: written.resolve(kinds, materials)?.construction,
+                tension_n: other.tension_n,
+                ..first
+            });
+        }
+    }
+    Ok(order::rows(strings, marking))
 }
 
 impl Render for Layout {

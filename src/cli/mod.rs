@@ -2,12 +2,14 @@
 //! layer sees clap.
 
 mod audit;
+mod compare;
 mod convert;
 mod frets;
 mod generate;
 mod help;
 mod layout;
 mod lengths;
+mod order;
 mod output;
 mod pictures;
 mod plan;
@@ -48,6 +50,8 @@ enum Command {
     Audit(audit::AuditArgs),
     /// Plan the strings for a new tuning or scale length from the set installed now.
     Convert(convert::ConvertArgs),
+    /// Put two plans, two sets, or a plan and a set side by side, string by string.
+    Compare(compare::CompareArgs),
     /// Solve vibrating lengths from pitch, string and tension, for builders.
     Lengths(lengths::LengthsArgs),
     /// Lay out frets for any tuning, straight or fanned, per course; table, JSON, CSV or SVG.
@@ -82,6 +86,7 @@ pub fn main() -> ExitCode {
         Command::Tuning(args) => tuning::run(args),
         Command::Audit(args) => audit::run(args),
         Command::Convert(args) => convert::run(args),
+        Command::Compare(args) => compare::run(&args),
         Command::Lengths(args) => lengths::run(args),
         Command::Frets(args) => frets::run(&args),
         Command::Survey(args) => survey::run(&args),

@@ -18,6 +18,7 @@ use taut::strings::select::several::Balance;
 use taut::charts::build;
 use taut::charts::draw::DEFAULT_SIZE;
 
+use super::order::OrderArgs;
 use super::output::{self, Format, OutputArgs, Render, UnitArgs, View};
 use super::parse_flag;
 use super::pictures::{self, PlotArgs};
@@ -80,6 +81,8 @@ pub struct PlanArgs {
     #[arg(long, value_name = "FILE")]
     pub string_chart: Option<PathBuf>,
     #[command(flatten)]
+    pub order: OrderArgs,
+    #[command(flatten)]
     pub plots: PlotArgs,
     #[command(flatten)]
     pub sound: SoundArgs,
@@ -94,6 +97,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
     let (plots, size) = args.plots.requests(&PLAN_CHARTS)?;
     let sheet = args.string_chart.as_deref().map(sheet_format).transpose()?;
     let sound = args.sound.request()?;
+    let order = args.order.request()?;
     let instrument = Instrument::load(&args.instrument)?;
     let stock = args.stock.load()?;
     let mut inputs = output::Inputs::new();
@@ -125,11 +129,13 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         inputs.file(file);
     }
     if args.tuning.len() > 1 || !instrument.variants.is_empty() {
-        if !plots.is_empty() || sheet.is_some() {
-            let flag = if plots.is_empty() {
+        if !plots.is_empty() || sheet.is_some() || order.is_some() {
+            let flag = if !plots.is_empty() {
+                "--plot"
+            } else if sheet.is_some() {
                 "--string-chart"
             } else {
-                "--plot"
+                "--order-sheet"
             };
             let help = if instrument.variants.is_empty() {
                 "plan one tuning at a time for its pictures (`--tuning NAME` once)".to_string()
@@ -195,6 +201,12 @@ pub fn run(args: &PlanArgs) -> Result<()> {
             Some(output::Target::Path(path.clone())),
             output::safe_csv(&taut::charts::sheet::csv(&plan)?)?.into_bytes(),
         );
+    }
+    if order.is_some() {
+        let view = View::new(&args.output, Some(&args.units));
+        let rows = order_rows(&plan, &instrument, &stock, args.order.marking)?;
+        let title = format!("{} in {}", plan.instrument, plan.tuning);
+        args.order.add(&mut outputs, &title, &rows, &view)?;
     }
     if let Some(request) = &sound {
         let tuning = solve::tuning_for(
@@ -278,6 +290,49 @@ fn run_several(
     }
     outputs.add("--output", args.output.output.clone(), text.into_bytes());
     outputs.write()
+}
+
+/// The order sheet's rows of a one-tuning plan: each string's construction as the plan chose
+/// it (a catalog string of its kind at its diameter) or as the file fixed it, with the course's
+/// anchor and post lengths where the instrument states them.
+fn order_rows(
+    plan: &Plan,
+    instrument: &Instrument,
+    stock: &taut::strings::stock::Stock,
+    marking: bool,
+) -> Result<Vec<taut::charts::order::OrderRow>> {
+    use taut::charts::order::{self, OrderString};
+    let (kinds, materials) = (stock.kinds(), stock.materials());
+    let mut strings = Vec::with_capacity(plan.string_count());
+    for (index, course) in plan.courses.iter().enumerate() {
+        let input = instrument.course_input(index, None);
+        for (number, string) in course.strings.iter().enumerate() {
+            let construction = match &string.fixed {
+                Some(fixed) => fixed.resolve(kinds, materials)?.construction,
+                None => kinds
+                    .get(&string.choice.kind)?
+                    .construction(string.choice.diameter_mm / 1000.0),
+            };
+            strings.push(OrderString {
+                course: course.course,
+                string: number + 1,
+                pitch: if number == 0 {
+                    &course.pitch.label
+                } else {
+                    &string.interval
+                },
+                note_name: &course.pitch.note_name,
+                pitch_hz: string.pitch_hz,
+                kind: &string.choice.kind,
+                construction,
+                length_m: course.length_m,
+                anchor_m: input.and_then(|c| c.anchor_m),
+                post_m: input.and_then(|c| c.post_m),
+                tension_n: string.choice.tension_n,
+            });
+        }
+    }
+    Ok(order::rows(strings, marking))
 }
 
 /// What `--string-chart` writes.

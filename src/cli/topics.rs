@@ -78,6 +78,14 @@ pub const TOPICS: &[Topic] = &[
         "the charts each command draws (--plot) and the builder's string chart"
     ),
     topic!(
+        "order-sheet",
+        "the sheet a string maker makes the strings from (--order-sheet)"
+    ),
+    topic!(
+        "comparisons",
+        "`taut compare`: two plans or sets side by side, and its fields"
+    ),
+    topic!(
         "sound",
         "hearing the strings (--sound) and tunings out through MIDI"
     ),

@@ -64,6 +64,13 @@ pub struct CourseSettings {
     /// The widest string the nut slot, bridge hole or tuner takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
     pub max_diameter: Option<Diameter>,
+    /// String from its anchor (tail block, soundboard eyelet, hitch pin) to the near end of the
+    /// vibrating length: with `post_length`, the order sheet's cut length (REFERENCES §12.2).
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub anchor_length: Option<Length>,
+    /// String from the far end of the vibrating length (nut, bridge pin) to the tuning post.
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub post_length: Option<Length>,
 }
 
 /// One string of a course.
@@ -144,6 +151,12 @@ pub struct Course {
     /// The string named outright for every string of the course that does not name its own:
     /// the player's own string, kept while the rest are solved.
     pub string: Option<StringEntryFile>,
+    /// This course's anchor length (see [`CourseSettings::anchor_length`]).
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub anchor_length: Option<Length>,
+    /// This course's post length (see [`CourseSettings::post_length`]).
+    #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
+    pub post_length: Option<Length>,
 }
 
 /// The file's contents, as written.
@@ -220,6 +233,10 @@ pub struct CourseInput<'a> {
     pub strings: &'a [CourseString],
     /// The string the course names outright for its strings without their own.
     pub string: Option<&'a StringEntryFile>,
+    /// String from the anchor to the vibrating length, m, where the file states it.
+    pub anchor_m: Option<f64>,
+    /// String from the vibrating length to the tuning post, m, where the file states it.
+    pub post_m: Option<f64>,
 }
 
 impl CourseInput<'_> {
@@ -348,6 +365,14 @@ impl Instrument {
                 .map(Diameter::si),
             strings: &course.strings,
             string: course.string.as_ref(),
+            anchor_m: course
+                .anchor_length
+                .or(self.defaults.anchor_length)
+                .map(Length::si),
+            post_m: course
+                .post_length
+                .or(self.defaults.post_length)
+                .map(Length::si),
         })
     }
 }

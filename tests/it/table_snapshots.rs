@@ -6,6 +6,18 @@ use crate::common;
 
 /// Every table the commands print, each on a shipped example.
 const COMMANDS: &[(&str, &[&str])] = &[
+    (
+        "compare_set_on_baritone",
+        &[
+            "compare",
+            "steel-guitar-set",
+            "steel-guitar-set",
+            "--on",
+            "steel-guitar-12edo",
+            "--after-on",
+            "baritone-guitar",
+        ],
+    ),
     ("plan_guitar_19edo", &["plan", "guitar-19edo"]),
     ("plan_lever_harp", &["plan", "lever-harp-34"]),
     (
