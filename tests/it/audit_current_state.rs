@@ -5,7 +5,7 @@
 use crate::common::{bad_input, json, number, taut, write_file};
 
 /// A six-course guitar whose pitches are ratios of its own just tuning, with 1/1 at E2.
-const JUST_GUITAR: &str = "\
+pub(crate) const JUST_GUITAR: &str = "\
 name: Just guitar
 tuning: just-5-limit@E2
 scale_length: 648mm

@@ -2,24 +2,8 @@
 //! out only from pitches that really say where the strings are, and never from a state in which
 //! a string would already have broken (issue 19, point 1, as `audit` does it).
 
+use crate::audit_current_state::JUST_GUITAR;
 use crate::common::{bad_input, json, write_file};
-
-/// A six-course guitar whose pitches are ratios of its own just tuning, with 1/1 at E2.
-const JUST_GUITAR: &str = "\
-name: Just guitar
-tuning: just-5-limit@E2
-scale_length: 648mm
-defaults:
-  tension: {target: 75N, min: 40N, max: 130N}
-  kinds: [plain-steel, phosphor-bronze-wound]
-courses:
-  - {course: 1, pitch: 4/1, kinds: [plain-steel]}
-  - {course: 2, pitch: 3/1, kinds: [plain-steel]}
-  - {course: 3, pitch: 12/5}
-  - {course: 4, pitch: 16/9, kinds: [phosphor-bronze-wound]}
-  - {course: 5, pitch: 4/3, kinds: [phosphor-bronze-wound]}
-  - {course: 6, pitch: 1/1, kinds: [phosphor-bronze-wound]}
-";
 
 /// A light set; `TUNING` and `TOP` are replaced by each test.
 const SET: &str = "\
