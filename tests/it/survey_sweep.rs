@@ -239,8 +239,14 @@ fn the_random_cases_meet_runs_refusals_and_rankings() {
     }
     println!("{surveyed} surveyed, {with_results} with results, {several} several, {over_load} over load, {out_of_range} out of range");
     assert!(surveyed > 300, "{surveyed} of 400 cases surveyed");
-    assert!(with_results > 40, "{with_results} cases with a stringable candidate");
+    assert!(
+        with_results > 40,
+        "{with_results} cases with a stringable candidate"
+    );
     assert!(several > 20, "{several} cases with several results");
     assert!(over_load > 5, "{over_load} cases over the rated load");
-    assert!(out_of_range > 5, "{out_of_range} cases outside the pitch range");
+    assert!(
+        out_of_range > 5,
+        "{out_of_range} cases outside the pitch range"
+    );
 }
