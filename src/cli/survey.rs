@@ -9,7 +9,7 @@ use serde::Serialize;
 use taut::error::{Error, Result};
 use taut::instrument::Instrument;
 use taut::plan::warning::SAFETY_REMINDER;
-use taut::survey::{CourseDiagnosis, Limit, RankRule, Report, Settings, Survey, Verdict};
+use taut::survey::{CourseDiagnosis, Limit, Method, RankRule, Report, Settings, Survey, Verdict};
 
 use super::layout::{hidden_note, paragraph, wrap, Column, Give, Grid};
 use super::output::View;
@@ -29,6 +29,15 @@ pub enum RankChoice {
     Load,
     /// Smallest worst distance from the target tension, then spread, then worst stress.
     Target,
+}
+
+/// Search methods as the command line names them.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum MethodChoice {
+    /// Visit only the offsets where some string's choice or verdict changes (the default).
+    Crossings,
+    /// Check every candidate, string by string (the reference; slower by the offsets).
+    Exhaustive,
 }
 
 /// Arguments of `taut survey`.
@@ -53,9 +62,14 @@ pub struct SurveyArgs {
     /// List every stringable offset, not each tuning and course pattern once at its best offset.
     #[arg(long)]
     pub every_offset: bool,
-    /// Use this many threads (default: one per core).
+    /// Use at most this many threads (default and most: one per core, and no more than the
+    /// search has parts).
     #[arg(long, value_name = "N")]
     pub threads: Option<usize>,
+    /// How to search: `crossings` (default) or `exhaustive`, which checks every candidate
+    /// and gives the same report, slowly; for checking.
+    #[arg(long, value_enum, value_name = "METHOD", default_value = "crossings")]
+    pub method: MethodChoice,
     #[command(flatten)]
     pub stock: StockArgs,
     #[command(flatten)]
@@ -88,20 +102,27 @@ pub fn run(args: &SurveyArgs) -> Result<()> {
         };
     }
     let stock = args.stock.load()?;
-    let survey = Survey::prepare(&instrument, &settings, &stock)?;
-    let report = match args.threads {
-        Some(threads) => {
-            if threads == 0 {
-                return Err(Error::input("--threads must be at least 1").in_origin("--threads"));
-            }
-            let pool = rayon::ThreadPoolBuilder::new()
-                .num_threads(threads)
-                .build()
-                .map_err(|err| Error::input(format!("cannot start {threads} threads: {err}")))?;
-            pool.install(|| search_with_progress(&survey))?
-        }
-        None => search_with_progress(&survey)?,
+    if args.threads == Some(0) {
+        return Err(Error::input("--threads must be at least 1").in_origin("--threads"));
+    }
+    let method = match args.method {
+        MethodChoice::Crossings => Method::Crossings,
+        MethodChoice::Exhaustive => Method::Exhaustive,
     };
+    let survey = Survey::prepare(&instrument, &settings, &stock)?;
+    // More threads than cores or than the search has parts only cost their start-up.
+    let cores = std::thread::available_parallelism().map_or(1, |n| n.get());
+    let threads = args
+        .threads
+        .unwrap_or(cores)
+        .min(cores)
+        .min(survey.useful_threads(method))
+        .max(1);
+    let pool = rayon::ThreadPoolBuilder::new()
+        .num_threads(threads)
+        .build()
+        .map_err(|err| Error::input(format!("cannot start {threads} threads: {err}")))?;
+    let report = pool.install(|| search_with_progress(&survey, method))?;
     let mut inputs = output::Inputs::new();
     inputs.spec(&args.instrument).file(&args.settings);
     for file in &args.stock.files {
@@ -110,23 +131,30 @@ pub fn run(args: &SurveyArgs) -> Result<()> {
     output::emit(&SurveyOutput { report: &report }, &args.output, &inputs)
 }
 
-/// Course checks above which a progress bar is worth drawing.
-const PROGRESS_FROM_CHECKS: u64 = 50_000_000;
+/// Expected seconds above which a progress bar is worth drawing.
+const PROGRESS_FROM_SECONDS: f64 = 0.25;
 
-fn search_with_progress(survey: &Survey<'_>) -> Result<Report> {
-    let size = survey.size();
-    let bar = if std::io::stderr().is_terminal() && size.course_checks >= PROGRESS_FROM_CHECKS {
-        let bar = ProgressBar::new(size.candidates);
-        if let Ok(style) = ProgressStyle::with_template(
-            "{bar:40} {percent:>3}% {pos}/{len} candidates, {eta} left",
-        ) {
+fn search_with_progress(survey: &Survey<'_>, method: Method) -> Result<Report> {
+    // The bar counts the method's own work: crossings for the sweep, candidates for the
+    // exhaustive search.
+    let unit = match method {
+        Method::Crossings => "crossings",
+        Method::Exhaustive => "candidates",
+    };
+    let bar = if std::io::stderr().is_terminal()
+        && survey.estimated_seconds(method) >= PROGRESS_FROM_SECONDS
+    {
+        let bar = ProgressBar::new(survey.work(method));
+        if let Ok(style) = ProgressStyle::with_template(&format!(
+            "{{bar:40}} {{percent:>3}}% {{pos}}/{{len}} {unit}, {{eta}} left"
+        )) {
             bar.set_style(style);
         }
         bar
     } else {
         ProgressBar::hidden()
     };
-    let report = survey.run(&|done| bar.inc(done));
+    let report = survey.run_with(method, &|done| bar.inc(done));
     bar.finish_and_clear();
     report
 }
@@ -158,6 +186,10 @@ impl Render for SurveyOutput<'_> {
             (rejected.wider_than_slot, "a string wider than its slot"),
             (rejected.strength_unknown, "a string of unknown strength"),
             (rejected.over_rated_load, "total load above the rated load"),
+            (
+                rejected.outside_pitch_range,
+                "a pitch outside 1 Hz to 30 kHz",
+            ),
         ]
         .iter()
         .filter(|(count, _)| *count > 0)
@@ -285,6 +317,7 @@ fn limit_words(limit: Limit) -> &'static str {
         Limit::AboveWindow => "tension above the window",
         Limit::WiderThanSlot => "wider than its slot",
         Limit::StrengthUnknown => "strength unknown",
+        Limit::OutsidePitchRange => "pitch outside 1 Hz to 30 kHz",
     }
 }
 

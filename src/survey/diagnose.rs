@@ -13,6 +13,7 @@ use serde::Serialize;
 use crate::strings::select::Warnings;
 
 use super::search::reject_mask;
+use super::table::OUTSIDE_PITCH_RANGE;
 use super::Survey;
 
 /// A limit that refuses a string.
@@ -33,23 +34,32 @@ pub enum Limit {
     WiderThanSlot,
     /// The chosen kind's strength is unknown.
     StrengthUnknown,
+    /// The string's pitch lies outside the plausible range of 1 Hz to 30 kHz.
+    OutsidePitchRange,
 }
 
 impl Limit {
-    const ALL: [(Limit, Warnings); 7] = [
-        (Limit::StressDanger, Warnings::STRESS_DANGER),
-        (Limit::ThinnerThanCatalog, Warnings::THINNER_THAN_CATALOG),
-        (Limit::ThickerThanCatalog, Warnings::THICKER_THAN_CATALOG),
-        (Limit::BelowWindow, Warnings::BELOW_WINDOW),
-        (Limit::AboveWindow, Warnings::ABOVE_WINDOW),
-        (Limit::WiderThanSlot, Warnings::WIDER_THAN_SLOT),
-        (Limit::StrengthUnknown, Warnings::STRENGTH_UNKNOWN),
+    const ALL: [(Limit, u16); 8] = [
+        (Limit::StressDanger, Warnings::STRESS_DANGER.bits()),
+        (
+            Limit::ThinnerThanCatalog,
+            Warnings::THINNER_THAN_CATALOG.bits(),
+        ),
+        (
+            Limit::ThickerThanCatalog,
+            Warnings::THICKER_THAN_CATALOG.bits(),
+        ),
+        (Limit::BelowWindow, Warnings::BELOW_WINDOW.bits()),
+        (Limit::AboveWindow, Warnings::ABOVE_WINDOW.bits()),
+        (Limit::WiderThanSlot, Warnings::WIDER_THAN_SLOT.bits()),
+        (Limit::StrengthUnknown, Warnings::STRENGTH_UNKNOWN.bits()),
+        (Limit::OutsidePitchRange, OUTSIDE_PITCH_RANGE),
     ];
 
     fn of_flags(flags: u16) -> Vec<Limit> {
         Limit::ALL
             .iter()
-            .filter(|(_, warning)| flags & warning.bits() != 0)
+            .filter(|(_, bits)| flags & bits != 0)
             .map(|(limit, _)| *limit)
             .collect()
     }

@@ -13,16 +13,18 @@
 //! | [`settings`] | the settings file: tunings, offsets, course pattern, ranking |
 //! | [`range`] | offsets in exact decimal steps |
 //! | [`table`] | per string, the selector's choice as a function of s = (2Lf)² |
-//! | `search` | the parallel, allocation-free sweep and the ranking |
+//! | `sweep` | the default search: only the offsets where some string's choice changes |
+//! | `search` | the exhaustive search (every candidate, the reference) and the bounded ranking |
 //!
 //! Set-up (loading tunings, building the tables) happens once; the sweep then costs a few
-//! multiplications per string. [`Survey::candidate_plan`] solves any candidate with the plain
+//! evaluations per crossing of a table bound, whatever the offset step. [`Survey::candidate_plan`] solves any candidate with the plain
 //! plan solver ([`crate::plan::solve::solve`]), which is how the best candidate's full plan is
 //! made and how tests check the fast path.
 
 pub mod range;
 mod search;
 pub mod settings;
+mod sweep;
 pub mod table;
 
 use serde::Serialize;
@@ -50,6 +52,20 @@ mod size;
 #[allow(unused_imports)]
 use size::*;
 pub use size::*;
+
+/// How a survey searches its space. Both give the same report (but for `elapsed_s`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Method {
+    /// Visit only the offsets where some string's pitch crosses a bound of its table (a
+    /// catalog step, a window edge, a stress limit, a change of kind), and count the runs
+    /// between them: the time grows with the crossings, not with the offsets.
+    #[default]
+    Crossings,
+    /// Check every candidate, string by string: the reference the crossings are tested
+    /// against.
+    Exhaustive,
+}
 
 /// One string of the instrument as the sweep sees it.
 #[derive(Debug, Clone)]
@@ -96,6 +112,12 @@ pub struct Survey<'a> {
     order: order::CourseOrder,
     /// Per string (in the order of `strings`), its window, slot and stress limits.
     checks: Vec<Checks>,
+    /// Whether `offset_ratios` never fall (what the crossings sweep relies on).
+    offsets_ascend: bool,
+    /// Table bounds crossed over the whole space, every pair and string.
+    crossings: u64,
+    /// Seconds spent preparing: loading tunings, building the tables.
+    prepared_s: f64,
 }
 
 /// The course pattern of a result.
@@ -172,7 +194,9 @@ pub struct Report {
     pub stringable: u64,
     /// Why the others failed (a candidate may fail for several reasons).
     pub rejected: Rejections,
-    /// Seconds the search took (building the tables and checking every candidate).
+    /// Seconds the survey's own work took: loading the tunings and building the tables,
+    /// searching the space, ranking and, when nothing passes, the diagnosis (not reading the
+    /// instrument and settings, nor solving the best candidate's full plan).
     pub elapsed_s: f64,
     /// Which way the courses run in pitch from course 1 (`up`: course 1 is the lowest).
     pub course_direction: Direction,
@@ -195,6 +219,44 @@ impl<'a> Survey<'a> {
     /// The size checked before any work.
     pub fn size(&self) -> Size {
         self.size
+    }
+
+    /// Table bounds crossed over the whole space (every tuning, pattern and string): the
+    /// crossings sweep's work.
+    pub fn crossings(&self) -> u64 {
+        self.crossings
+    }
+
+    /// The work a search by `method` does, in the units its `progress` callback counts:
+    /// crossings plus one per string and pair for [`Method::Crossings`], candidates for
+    /// [`Method::Exhaustive`].
+    pub fn work(&self, method: Method) -> u64 {
+        match method {
+            Method::Crossings => {
+                self.crossings + self.pairs.len() as u64 * self.strings.len() as u64
+            }
+            Method::Exhaustive => self.size.candidates,
+        }
+    }
+
+    /// Seconds a search by `method` is expected to take on the current rayon pool, from the
+    /// rates measured on the development machine (see DEVELOPERS.md, Benchmarks).
+    pub fn estimated_seconds(&self, method: Method) -> f64 {
+        let threads = rayon::current_num_threads().max(1) as f64;
+        match method {
+            Method::Crossings => self.work(method) as f64 / (CROSSINGS_RATE * threads),
+            Method::Exhaustive => self.size.course_checks as f64 / (CHECKS_RATE * threads),
+        }
+    }
+
+    /// How many threads can help a search by `method`: no more than its parts (pairs for the
+    /// sweep, chunks of offsets for the exhaustive search).
+    pub fn useful_threads(&self, method: Method) -> usize {
+        let parts = match method {
+            Method::Crossings => self.pairs.len() as u64,
+            Method::Exhaustive => self.pairs.len() as u64 * self.size.offsets.div_ceil(2048),
+        };
+        usize::try_from(parts.max(1)).unwrap_or(usize::MAX)
     }
 
     /// Course checks per candidate (the instrument's courses).

@@ -11,6 +11,7 @@ impl<'a> Survey<'a> {
         settings: &'a Settings,
         stock: &'a Stock,
     ) -> Result<Survey<'a>> {
+        let started = std::time::Instant::now();
         let kinds = stock.kinds();
         let size = Size::of(instrument, settings)?;
         let order = order::CourseOrder::of(instrument, settings)?;
@@ -105,7 +106,11 @@ impl<'a> Survey<'a> {
             rated_load_n: instrument.rated_load.map(|load| load.si()),
             order,
             checks: string_checks,
+            offsets_ascend: true,
+            crossings: 0,
+            prepared_s: 0.0,
         };
+        survey.offsets_ascend = survey.offset_ratios.windows(2).all(|w| w[0] <= w[1]);
         // Each file is read once, however often the list names it (the size check counted it
         // so).
         let mut loaded: std::collections::HashMap<String, std::rc::Rc<Tuning>> =
@@ -144,7 +149,32 @@ impl<'a> Survey<'a> {
                 survey.pairs.push(pair);
             }
         }
+        survey.crossings = survey.count_crossings();
+        survey.prepared_s = started.elapsed().as_secs_f64();
         Ok(survey)
+    }
+
+    /// Table bounds crossed over the whole space: per pair and string, the bounds between the
+    /// segments at the lowest and the highest offset (two binary searches each).
+    fn count_crossings(&self) -> u64 {
+        let (Some(&lowest), Some(&highest)) =
+            (self.offset_ratios.first(), self.offset_ratios.last())
+        else {
+            return 0;
+        };
+        let mut crossings = 0u64;
+        for pair in &self.pairs {
+            for (slot, factor) in self.strings.iter().zip(&pair.factors) {
+                let s = |ratio: f64| {
+                    let two_l_f = factor * ratio;
+                    two_l_f * two_l_f
+                };
+                let low = slot.table.find(s(lowest));
+                let high = slot.table.find(s(highest));
+                crossings += high.saturating_sub(low) as u64;
+            }
+        }
+        crossings
     }
 
     pub(super) fn pair(

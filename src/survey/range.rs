@@ -94,6 +94,11 @@ impl CentsRange {
         nanocents as f64 / SCALE as f64
     }
 
+    /// The step in cents (as a float: for estimates only, never to place an offset).
+    pub fn step_cents(&self) -> f64 {
+        self.step as f64 / SCALE as f64
+    }
+
     /// Offset `k` as exact decimal text, e.g. `-12.3`.
     pub fn text(&self, k: u64) -> String {
         decimal_text(self.from + k as i64 * self.step)

@@ -1,4 +1,7 @@
-//! The sweep: every candidate checked, in parallel, without allocating per candidate.
+//! What both ways of searching share (a candidate's measures, the reasons it fails, the
+//! bounded ranking), and the exhaustive way: every candidate checked, in parallel, without
+//! allocating per candidate. The default way, which visits only the offsets where some
+//! string's choice changes, is [`super::sweep`]; this one stays as its reference.
 //!
 //! Candidates are cut into chunks of neighbouring offsets of one (tuning, pattern) pair. Inside a
 //! chunk the frequency of every string moves a little from one offset to the next, so each
@@ -9,6 +12,7 @@
 //! the chunks were shared out.
 
 use std::cmp::Ordering;
+use std::collections::BinaryHeap;
 use std::time::Instant;
 
 use rayon::prelude::*;
@@ -16,7 +20,8 @@ use serde::Serialize;
 
 use crate::strings::select::Warnings;
 
-use super::{RankRule, Ranked, Report, StringSlot, Survey, Verdict};
+use super::table::OUTSIDE_PITCH_RANGE;
+use super::{Method, RankRule, Ranked, Report, StringSlot, Survey, Verdict};
 
 /// Offsets per chunk: enough to amortise the chunk's binary searches, small enough to keep
 /// both cores busy to the end.
@@ -33,6 +38,7 @@ pub(super) fn reject_mask() -> u16 {
         .union(Warnings::ABOVE_WINDOW)
         .union(Warnings::STRENGTH_UNKNOWN)
         .bits()
+        | OUTSIDE_PITCH_RANGE
 }
 
 /// One candidate's measures.
@@ -63,7 +69,7 @@ impl Metrics {
         self.flags & Warnings::STRESS_CAUTION.bits() != 0
     }
 
-    fn key(&self, rule: RankRule) -> [f64; 3] {
+    pub(super) fn key(&self, rule: RankRule) -> [f64; 3] {
         let (spread, stress, load, target) = (
             self.tension_spread_n,
             self.worst_stress_ratio,
@@ -94,6 +100,8 @@ pub struct Rejections {
     pub strength_unknown: u64,
     /// Total load above the instrument's rated load.
     pub over_rated_load: u64,
+    /// Some string's pitch outside the plausible range of 1 Hz to 30 kHz.
+    pub outside_pitch_range: u64,
 }
 
 impl Rejections {
@@ -104,22 +112,30 @@ impl Rejections {
 
     /// Counts the reasons in a refused candidate's combined string flags.
     fn count_flags(&mut self, flags: u16) {
-        let has = |reason: Warnings| u64::from(flags & reason.bits() != 0);
-        self.stress_danger += has(Warnings::STRESS_DANGER);
-        self.outside_catalog +=
-            has(Warnings::THINNER_THAN_CATALOG.union(Warnings::THICKER_THAN_CATALOG));
-        self.outside_window += has(Warnings::BELOW_WINDOW.union(Warnings::ABOVE_WINDOW));
-        self.wider_than_slot += has(Warnings::WIDER_THAN_SLOT);
-        self.strength_unknown += has(Warnings::STRENGTH_UNKNOWN);
+        self.count_flags_times(flags, 1);
     }
 
-    fn add(&mut self, other: &Rejections) {
+    /// Counts the reasons of `times` refused candidates that share their combined flags.
+    pub(super) fn count_flags_times(&mut self, flags: u16, times: u64) {
+        let has = |reason: u16| if flags & reason != 0 { times } else { 0 };
+        self.stress_danger += has(Warnings::STRESS_DANGER.bits());
+        self.outside_catalog += has(Warnings::THINNER_THAN_CATALOG
+            .union(Warnings::THICKER_THAN_CATALOG)
+            .bits());
+        self.outside_window += has(Warnings::BELOW_WINDOW.union(Warnings::ABOVE_WINDOW).bits());
+        self.wider_than_slot += has(Warnings::WIDER_THAN_SLOT.bits());
+        self.strength_unknown += has(Warnings::STRENGTH_UNKNOWN.bits());
+        self.outside_pitch_range += has(OUTSIDE_PITCH_RANGE);
+    }
+
+    pub(super) fn add(&mut self, other: &Rejections) {
         self.stress_danger += other.stress_danger;
         self.outside_catalog += other.outside_catalog;
         self.outside_window += other.outside_window;
         self.wider_than_slot += other.wider_than_slot;
         self.strength_unknown += other.strength_unknown;
         self.over_rated_load += other.over_rated_load;
+        self.outside_pitch_range += other.outside_pitch_range;
     }
 }
 
@@ -202,14 +218,16 @@ pub(super) fn measure(
 
 /// A ranked entry: sort key, candidate number, its tuning-and-pattern pair, measures.
 #[derive(Debug, Clone, Copy)]
-struct Entry {
-    key: [f64; 3],
-    index: u64,
-    pair: usize,
-    metrics: Metrics,
+pub(super) struct Entry {
+    pub key: [f64; 3],
+    pub index: u64,
+    pub pair: usize,
+    pub metrics: Metrics,
 }
 
-fn order(a: &Entry, b: &Entry) -> Ordering {
+/// The ranking's total order: the rule's three measures (`total_cmp`), then the candidate
+/// number, so no two entries tie.
+pub(super) fn order(a: &Entry, b: &Entry) -> Ordering {
     a.key[0]
         .total_cmp(&b.key[0])
         .then(a.key[1].total_cmp(&b.key[1]))
@@ -217,79 +235,156 @@ fn order(a: &Entry, b: &Entry) -> Ordering {
         .then(a.index.cmp(&b.index))
 }
 
-/// What one thread found.
-struct Found {
-    best: Vec<Entry>,
-    top: usize,
-    /// Whether a tuning-and-pattern pair may fill several places (`every_offset`).
-    every_offset: bool,
-    stringable: u64,
-    rejected: Rejections,
+impl PartialEq for Entry {
+    fn eq(&self, other: &Entry) -> bool {
+        order(self, other).is_eq()
+    }
+}
+impl Eq for Entry {}
+impl PartialOrd for Entry {
+    fn partial_cmp(&self, other: &Entry) -> Option<Ordering> {
+        Some(self.cmp(other))
+    }
+}
+impl Ord for Entry {
+    fn cmp(&self, other: &Entry) -> Ordering {
+        order(self, other)
+    }
 }
 
-impl Found {
-    fn new(top: usize, every_offset: bool) -> Found {
-        Found {
-            best: Vec::with_capacity(top + 1),
+/// The best `top` entries so far, in a bounded max-heap (the worst on top, so a better entry
+/// replaces it in O(log top)); sorted once at the end.
+///
+/// With `one_per_pair`, callers offer each tuning-and-pattern pair at most once per podium (its
+/// best over the candidates that podium saw); merging keeps each pair's best. That stays exact
+/// when a pair's candidates were split between podiums: a pair's best that belongs in the final
+/// list had fewer than `top` other pairs ahead of it anywhere, so no podium dropped it, and a
+/// partial best of a pair whose true best is not listed has `top` better pairs ahead of it.
+pub(super) struct Podium {
+    heap: BinaryHeap<Entry>,
+    top: usize,
+    one_per_pair: bool,
+}
+
+impl Podium {
+    pub(super) fn new(top: usize, one_per_pair: bool) -> Podium {
+        Podium {
+            // A small first allocation: `top` may be far larger than the results found.
+            heap: BinaryHeap::with_capacity(top.min(1024) + 1),
             top,
-            every_offset,
-            stringable: 0,
-            rejected: Rejections::default(),
+            one_per_pair,
         }
     }
 
-    /// Keeps `entry` if it is among the best `top` (each pair once, at its best, unless
-    /// `every_offset`); never grows past `top + 1`, so never reallocates.
-    ///
-    /// One place per pair stays exact when offers arrive in any order and lists are merged: a
-    /// pair pushed out had `top` other pairs ahead of it, and those only get better.
-    fn offer(&mut self, entry: Entry) {
-        if self.best.len() == self.top
-            && self
-                .best
-                .last()
-                .is_some_and(|worst| order(&entry, worst).is_ge())
-        {
-            return;
+    /// The entry a newcomer must beat, once the podium is full.
+    pub(super) fn worst(&self) -> Option<&Entry> {
+        if self.heap.len() >= self.top {
+            self.heap.peek()
+        } else {
+            None
         }
-        if !self.every_offset {
-            if let Some(held) = self.best.iter().position(|e| e.pair == entry.pair) {
-                if order(&entry, &self.best[held]).is_ge() {
-                    return;
-                }
-                self.best.remove(held);
+    }
+
+    /// Keeps `entry` if it is among the best `top`.
+    #[inline]
+    pub(super) fn offer(&mut self, entry: Entry) {
+        if self.heap.len() < self.top {
+            self.heap.push(entry);
+        } else if let Some(mut worst) = self.heap.peek_mut() {
+            if order(&entry, &worst).is_lt() {
+                *worst = entry;
             }
         }
-        let at = self.best.partition_point(|e| order(e, &entry).is_lt());
-        self.best.insert(at, entry);
-        self.best.truncate(self.top);
     }
 
-    fn merge(mut self, other: Found) -> Found {
-        for entry in other.best {
-            self.offer(entry);
+    pub(super) fn merge(mut self, other: Podium) -> Podium {
+        if self.one_per_pair {
+            let mut all: Vec<Entry> = self.heap.into_vec();
+            all.extend(other.heap);
+            all.sort_unstable();
+            let mut seen = std::collections::HashSet::new();
+            self.heap = all
+                .into_iter()
+                .filter(|entry| seen.insert(entry.pair))
+                .take(self.top)
+                .collect();
+        } else {
+            for entry in other.heap {
+                self.offer(entry);
+            }
         }
+        self
+    }
+
+    /// The entries, best first.
+    pub(super) fn into_sorted(self) -> Vec<Entry> {
+        self.heap.into_sorted_vec()
+    }
+}
+
+/// Counts of one part of a search.
+#[derive(Debug, Clone, Copy, Default)]
+pub(super) struct Tally {
+    pub stringable: u64,
+    pub rejected: Rejections,
+}
+
+impl Tally {
+    pub(super) fn add(&mut self, other: &Tally) {
         self.stringable += other.stringable;
         self.rejected.add(&other.rejected);
-        self
     }
 }
 
 impl Survey<'_> {
-    /// Checks every candidate, ranks the stringable ones and solves the best with the plain
-    /// plan solver; `progress` is told how many candidates each finished chunk held. Runs on the
-    /// current rayon pool.
+    /// Checks every candidate (by the default method, [`Method::Crossings`]), ranks the
+    /// stringable ones and solves the best with the plain plan solver; `progress` is told how
+    /// much work each finished part held (see [`Survey::work`]). Runs on the current rayon
+    /// pool.
     pub fn run(&self, progress: &(dyn Fn(u64) + Sync)) -> crate::error::Result<Report> {
-        let mut report = self.search(progress);
+        self.run_with(Method::Crossings, progress)
+    }
+
+    /// [`Survey::run`] by the chosen method.
+    pub fn run_with(
+        &self,
+        method: Method,
+        progress: &(dyn Fn(u64) + Sync),
+    ) -> crate::error::Result<Report> {
+        let mut report = self.search_with(method, progress);
         if let Some(best) = report.best_candidate {
             report.best_plan = Some(self.candidate_plan(best)?);
         }
         Ok(report)
     }
 
-    /// [`Survey::run`] without the best candidate's plan: the sweep and the ranking only.
+    /// [`Survey::run`] without the best candidate's plan: the search and the ranking only.
     pub fn search(&self, progress: &(dyn Fn(u64) + Sync)) -> Report {
+        self.search_with(Method::Crossings, progress)
+    }
+
+    /// [`Survey::search`] by the chosen method. Both give the same report but for
+    /// `elapsed_s`.
+    pub fn search_with(&self, method: Method, progress: &(dyn Fn(u64) + Sync)) -> Report {
         let started = Instant::now();
+        let method = if self.offsets_ascend {
+            method
+        } else {
+            // The crossings need each string's pitch to rise with the offset; a ratio table
+            // that does not (never seen, but floats are not promised monotone) is searched
+            // candidate by candidate.
+            Method::Exhaustive
+        };
+        let (podium, tally) = match method {
+            Method::Crossings => self.sweep(progress),
+            Method::Exhaustive => self.exhaustive(progress),
+        };
+        let best = podium.into_sorted();
+        let elapsed_s = self.prepared_s + started.elapsed().as_secs_f64();
+        self.report(best, tally, elapsed_s)
+    }
+
+    fn exhaustive(&self, progress: &(dyn Fn(u64) + Sync)) -> (Podium, Tally) {
         let rule = self.settings.rank_by;
         let top = self.settings.top;
         let every_offset = self.settings.every_offset;
@@ -297,71 +392,114 @@ impl Survey<'_> {
         let chunks: Vec<(usize, u64)> = (0..self.pairs.len())
             .flat_map(|pair| (0..offsets.div_ceil(CHUNK)).map(move |c| (pair, c * CHUNK)))
             .collect();
+        // Each accumulator sees its chunks in order, so the chunks of one pair arrive together:
+        // `current` holds the best of the pair being read, offered when the next pair starts.
+        struct Acc {
+            podium: Podium,
+            tally: Tally,
+            current: Option<Entry>,
+            segments: Vec<usize>,
+        }
+        let flush = |acc: &mut Acc| {
+            if let Some(entry) = acc.current.take() {
+                acc.podium.offer(entry);
+            }
+        };
         let found = chunks
             .par_iter()
             .fold(
-                || {
-                    (
-                        Found::new(top, every_offset),
-                        Vec::<usize>::with_capacity(self.strings.len()),
-                    )
+                || Acc {
+                    podium: Podium::new(top, !every_offset),
+                    tally: Tally::default(),
+                    current: None,
+                    segments: Vec::with_capacity(self.strings.len()),
                 },
-                |(mut found, mut segments), &(pair_index, first)| {
+                |mut acc, &(pair_index, first)| {
                     let pair = &self.pairs[pair_index];
+                    if acc.current.is_some_and(|held| held.pair != pair_index) {
+                        flush(&mut acc);
+                    }
                     let last = (first + CHUNK).min(offsets);
                     let ratio = self.offset_ratios[first as usize];
-                    segments.clear();
-                    segments.extend(self.strings.iter().zip(&pair.factors).map(
-                        |(slot, factor)| {
-                            let two_l_f = factor * ratio;
-                            slot.table.find(two_l_f * two_l_f)
-                        },
-                    ));
+                    acc.segments.clear();
+                    acc.segments
+                        .extend(
+                            self.strings
+                                .iter()
+                                .zip(&pair.factors)
+                                .map(|(slot, factor)| {
+                                    let two_l_f = factor * ratio;
+                                    slot.table.find(two_l_f * two_l_f)
+                                }),
+                        );
                     let base = pair_index as u64 * offsets;
                     for offset in first..last {
                         let ratio = self.offset_ratios[offset as usize];
-                        let flags = place(&self.strings, &pair.factors, ratio, &mut segments);
+                        let flags = place(&self.strings, &pair.factors, ratio, &mut acc.segments);
                         // Refused for its strings: only the reasons are counted, unless a rated
                         // load asks for the total too.
                         if flags & reject_mask() != 0 && self.rated_load_n.is_none() {
-                            found.rejected.count_flags(flags);
+                            acc.tally.rejected.count_flags(flags);
                             continue;
                         }
                         let metrics = measure(
                             &self.strings,
                             &pair.factors,
                             ratio,
-                            &segments,
+                            &acc.segments,
                             flags,
                             self.rated_load_n,
                         );
                         if metrics.stringable() {
-                            found.stringable += 1;
-                            found.offer(Entry {
+                            acc.tally.stringable += 1;
+                            let entry = Entry {
                                 key: metrics.key(rule),
                                 index: base + offset,
                                 pair: pair_index,
                                 metrics,
-                            });
+                            };
+                            if every_offset {
+                                acc.podium.offer(entry);
+                            } else if acc.current.is_none_or(|held| order(&entry, &held).is_lt()) {
+                                acc.current = Some(entry);
+                            }
                         } else {
-                            found.rejected.count(&metrics);
+                            acc.tally.rejected.count(&metrics);
                         }
                     }
                     progress(last - first);
-                    (found, segments)
+                    acc
                 },
             )
-            .map(|(found, _)| found)
-            .reduce(|| Found::new(top, every_offset), Found::merge);
-        let elapsed_s = started.elapsed().as_secs_f64();
-        let results = found
-            .best
+            .map(|mut acc| {
+                flush(&mut acc);
+                (acc.podium, acc.tally)
+            })
+            .reduce(
+                || (Podium::new(top, !every_offset), Tally::default()),
+                |(podium, mut tally), (other, other_tally)| {
+                    tally.add(&other_tally);
+                    (podium.merge(other), tally)
+                },
+            );
+        found
+    }
+
+    fn report(&self, best: Vec<Entry>, tally: Tally, elapsed_s: f64) -> Report {
+        let rule = self.settings.rank_by;
+        let every_offset = self.settings.every_offset;
+        let diagnosis = if tally.stringable == 0 {
+            self.diagnose()
+        } else {
+            Vec::new()
+        };
+        let results = best
             .iter()
             .enumerate()
             .map(|(rank, entry)| self.ranked(rank + 1, entry))
             .collect();
         Report {
-            best_candidate: found.best.first().map(|best| best.index),
+            best_candidate: best.first().map(|best| best.index),
             instrument: self.instrument.name.clone(),
             rank_by: rule,
             ranking_rule: if every_offset {
@@ -375,16 +513,12 @@ impl Survey<'_> {
             every_offset,
             candidates: self.size.candidates,
             course_checks: self.size.course_checks,
-            stringable: found.stringable,
-            rejected: found.rejected,
+            stringable: tally.stringable,
+            rejected: tally.rejected,
             elapsed_s,
             course_direction: self.order.direction,
             notes: self.order.notes.clone(),
-            diagnosis: if found.stringable == 0 {
-                self.diagnose()
-            } else {
-                Vec::new()
-            },
+            diagnosis,
             results,
             best_plan: None,
         }

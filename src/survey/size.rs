@@ -3,13 +3,19 @@
 #[allow(unused_imports)]
 use super::*;
 
-/// Most course checks (candidates × courses) one survey may ask for: about 20 s at the
-/// 2e8 checks per second the sweep is built for.
+/// Most course checks (candidates × courses) one survey may ask for, so that the exhaustive
+/// search, the reference of the crossings sweep, can check any survey taut accepts (about 4 s
+/// on two cores at [`CHECKS_RATE`]).
 pub const MAX_COURSE_CHECKS: u64 = 4_000_000_000;
 /// Most (tuning, course pattern) pairs × strings, the per-pair factors kept in memory.
 pub const MAX_PAIR_STRINGS: u64 = 5_000_000;
-/// Speed assumed in size estimates, course checks per second.
-pub const ESTIMATE_RATE: f64 = 2e8;
+/// The exhaustive search's speed per thread, course checks per second, as measured
+/// (`cargo bench --bench survey`, DEVELOPERS.md): most candidates are refused for their
+/// strings and cost a table walk each.
+pub const CHECKS_RATE: f64 = 5e8;
+/// The crossings sweep's speed per thread, in crossings (and strings of each pair) per second,
+/// as measured on the same benchmarks.
+pub const CROSSINGS_RATE: f64 = 2e7;
 
 /// How big a survey is, known before any work.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -40,13 +46,14 @@ impl Size {
         let offsets = settings.offsets.len();
         let candidates = u128::from(tunings) * u128::from(patterns) * u128::from(offsets);
         let checks = candidates * u128::from(courses);
+        let cores = std::thread::available_parallelism().map_or(1, |n| n.get()) as f64;
         let estimate = format!(
-            "{tunings} tuning{} × {patterns} course pattern{} × {offsets} offset{} = {candidates} candidates, {checks} course checks (about {:.1} s at {:.0e} checks/s)",
+            "{tunings} tuning{} × {patterns} course pattern{} × {offsets} offset{} = {candidates} candidates, {checks} course checks (about {:.1} s to check every candidate at {:.0e} checks/s per core)",
             plural(tunings),
             plural(patterns),
             plural(offsets),
-            checks as f64 / ESTIMATE_RATE,
-            ESTIMATE_RATE
+            checks as f64 / (CHECKS_RATE * cores),
+            CHECKS_RATE
         );
         if let PatternRule::Steps(steps) = &settings.pattern {
             if steps.len() as u64 + 1 != courses {

@@ -26,8 +26,14 @@
 //! the selector: a frequency within a rounding error (about 1e-16 relative) of a crossing may
 //! land on the other side of it.
 
+use crate::input::units::FREQUENCY_BOUNDS;
 use crate::strings::kind::StringKind;
 use crate::strings::select::{self, Checks, Request, Warnings};
+
+/// A survey's own flag, beside the selector's: the string's frequency lies outside the
+/// plausible range every pitch of a plan keeps to (1 Hz to 30 kHz, `taut help ranges`). The
+/// selector's flags leave this bit free.
+pub const OUTSIDE_PITCH_RANGE: u16 = 1 << 15;
 
 /// What the selector chooses for a string inside one segment of s.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -98,6 +104,11 @@ impl StringTable {
                 }
             }
         }
+        // The plausible range of pitches, as s: below (2L·1 Hz)² and above (2L·30 kHz)² a
+        // string is refused. The upper cut sits one step above, so 30 kHz itself passes.
+        let (lowest_s, highest_s) = pitch_range_s(spec.length);
+        cuts.push(lowest_s);
+        cuts.push(next_above(highest_s));
         cuts.retain(|cut| cut.is_finite() && *cut > 0.0);
         cuts.sort_by(f64::total_cmp);
         cuts.dedup();
@@ -107,7 +118,7 @@ impl StringTable {
             flags: Vec::new(),
         };
         let mut scratch = [None; crate::plan::solve::MAX_KINDS_PER_LIST];
-        let probe = |s: f64, scratch: &mut [Option<select::Choice>]| -> Outcome {
+        let choose = |s: f64, scratch: &mut [Option<select::Choice>]| -> Outcome {
             let frequency = s.sqrt() / (2.0 * spec.length);
             let request = Request {
                 frequency,
@@ -138,6 +149,17 @@ impl StringTable {
                     kind: u16::MAX,
                     gauge: u32::MAX,
                 },
+            }
+        };
+        let probe = |s: f64, scratch: &mut [Option<select::Choice>]| -> Outcome {
+            let outcome = choose(s, scratch);
+            if s < lowest_s || s > highest_s {
+                Outcome {
+                    flags: outcome.flags | OUTSIDE_PITCH_RANGE,
+                    ..outcome
+                }
+            } else {
+                outcome
             }
         };
         let representative = |segment: usize| -> f64 {
@@ -178,5 +200,21 @@ impl StringTable {
             from -= 1;
         }
         from
+    }
+}
+
+/// The plausible range of a string's pitch as s = (2Lf)², for a vibrating length `length` (m).
+pub fn pitch_range_s(length: f64) -> (f64, f64) {
+    let low = 2.0 * length * FREQUENCY_BOUNDS.min;
+    let high = 2.0 * length * FREQUENCY_BOUNDS.max;
+    (low * low, high * high)
+}
+
+/// The next float above a positive finite `value`.
+fn next_above(value: f64) -> f64 {
+    if value.is_finite() && value > 0.0 {
+        f64::from_bits(value.to_bits() + 1)
+    } else {
+        value
     }
 }

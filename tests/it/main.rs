@@ -63,6 +63,7 @@ mod strings_stiffness;
 mod survey;
 mod survey_order;
 mod survey_reading;
+mod survey_sweep;
 mod table_snapshots;
 mod tuning_bad_input;
 mod tuning_compare;

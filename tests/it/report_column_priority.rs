@@ -135,7 +135,7 @@ fn no_number_is_cut_at_80_or_60_columns() {
             );
         }
     }
-    // The survey's best candidate keeps its pitches whole (`deg0 B1-35.2c` was `deg0 B1-3…`).
+    // The survey's best candidate keeps its pitches whole (`deg0 B1-35.3c` was `deg0 B1-3…`).
     let text = at_columns(reports[3], "80");
-    assert!(text.contains("deg0 B1-35.2c"), "{text}");
+    assert!(text.contains("deg0 B1-35.3c"), "{text}");
 }

@@ -341,8 +341,8 @@ fn the_example_runs_through_the_binary_as_json() {
         "--top",
         "3",
     ]);
-    assert_eq!(report["candidates"], 68 * 12_001);
-    assert_eq!(report["course_checks"], 68 * 12_001 * 8);
+    assert_eq!(report["candidates"], 307 * 120_001);
+    assert_eq!(report["course_checks"], 307 * 120_001 * 8);
     let results = report["results"].as_array().unwrap();
     assert_eq!(results.len(), 3);
     assert!(report["stringable"].as_u64().unwrap() >= 3);

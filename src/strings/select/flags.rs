@@ -97,7 +97,7 @@ impl Warnings {
     }
 
     /// The raw bits.
-    pub fn bits(self) -> u16 {
+    pub const fn bits(self) -> u16 {
         self.0
     }
 
