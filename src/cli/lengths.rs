@@ -56,6 +56,10 @@ pub struct LengthsArgs {
     /// `rated_load`).
     #[arg(long, value_name = "FORCE")]
     pub rated_load: Option<String>,
+    /// Also save the solved layout as an instrument file (each course's length and strings),
+    /// for `taut plan` (written together with the report: all or none).
+    #[arg(long, value_name = "FILE", requires = "layout")]
+    pub save_instrument: Option<output::Target>,
     #[command(flatten)]
     pub stock: StockArgs,
     #[command(flatten)]
@@ -134,7 +138,24 @@ pub fn run(args: LengthsArgs) -> Result<()> {
         let charts = taut::charts::build::layout(&report);
         pictures::write(&plots, size, &charts, &inputs, args.output.output.as_ref())?;
     }
-    output::emit_in(&report, &args.output, Some(&args.units), &inputs)
+    let text = output::report_text(&report, &args.output, Some(&args.units))?;
+    // The shared writer: the report and the instrument file both, or neither.
+    let mut outputs = output::Outputs::new(&inputs);
+    if let Some(target) = &args.save_instrument {
+        // The spec that loaded, so `plan` can load it back.
+        let tuning = args
+            .tuning
+            .clone()
+            .or_else(|| input.tuning.clone())
+            .unwrap_or_else(|| lengths::DEFAULT_TUNING.to_string());
+        outputs.add(
+            "--save-instrument",
+            Some(target.clone()),
+            report.instrument_text(&input, &tuning).into_bytes(),
+        );
+    }
+    outputs.add("--output", args.output.output.clone(), text.into_bytes());
+    outputs.write()
 }
 
 impl Render for Layout {

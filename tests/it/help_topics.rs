@@ -281,6 +281,16 @@ fn file_topics_name_every_field() {
             &layout,
             "name: a\ncourses: [{pitch: A3, zzz: 1}]\n".into(),
         ),
+        (
+            "layout-file",
+            &layout,
+            "name: a\nprefer: [{zzz: 1}]\ncourses: []\n".into(),
+        ),
+        (
+            "layout-file",
+            &layout,
+            "name: a\nlength_window: {zzz: 1}\ncourses: []\n".into(),
+        ),
         ("survey-file", &survey, "zzz: 1\n".into()),
         ("survey-file", &survey, "tunings: {zzz: 1}\n".into()),
         ("survey-file", &survey, "courses: {zzz: 1}\n".into()),
@@ -363,11 +373,18 @@ fn file_topic_examples_are_valid_files() {
         taut::sets::set::StringSet::from_text(block, "topic set", &own).unwrap();
     }
     let layouts = examples(&topic("layout-file"));
-    assert_eq!(layouts.len(), 1);
+    assert_eq!(layouts.len(), 2);
     let layout =
         taut::lengths::LayoutInput::from_text(layouts[0].clone(), "topic layout", stock).unwrap();
     let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
     assert_eq!(laid.string_count, 4);
+    // The second chooses every string: eight courses, each with a string of its kinds.
+    let layout =
+        taut::lengths::LayoutInput::from_text(layouts[1].clone(), "topic layout", stock).unwrap();
+    let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
+    assert_eq!(laid.courses.len(), 8);
+    assert!(laid.courses.iter().all(|c| c.chosen));
+    assert!(laid.jumps.is_empty(), "{:?}", laid.jumps);
 
     let surveys = examples(&topic("survey-file"));
     assert_eq!(surveys.len(), 1);

@@ -20,6 +20,7 @@ mod help_topics;
 mod hostile_outputs;
 mod hostile_pictures;
 mod lengths_courses;
+mod lengths_joint;
 mod lengths_solve;
 mod midi_tuning;
 mod output_safety;
