@@ -12,6 +12,7 @@ pub mod entry;
 pub mod frets;
 mod interval;
 mod quantities;
+pub mod raises;
 mod scalar_or_map;
 mod templates;
 mod tension;
@@ -26,6 +27,7 @@ pub use entry::StringEntryFile;
 pub use frets::FretSettings;
 pub use interval::Interval;
 pub use quantities::{Percent, ScaleLength};
+pub use raises::{Action, RaiseAmount, Raises};
 pub use scalar_or_map::{optional_scalar, Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
@@ -64,6 +66,8 @@ pub struct CourseSettings {
     /// The widest string the nut slot, bridge hole or tuner takes.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
     pub max_diameter: Option<Diameter>,
+    /// A lever or pedal on every course that does not give its own.
+    pub raises: Option<Raises>,
 }
 
 /// One string of a course.
@@ -144,6 +148,8 @@ pub struct Course {
     /// The string named outright for every string of the course that does not name its own:
     /// the player's own string, kept while the rest are solved.
     pub string: Option<StringEntryFile>,
+    /// The course's lever or pedal: the positions it can be set to above the open string.
+    pub raises: Option<Raises>,
 }
 
 /// The file's contents, as written.
@@ -220,6 +226,8 @@ pub struct CourseInput<'a> {
     pub strings: &'a [CourseString],
     /// The string the course names outright for its strings without their own.
     pub string: Option<&'a StringEntryFile>,
+    /// The course's lever or pedal (its own, else the defaults').
+    pub raises: Option<&'a Raises>,
 }
 
 impl CourseInput<'_> {
@@ -348,6 +356,7 @@ impl Instrument {
                 .map(Diameter::si),
             strings: &course.strings,
             string: course.string.as_ref(),
+            raises: course.raises.as_ref().or(self.defaults.raises.as_ref()),
         })
     }
 }

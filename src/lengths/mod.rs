@@ -56,7 +56,7 @@ use crate::error::{Error, Result};
 use crate::input::units::METRES_PER_INCH;
 use crate::input::units::{Force, Length};
 use crate::input::yaml::{self, PathStep};
-use crate::instrument::{CourseString, Interval, Percent, TensionSpec};
+use crate::instrument::{CourseString, Interval, Percent, Raises, TensionSpec};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
 use crate::sets::matching::cautions_for;
@@ -103,6 +103,7 @@ struct LayoutCourseFile {
     strings: Option<Vec<CourseString>>,
     tension: Option<TensionSpec>,
     kinds: Option<Vec<String>>,
+    raises: Option<Raises>,
 }
 
 /// A builder's rule that puts some kinds first for the courses on one side of a pitch, e.g.
@@ -145,6 +146,7 @@ struct LayoutFile {
     prefer: Vec<PreferRule>,
     length_window: Option<LengthWindowFile>,
     working_stress: Option<Percent>,
+    raises: Option<Raises>,
     courses: Vec<LayoutCourseFile>,
 }
 
@@ -169,6 +171,9 @@ pub struct LayoutCourseInput {
     pub first_interval: Interval,
     /// Its own tension, overriding the layout's.
     pub tension: Option<TensionSpec>,
+    /// Its lever or pedal (its own, else the layout's), carried into `--save-instrument`; a
+    /// pulling raise's highest position also bounds the stress a chosen string may take.
+    pub raises: Option<Raises>,
 }
 
 /// A checked layout request.

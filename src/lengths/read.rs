@@ -226,6 +226,7 @@ impl LayoutInput {
                 others: strings,
                 first_interval,
                 tension: course.tension,
+                raises: course.raises.or_else(|| file.raises.clone()),
             });
         }
         if input.tension.as_ref().is_some_and(TensionSpec::is_profile) && input.courses.len() < 2 {
@@ -268,6 +269,7 @@ impl LayoutInput {
                 others: Vec::new(),
                 first_interval: Interval::unison(),
                 tension: None,
+                raises: None,
             }],
             origin: "--pitch".to_string(),
             text: String::new(),

@@ -78,6 +78,9 @@ impl Layout {
                     );
                 }
             }
+            if let Some(raises) = &written.raises {
+                let _ = writeln!(out, "    raises: {}", raises.to_yaml_flow());
+            }
         }
         out
     }

@@ -398,7 +398,7 @@ fn first_strings(
         rules.push((hz, below, listed));
     }
     let mut needs = Vec::with_capacity(input.courses.len());
-    for (course, (pitch, goal)) in input.courses.iter().zip(pitched) {
+    for (index, (course, (pitch, goal))) in input.courses.iter().zip(pitched).enumerate() {
         let hz = pitch.hz * course.first_interval.ratio();
         let named_unit_mass = match &course.string {
             Some(named) => Some(named.resolve(kinds, materials)?.construction.unit_mass()),
@@ -421,10 +421,24 @@ fn first_strings(
                 ordered.push(kind);
             }
         }
+        // A pulling raise tightens the string by the square of its highest ratio.
+        let mut pull: f64 = 1.0;
+        if let Some(raises) = course
+            .raises
+            .as_ref()
+            .filter(|r| r.action == crate::instrument::Action::Pull)
+        {
+            for (_, amount) in &raises.positions {
+                let ratio = crate::plan::raises::ratio_of(amount, hz, tuning).map_err(|err| {
+                    input.point(err, &[PathStep::Key("courses"), PathStep::Index(index)])
+                })?;
+                pull = pull.max(ratio);
+            }
+        }
         needs.push(choose::Need {
             hz,
             goal: *goal,
-            pull: 1.0,
+            pull,
             named_unit_mass,
             kinds: ordered,
         });

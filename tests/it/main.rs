@@ -30,6 +30,7 @@ mod physics_wound;
 mod plan_choice;
 mod plan_cli;
 mod plan_properties;
+mod plan_raises;
 mod plan_several;
 mod plan_stock;
 mod plan_unreachable;
