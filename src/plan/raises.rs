@@ -123,14 +123,15 @@ pub fn apply(
             for (string_index, string) in course.strings.iter().enumerate() {
                 let stress = string.choice.stress_ratio * factor;
                 let open_stress = string.choice.stress_ratio;
-                let (kind, limit) = if stress > danger && open_stress <= danger {
-                    (WarningKind::StressDanger, danger)
+                // Only what the position adds: the open string's own stress is already flagged.
+                let raised = if stress > danger && open_stress <= danger {
+                    Some((WarningKind::StressDanger, danger))
                 } else if stress > caution && open_stress <= caution {
-                    (WarningKind::StressCaution, caution)
+                    Some((WarningKind::StressCaution, caution))
                 } else {
-                    (WarningKind::OffTarget, f64::NAN)
+                    None
                 };
-                if limit.is_finite() {
+                if let Some((kind, limit)) = raised {
                     course.warnings.push(Warning {
                         kind,
                         severity: kind.severity(),

@@ -240,6 +240,16 @@ fn file_topics_name_every_field() {
         (
             "instrument-file",
             &instrument,
+            "name: x\nscale_length: 1m\ncourses: [{pitch: A4, raises: {zzz: 1}}]\n".into(),
+        ),
+        (
+            "instrument-file",
+            &instrument,
+            "name: x\nscale_length: 1m\ncourses: [{pitch: A4, raises: {pedal: {zzz: 1}}}]\n".into(),
+        ),
+        (
+            "instrument-file",
+            &instrument,
             format!("name: x\ndefaults: {{tension: {{min: 1N, zzz: 1}}}}\n{one}"),
         ),
         ("stock-file", &stock, "zzz: 1\n".into()),
@@ -342,7 +352,7 @@ fn file_topic_examples_are_valid_files() {
     let stock = taut::strings::stock::Stock::builtin().unwrap();
     let options = taut::plan::solve::SolveOptions::default();
     let instruments = examples(&topic("instrument-file"));
-    assert_eq!(instruments.len(), 3, "{instruments:?}");
+    assert_eq!(instruments.len(), 4, "{instruments:?}");
     for block in &instruments {
         let instrument =
             taut::instrument::Instrument::from_text(block.clone(), "topic instrument").unwrap();

@@ -245,9 +245,9 @@ const NOTES: [&str; 7] = ["C", "D", "E", "F", "G", "A", "B"];
 proptest! {
     #![proptest_config(ProptestConfig::with_cases(24))]
 
-    /// Every solution `lengths` prints obeys Mersenne's law, f = (1/2L)·√(T/μ) (REFERENCES
-    /// §1.1; OpenStax *University Physics* Vol. 1 §16.3 for v = √(T/μ) and §16.6 for
-    /// λ = 2L), to 1e-9 relative, with the stated tension.
+    /// Every solution `lengths` prints obeys Mersenne's law, f = (1/2L)·√(T/μ),
+    /// REFERENCES §1.1 (OpenStax *University Physics* Vol. 1 §16.3 for v = √(T/μ) and §16.6
+    /// for λ = 2L), to 1e-9 relative, with the stated tension.
     #[test]
     fn every_printed_solution_obeys_mersennes_law(
         start in 14usize..35,

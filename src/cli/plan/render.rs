@@ -178,9 +178,7 @@ fn positions(out: &mut String, plan: &Plan, view: &View) {
     out.push('\n');
     wrap_into(
         out,
-        &format!(
-            "Levers and pedals, each course at each position (stop: gripped at the distance from the nut or top, the tension unchanged; pull: tightened on the same length). Stress is the course's highest:"
-        ),
+        "Levers and pedals, each course at each position (stop: gripped at the distance from the nut or top, the tension unchanged; pull: tightened on the same length). Stress is the course's highest:",
         view.width,
         "",
         "",
