@@ -423,6 +423,23 @@
 //! - *Provenance:* Sethares **read**; the attribution of the rule of 18 to Galilei's *Dialogo*
 //!   **from memory**; the distances and the ratio **derived**.
 //!
+//! ### 8.3 Levers, pedal discs and pulling changers
+//!
+//! ```text
+//! stop (lever, disc):   x = L·(1 − 1/r)    the grip, from the nut or top; T unchanged, L' = L/r
+//! pull (changer):       T' = T·r²          same length and μ (§1.2); stress grows by r² too
+//! ```
+//!
+//! - *Source:* §8.1 for the stop (a lever or a pedal disc stops the string as a fret does) and
+//!   §1.2 for the pull (T = μ(2Lf)² at fixed L and μ); that harp levers and pedal discs shorten
+//!   the string while the tension stays, and that a pedal harp's strings sound flat when open,
+//!   natural and sharp with one and two discs engaged, is common practice.
+//! - *Taken:* every position `taut plan` reports for a course's `raises`, the stress checked at
+//!   the highest position, the tension at the lowest and the load at the worst setting. The
+//!   small rise in tension as a lever deflects the string is left out.
+//! - *Provenance:* the formulas **derived**; the mechanisms **common practice**; the keys a
+//!   lever harp tuned in E-flat reaches (E-flat to E major, eight keys) **common practice**.
+//!
 //! ## 9 Working stress
 //!
 //! - *Sources:* Shigley, Table 10-5 (§4.3): music wire starts to take a set above 65–75 % of its

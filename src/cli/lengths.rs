@@ -56,6 +56,10 @@ pub struct LengthsArgs {
     /// `rated_load`).
     #[arg(long, value_name = "FORCE")]
     pub rated_load: Option<String>,
+    /// Also save the solved layout as an instrument file (each course's length and strings),
+    /// for `taut plan` (written together with the report: all or none).
+    #[arg(long, value_name = "FILE", requires = "layout")]
+    pub save_instrument: Option<output::Target>,
     #[command(flatten)]
     pub stock: StockArgs,
     #[command(flatten)]
@@ -140,19 +144,31 @@ pub fn run(args: LengthsArgs) -> Result<()> {
         pictures::add(&mut outputs, &plots, size, &charts)?;
     }
     if order.is_some() {
-        let rows = order_rows(&report, &input, &stock, args.order.marking)?;
+        let rows = order_rows(&report, &stock, args.order.marking)?;
         let view = View::new(&args.output, Some(&args.units));
         args.order.add(&mut outputs, &report.name, &rows, &view)?;
+    }
+    if let Some(target) = &args.save_instrument {
+        // The spec that loaded, so `plan` can load it back.
+        let tuning = args
+            .tuning
+            .clone()
+            .or_else(|| input.tuning.clone())
+            .unwrap_or_else(|| lengths::DEFAULT_TUNING.to_string());
+        outputs.add(
+            "--save-instrument",
+            Some(target.clone()),
+            report.instrument_text(&input, &tuning).into_bytes(),
+        );
     }
     outputs.add("--output", args.output.output.clone(), text.into_bytes());
     outputs.write()
 }
 
-/// The order sheet's rows of a layout: each course's strings as the layout names them, on the
-/// solved length (a layout states no anchor or post lengths, so no cut length).
+/// The order sheet's rows of a layout: each course's strings as solved (named by the layout or
+/// chosen from its kinds), on the solved length (a layout states no anchor or post lengths, so no cut length).
 fn order_rows(
     report: &Layout,
-    input: &LayoutInput,
     stock: &taut::strings::stock::Stock,
     marking: bool,
 ) -> Result<Vec<taut::charts::order::OrderRow>> {
@@ -160,9 +176,6 @@ fn order_rows(
     let (kinds, materials) = (stock.kinds(), stock.materials());
     let mut strings = Vec::new();
     for course in &report.courses {
-        let Some(given) = input.courses.iter().find(|c| c.course == course.course) else {
-            continue;
-        };
         let first = OrderString {
             course: course.course,
             string: 1,
@@ -170,22 +183,20 @@ fn order_rows(
             note_name: &course.pitch.note_name,
             pitch_hz: course.pitch.hz,
             kind: &course.string,
-            construction: given.string.resolve(kinds, materials)?.construction,
+            construction: course.entry.resolve(kinds, materials)?.construction,
             length_m: course.length_m,
             anchor_m: None,
             post_m: None,
             tension_n: course.tension_n,
         };
         strings.push(first);
-        for (index, (other, (_, written))) in
-            course.other_strings.iter().zip(&given.others).enumerate()
-        {
+        for (index, other) in course.other_strings.iter().enumerate() {
             strings.push(OrderString {
                 string: index + 2,
                 pitch: &other.interval,
                 pitch_hz: other.pitch_hz,
                 kind: &other.string,
-                construction: written.resolve(kinds, materials)?.construction,
+                construction: other.entry.resolve(kinds, materials)?.construction,
                 tension_n: other.tension_n,
                 ..first
             });

@@ -41,6 +41,14 @@ pub const EXAMPLES: &[(&str, &str)] = &[
         include_str!("../../examples/steel-guitar-set.yaml"),
     ),
     (
+        "lever-harp-36-layout",
+        include_str!("../../examples/lever-harp-36-layout.yaml"),
+    ),
+    (
+        "psaltery-44-layout",
+        include_str!("../../examples/psaltery-44-layout.yaml"),
+    ),
+    (
         "psaltery-layout",
         include_str!("../../examples/psaltery-layout.yaml"),
     ),
@@ -106,7 +114,12 @@ pub fn sniff(text: &str) -> Option<FileKind> {
     if has("divisions") || has("ratios") || has("cents") || has("hertz") || has("chain") {
         return Some(FileKind::Tuning);
     }
-    if has("materials") || has("catalogs") || has("kinds") {
+    // A layout's `kinds` is a list of ids; a stock file's is a list of kind definitions.
+    let kinds_defined = map
+        .get("kinds")
+        .and_then(serde_yaml::Value::as_sequence)
+        .is_some_and(|list| list.iter().any(serde_yaml::Value::is_mapping));
+    if has("materials") || has("catalogs") || kinds_defined {
         return Some(FileKind::Stock);
     }
     if has("course_1") || has("offset_cents") || has("rank_by") {
@@ -200,7 +213,10 @@ mod tests {
             let kind = sniff(text);
             let expected = match *name {
                 "steel-guitar-set" => FileKind::StringSet,
-                "psaltery-layout" | "zither-pairs-layout" => FileKind::Layout,
+                "psaltery-layout"
+                | "zither-pairs-layout"
+                | "lever-harp-36-layout"
+                | "psaltery-44-layout" => FileKind::Layout,
                 "survey-fourths" => FileKind::SurveySettings,
                 _ => FileKind::Instrument,
             };

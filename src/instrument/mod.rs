@@ -12,6 +12,7 @@ pub mod entry;
 pub mod frets;
 mod interval;
 mod quantities;
+pub mod raises;
 mod scalar_or_map;
 mod templates;
 mod tension;
@@ -26,6 +27,7 @@ pub use entry::StringEntryFile;
 pub use frets::FretSettings;
 pub use interval::Interval;
 pub use quantities::{Percent, ScaleLength};
+pub use raises::{Action, RaiseAmount, Raises};
 pub use scalar_or_map::{optional_scalar, Expecting, NoDetail, ScalarOrMap};
 pub use templates::{template, TEMPLATES};
 pub use tension::{Shape, TensionGoal, TensionSpec};
@@ -71,6 +73,8 @@ pub struct CourseSettings {
     /// String from the far end of the vibrating length (nut, bridge pin) to the tuning post.
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
     pub post_length: Option<Length>,
+    /// A lever or pedal on every course that does not give its own.
+    pub raises: Option<Raises>,
 }
 
 /// One string of a course.
@@ -157,6 +161,8 @@ pub struct Course {
     /// This course's post length (see [`CourseSettings::post_length`]).
     #[serde(default, deserialize_with = "scalar_or_map::optional_scalar")]
     pub post_length: Option<Length>,
+    /// The course's lever or pedal: the positions it can be set to above the open string.
+    pub raises: Option<Raises>,
 }
 
 /// The file's contents, as written.
@@ -237,6 +243,8 @@ pub struct CourseInput<'a> {
     pub anchor_m: Option<f64>,
     /// String from the vibrating length to the tuning post, m, where the file states it.
     pub post_m: Option<f64>,
+    /// The course's lever or pedal (its own, else the defaults').
+    pub raises: Option<&'a Raises>,
 }
 
 impl CourseInput<'_> {
@@ -373,6 +381,7 @@ impl Instrument {
                 .post_length
                 .or(self.defaults.post_length)
                 .map(Length::si),
+            raises: course.raises.as_ref().or(self.defaults.raises.as_ref()),
         })
     }
 }

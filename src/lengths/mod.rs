@@ -53,10 +53,10 @@ use std::path::Path;
 use serde::{Deserialize, Serialize};
 
 use crate::error::{Error, Result};
-use crate::input::units::Force;
 use crate::input::units::METRES_PER_INCH;
+use crate::input::units::{Force, Length};
 use crate::input::yaml::{self, PathStep};
-use crate::instrument::{CourseString, Interval, Percent, TensionSpec};
+use crate::instrument::{CourseString, Interval, Percent, Raises, TensionSpec};
 use crate::plan::warning::{with_load_check, StringRef, Warning, WarningKind};
 use crate::plan::CoursePitch;
 use crate::sets::matching::cautions_for;
@@ -67,7 +67,9 @@ use crate::strings::select::{self, Checks, StressLimits, Warnings};
 use crate::strings::stock::Stock;
 use crate::tuning::{self, Tuning};
 
+pub mod choose;
 mod read;
+mod save;
 #[allow(unused_imports)]
 use read::*;
 mod solve;
@@ -100,6 +102,31 @@ struct LayoutCourseFile {
     string: Option<StringEntryFile>,
     strings: Option<Vec<CourseString>>,
     tension: Option<TensionSpec>,
+    kinds: Option<Vec<String>>,
+    raises: Option<Raises>,
+}
+
+/// A builder's rule that puts some kinds first for the courses on one side of a pitch, e.g.
+/// `{below: G2, kinds: [harp-wound-nylon]}` for "wound below G2".
+#[derive(Debug, Clone, PartialEq, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct PreferRule {
+    /// The rule applies to courses sounding below this pitch.
+    pub below: Option<String>,
+    /// The rule applies to courses sounding above this pitch.
+    pub above: Option<String>,
+    /// The kinds put first, in order.
+    pub kinds: Vec<String>,
+}
+
+/// The shortest and longest vibrating length the frame allows, as written.
+#[derive(Debug, Clone, Copy, PartialEq, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct LengthWindowFile {
+    #[serde(default, deserialize_with = "crate::instrument::optional_scalar")]
+    min: Option<Length>,
+    #[serde(default, deserialize_with = "crate::instrument::optional_scalar")]
+    max: Option<Length>,
 }
 
 #[derive(Debug, Clone, Deserialize)]
@@ -114,6 +141,12 @@ struct LayoutFile {
     max_step: Option<Percent>,
     #[serde(default, deserialize_with = "crate::instrument::optional_scalar")]
     rated_load: Option<Force>,
+    kinds: Option<Vec<String>>,
+    #[serde(default)]
+    prefer: Vec<PreferRule>,
+    length_window: Option<LengthWindowFile>,
+    working_stress: Option<Percent>,
+    raises: Option<Raises>,
     courses: Vec<LayoutCourseFile>,
 }
 
@@ -124,15 +157,23 @@ pub struct LayoutCourseInput {
     pub course: u32,
     /// The pitch in the tuning's addressing.
     pub pitch: String,
-    /// The first string, which sets the length.
-    pub string: SetString,
+    /// The first string, which sets the length; `None` when it is chosen from `kinds`
+    /// together with the length (see [`choose`]).
+    pub string: Option<SetString>,
+    /// The kinds a chosen string may be, in the course's order of preference (the course's own
+    /// `kinds`, else the layout's); empty when every string is named.
+    pub kinds: Vec<String>,
     /// The course's other strings on the same length (a pair, an octave string), with their
-    /// intervals from the course pitch; the first string's interval is `first_interval`.
-    pub others: Vec<(Interval, SetString)>,
+    /// intervals from the course pitch; the first string's interval is `first_interval`. A
+    /// string without its own is chosen from `kinds` once the length is known.
+    pub others: Vec<(Interval, Option<SetString>)>,
     /// The first string's interval from the course pitch (unison unless written otherwise).
     pub first_interval: Interval,
     /// Its own tension, overriding the layout's.
     pub tension: Option<TensionSpec>,
+    /// Its lever or pedal (its own, else the layout's), carried into `--save-instrument`; a
+    /// pulling raise's highest position also bounds the stress a chosen string may take.
+    pub raises: Option<Raises>,
 }
 
 /// A checked layout request.
@@ -150,6 +191,12 @@ pub struct LayoutInput {
     pub max_step: f64,
     /// The most total tension the frame is rated for, N.
     pub rated_load: Option<f64>,
+    /// The builder's rules that put some kinds first on one side of a pitch.
+    pub prefer: Vec<PreferRule>,
+    /// The shortest and longest vibrating length the frame allows, m.
+    pub length_window: (Option<f64>, Option<f64>),
+    /// The working stress chosen strings aim at, as a fraction of the breaking stress.
+    pub working_stress: f64,
     /// Courses in order.
     pub courses: Vec<LayoutCourseInput>,
     origin: String,
@@ -215,6 +262,15 @@ pub struct LayoutCourse {
     pub feel: Feel,
     /// The course's other strings on the same length.
     pub other_strings: Vec<LayoutString>,
+    /// Whether the string was chosen by `taut` (from the course's kinds) rather than named.
+    #[serde(skip_serializing_if = "std::ops::Not::not")]
+    pub chosen: bool,
+    /// The string as a layout or instrument file writes it, for `--save-instrument`.
+    #[serde(skip)]
+    pub entry: SetString,
+    /// The tension window the course was solved in, N (min, max), for `--save-instrument`.
+    #[serde(skip)]
+    pub window_n: (Option<f64>, Option<f64>),
 }
 
 /// A further string of a course (a pair's second string, an octave string) on the length the
@@ -237,6 +293,9 @@ pub struct LayoutString {
     pub stress_ratio: Option<f64>,
     /// Pitch at which it breaks on that length, Hz, if known.
     pub break_pitch_hz: Option<f64>,
+    /// The string as a layout or instrument file writes it, for `--save-instrument`.
+    #[serde(skip)]
+    pub entry: SetString,
 }
 
 /// What kind of jump.
@@ -247,6 +306,8 @@ pub enum JumpKind {
     Step,
     /// The length moves against the pitch.
     FoldBack,
+    /// The length lies outside the layout's `length_window`.
+    OutsideLengthWindow,
 }
 
 /// An impractical step between two neighbouring courses.

@@ -22,10 +22,83 @@ impl LayoutInput {
                 .max_step
                 .map_or(DEFAULT_MAX_STEP, |percent| percent.fraction()),
             rated_load: file.rated_load.map(Force::si),
+            prefer: file.prefer,
+            length_window: file.length_window.map_or((None, None), |w| {
+                (w.min.map(Length::si), w.max.map(Length::si))
+            }),
+            working_stress: file
+                .working_stress
+                .map_or(choose::DEFAULT_WORKING_STRESS, |p| p.fraction()),
             courses: Vec::with_capacity(file.courses.len()),
             origin: origin.to_string(),
             text,
         };
+        if !(input.working_stress > 0.0 && input.working_stress < 1.0) {
+            return Err(input.point(
+                Error::input(
+                    "the working stress is a share of the breaking stress, above 0% and below 100%",
+                ),
+                &[PathStep::Key("working_stress")],
+            ));
+        }
+        if let (Some(min), Some(max)) = input.length_window {
+            if min > max {
+                return Err(input.point(
+                    Error::input("the length window's `min` is above its `max`"),
+                    &[PathStep::Key("length_window")],
+                ));
+            }
+        }
+        let check_kinds =
+            |input: &LayoutInput, ids: &[String], path: &[PathStep<'_>]| -> Result<()> {
+                if ids.is_empty() || ids.len() > crate::plan::solve::MAX_KINDS_PER_LIST {
+                    return Err(input.point(
+                        Error::input(format!(
+                            "a kind list holds 1 to {} kinds; this one has {}",
+                            crate::plan::solve::MAX_KINDS_PER_LIST,
+                            ids.len()
+                        )),
+                        path,
+                    ));
+                }
+                for (index, id) in ids.iter().enumerate() {
+                    let mut at = path.to_vec();
+                    at.push(PathStep::Index(index));
+                    stock.kinds().get(id).map_err(|err| input.point(err, &at))?;
+                }
+                Ok(())
+            };
+        if let Some(ids) = &file.kinds {
+            check_kinds(&input, ids, &[PathStep::Key("kinds")])?;
+        }
+        for (index, rule) in input.prefer.iter().enumerate() {
+            let at = |key: &'static str| {
+                [
+                    PathStep::Key("prefer"),
+                    PathStep::Index(index),
+                    PathStep::Key(key),
+                ]
+            };
+            match (&rule.below, &rule.above) {
+                (Some(_), Some(_)) | (None, None) => {
+                    return Err(input.point(
+                        Error::input("a `prefer` rule names one pitch, `below` or `above`")
+                            .help("e.g. `{below: G2, kinds: [harp-wound-nylon]}`"),
+                        &[PathStep::Key("prefer"), PathStep::Index(index)],
+                    ))
+                }
+                (Some(pitch), None) | (None, Some(pitch)) if pitch.trim().is_empty() => {
+                    let key = if rule.below.is_some() {
+                        "below"
+                    } else {
+                        "above"
+                    };
+                    return Err(input.point(Error::input("the pitch is empty"), &at(key)));
+                }
+                _ => {}
+            }
+            check_kinds(&input, &rule.kinds, &at("kinds"))?;
+        }
         if file.courses.is_empty() {
             return Err(input.point(
                 Error::input("the layout has no courses; list at least one"),
@@ -84,6 +157,10 @@ impl LayoutInput {
                 })
             };
             let course_path = [PathStep::Key("courses"), PathStep::Index(index)];
+            if let Some(ids) = &course.kinds {
+                check_kinds(&input, ids, &at("kinds"))?;
+            }
+            let course_kinds = course.kinds.or_else(|| file.kinds.clone());
             let shared = match course.string {
                 Some(entry) => {
                     let mut path = course_path.to_vec();
@@ -118,21 +195,22 @@ impl LayoutInput {
                 if layout_string.kinds.is_some() {
                     path.push(PathStep::Key("kinds"));
                     return Err(input.point(
-                        Error::input("a layout names its strings, so `kinds` has no use here")
-                            .help("give the string with `string: {kind: …, diameter: …}`"),
+                        Error::input("in a layout, the kinds to choose from belong to the course")
+                            .help("give the course `kinds: [...]`, or the string `string: {kind: …, diameter: …}`"),
                         &path,
                     ));
                 }
                 let string = match (layout_string.string, &shared) {
                     (Some(entry), _) => {
                         path.push(PathStep::Key("string"));
-                        check(entry, &path)?
+                        Some(check(entry, &path)?)
                     }
-                    (None, Some(shared)) => shared.clone(),
+                    (None, Some(shared)) => Some(shared.clone()),
+                    (None, None) if course_kinds.is_some() => None,
                     (None, None) => {
                         return Err(input.point(
                             Error::input(format!("course {number} does not say its string"))
-                                .help("give the course a `string: {kind: plain-steel, diameter: 0.012in}`, or each of its strings one"),
+                                .help("give the course a `string: {kind: plain-steel, diameter: 0.012in}`, each of its strings one, or `kinds: [...]` to choose from"),
                             &course_path,
                         ))
                     }
@@ -144,9 +222,11 @@ impl LayoutInput {
                 course: number,
                 pitch: course.pitch.trim().to_string(),
                 string,
+                kinds: course_kinds.unwrap_or_default(),
                 others: strings,
                 first_interval,
                 tension: course.tension,
+                raises: course.raises.or_else(|| file.raises.clone()),
             });
         }
         if input.tension.as_ref().is_some_and(TensionSpec::is_profile) && input.courses.len() < 2 {
@@ -178,13 +258,18 @@ impl LayoutInput {
             tension: Some(tension),
             max_step: DEFAULT_MAX_STEP,
             rated_load: None,
+            prefer: Vec::new(),
+            length_window: (None, None),
+            working_stress: choose::DEFAULT_WORKING_STRESS,
             courses: vec![LayoutCourseInput {
                 course: 1,
                 pitch: pitch.trim().to_string(),
-                string,
+                string: Some(string),
+                kinds: Vec::new(),
                 others: Vec::new(),
                 first_interval: Interval::unison(),
                 tension: None,
+                raises: None,
             }],
             origin: "--pitch".to_string(),
             text: String::new(),

@@ -18,8 +18,8 @@ pub fn solve_layout(
     let mut warnings = Vec::new();
     let mut jumps = Vec::new();
     let mut previous_first_hz = 0.0;
-    // First pass: each course's pitch, its first string and its tension goal.
-    let mut prepared = Vec::with_capacity(count);
+    // First pass: each course's pitch and its tension goal.
+    let mut pitched = Vec::with_capacity(count);
     for (index, course) in input.courses.iter().enumerate() {
         let at_key = |key: &'static str| {
             [
@@ -47,11 +47,22 @@ pub fn solve_layout(
                     &[PathStep::Key("courses"), PathStep::Index(index)],
                 )
             })?;
-        let goal = spec.goal_at(position);
-        let string = course
-            .string
-            .resolve(kinds, materials)
-            .map_err(|err| input.point(err, &at_key("string")))?;
+        pitched.push((resolved, spec.goal_at(position)));
+    }
+    // Strings named outright, and the others chosen together with the lengths.
+    let firsts = first_strings(input, tuning, stock, limits, &pitched)?;
+    let mut prepared = Vec::with_capacity(count);
+    for (index, ((resolved, goal), written)) in pitched.into_iter().zip(&firsts).enumerate() {
+        let string = written.resolve(kinds, materials).map_err(|err| {
+            input.point(
+                err,
+                &[
+                    PathStep::Key("courses"),
+                    PathStep::Index(index),
+                    PathStep::Key("string"),
+                ],
+            )
+        })?;
         prepared.push((resolved, goal, string));
     }
     // The window lets each course move to smooth the bridge line (see `smooth`): in the
@@ -80,6 +91,30 @@ pub fn solve_layout(
                 .map_or(targets[i], |max| log_length(max, i))
         })
         .collect();
+    let (mut targets, mut lows, mut highs) = (targets, lows, highs);
+    // The frame's length window narrows each course's own, where the tension window lets it.
+    let (shortest, longest) = (
+        input.length_window.0.map_or(f64::NEG_INFINITY, f64::ln),
+        input.length_window.1.map_or(f64::INFINITY, f64::ln),
+    );
+    for i in 0..count {
+        let (mut low, mut high) = (lows[i].max(shortest), highs[i].min(longest));
+        // A chosen string was chosen below the caution stress: the smoothing keeps it there
+        // (T = μ(2fL)² ≤ caution·T_break gives the longest length).
+        if input.courses[i].string.is_none() {
+            let string = &prepared[i].2;
+            if let Some(breaking) = string.construction.breaking_tension() {
+                let cap = log_length(limits.caution * (1.0 - 1e-6) * breaking, i);
+                high = high.min(cap);
+                low = low.min(high);
+            }
+        }
+        if low <= high {
+            lows[i] = low;
+            highs[i] = high;
+            targets[i] = targets[i].clamp(low, high);
+        }
+    }
     let smoothed = smooth::smooth(&targets, &lows, &highs, TARGET_PULL);
     for (index, (course, (resolved, goal, string))) in
         input.courses.iter().zip(prepared).enumerate()
@@ -131,7 +166,26 @@ pub fn solve_layout(
         };
         stress_warning(&mut warnings, at, &evaluation, limits);
         let mut other_strings = Vec::with_capacity(course.others.len());
-        for (other_index, (interval, written)) in course.others.iter().enumerate() {
+        for (other_index, (interval, named)) in course.others.iter().enumerate() {
+            let hz = resolved.hz * interval.ratio();
+            let written = match named {
+                Some(named) => named.clone(),
+                None => chosen_other(course, &firsts[index], kinds, tension_n, length_m, hz)
+                    .ok_or_else(|| {
+                        input.point(
+                            Error::input(format!(
+                                "course {}: none of its kinds has a gauge for string {}",
+                                course.course,
+                                other_index + 2
+                            )),
+                            &[
+                                PathStep::Key("courses"),
+                                PathStep::Index(index),
+                                PathStep::Key("kinds"),
+                            ],
+                        )
+                    })?,
+            };
             let other = written.resolve(kinds, materials).map_err(|err| {
                 input.point(
                     err,
@@ -143,7 +197,6 @@ pub fn solve_layout(
                     ],
                 )
             })?;
-            let hz = resolved.hz * interval.ratio();
             let other_evaluation =
                 select::evaluate(&other.construction, hz, length_m, &stress_checks);
             let at = StringRef {
@@ -160,6 +213,7 @@ pub fn solve_layout(
                 tension_n: other_evaluation.tension,
                 stress_ratio: other_evaluation.stress_ratio,
                 break_pitch_hz: other_evaluation.break_frequency,
+                entry: written,
             });
         }
         // f·L = √(T/μ)/2: the step of the wave speed between neighbours.
@@ -209,11 +263,33 @@ pub fn solve_layout(
                 });
             }
         }
-        let diameter = course.string.diameter();
+        if !(input
+            .length_window
+            .0
+            .is_none_or(|min| length_m >= min * (1.0 - 1e-9))
+            && input
+                .length_window
+                .1
+                .is_none_or(|max| length_m <= max * (1.0 + 1e-9)))
+        {
+            jumps.push(Jump {
+                kind: JumpKind::OutsideLengthWindow,
+                from_course: course.course,
+                to_course: course.course,
+                value_pct: 0.0,
+                message: format!(
+                    "Course {}: the length {} mm lies outside the length window; choose another string or widen the tension window.",
+                    course.course,
+                    crate::input::units::short_number(length_m * 1000.0)
+                ),
+            });
+        }
+        let entry = firsts[index].clone();
+        let diameter = entry.diameter();
         courses.push(LayoutCourse {
             course: course.course,
             pitch: resolved,
-            string: course.string.label(),
+            string: entry.label(),
             diameter_mm: diameter.map(|d| d * 1000.0),
             diameter_in: diameter.map(|d| d / METRES_PER_INCH),
             unit_mass_kg_per_m: unit_mass,
@@ -225,6 +301,9 @@ pub fn solve_layout(
             step_pct,
             feel: feel::feel(&string.construction, tension_n, length_m, &options.feel),
             other_strings,
+            chosen: course.string.is_none(),
+            entry,
+            window_n: (goal.min_n, goal.max_n),
         });
         previous_first_hz = first_hz;
     }
@@ -273,4 +352,156 @@ fn stress_warning(
             ));
         }
     }
+}
+
+/// The first string of every course: the one named, or the one chosen with the length
+/// ([`choose::choose`]).
+fn first_strings(
+    input: &LayoutInput,
+    tuning: &Tuning,
+    stock: &Stock,
+    limits: StressLimits,
+    pitched: &[(CoursePitch, crate::instrument::TensionGoal)],
+) -> Result<Vec<SetString>> {
+    let (kinds, materials) = (stock.kinds(), stock.materials());
+    if input.courses.iter().all(|course| course.string.is_some()) {
+        return Ok(input
+            .courses
+            .iter()
+            .filter_map(|course| course.string.clone())
+            .collect());
+    }
+    // The rules' pitches, resolved once.
+    let mut rules = Vec::with_capacity(input.prefer.len());
+    for (index, rule) in input.prefer.iter().enumerate() {
+        let (key, written, below) = match (&rule.below, &rule.above) {
+            (Some(pitch), _) => ("below", pitch, true),
+            (None, Some(pitch)) => ("above", pitch, false),
+            (None, None) => continue,
+        };
+        let hz = CoursePitch::resolve(written.trim(), tuning)
+            .map_err(|err| {
+                input.point(
+                    err,
+                    &[
+                        PathStep::Key("prefer"),
+                        PathStep::Index(index),
+                        PathStep::Key(key),
+                    ],
+                )
+            })?
+            .hz;
+        let mut listed = Vec::with_capacity(rule.kinds.len());
+        for id in &rule.kinds {
+            listed.push(kinds.get(id)?);
+        }
+        rules.push((hz, below, listed));
+    }
+    let mut needs = Vec::with_capacity(input.courses.len());
+    for (index, (course, (pitch, goal))) in input.courses.iter().zip(pitched).enumerate() {
+        let hz = pitch.hz * course.first_interval.ratio();
+        let named_unit_mass = match &course.string {
+            Some(named) => Some(named.resolve(kinds, materials)?.construction.unit_mass()),
+            None => None,
+        };
+        let mut ordered: Vec<&crate::strings::kind::StringKind> = Vec::new();
+        for (rule_hz, below, listed) in &rules {
+            let applies = if *below { hz < *rule_hz } else { hz > *rule_hz };
+            if applies {
+                for kind in listed {
+                    if !ordered.iter().any(|k| k.id == kind.id) {
+                        ordered.push(kind);
+                    }
+                }
+            }
+        }
+        for id in &course.kinds {
+            let kind = kinds.get(id)?;
+            if !ordered.iter().any(|k| k.id == kind.id) {
+                ordered.push(kind);
+            }
+        }
+        // A pulling raise tightens the string by the square of its highest ratio.
+        let mut pull: f64 = 1.0;
+        if let Some(raises) = course
+            .raises
+            .as_ref()
+            .filter(|r| r.action == crate::instrument::Action::Pull)
+        {
+            for (_, amount) in &raises.positions {
+                let ratio = crate::plan::raises::ratio_of(amount, hz, tuning).map_err(|err| {
+                    input.point(err, &[PathStep::Key("courses"), PathStep::Index(index)])
+                })?;
+                pull = pull.max(ratio);
+            }
+        }
+        needs.push(choose::Need {
+            hz,
+            goal: *goal,
+            pull,
+            named_unit_mass,
+            kinds: ordered,
+        });
+    }
+    let picks = choose::choose(
+        &needs,
+        &choose::Limits {
+            stress: limits,
+            working: input.working_stress,
+            shortest: input.length_window.0,
+            longest: input.length_window.1,
+        },
+    );
+    input
+        .courses
+        .iter()
+        .zip(needs.iter().zip(picks))
+        .enumerate()
+        .map(
+            |(index, (course, (need, pick)))| match (&course.string, pick) {
+                (Some(named), _) => Ok(named.clone()),
+                (None, Some((kind, gauge))) => Ok(SetString::Kind {
+                    kind: need.kinds[kind].id.as_str().to_string(),
+                    diameter: need.kinds[kind].gauges()[gauge].diameter,
+                    core_diameter: None,
+                }),
+                (None, None) => Err(input.point(
+                    Error::input(format!(
+                        "course {}: none of its kinds has a gauge to choose",
+                        course.course
+                    )),
+                    &[PathStep::Key("courses"), PathStep::Index(index)],
+                )),
+            },
+        )
+        .collect()
+}
+
+/// A further string of a course without one of its own, chosen from the course's kinds on the
+/// solved length for the first string's tension ([`choose::choose_other`]).
+fn chosen_other(
+    course: &LayoutCourseInput,
+    first: &SetString,
+    kinds: &crate::strings::kind::StringKinds,
+    tension: f64,
+    length: f64,
+    hz: f64,
+) -> Option<SetString> {
+    // The first string's kind first, so a pair stays a pair of one kind.
+    let first_kind = match first {
+        SetString::Kind { kind, .. } => kinds.get(kind).ok(),
+        SetString::Measured { .. } => None,
+    };
+    let mut listed: Vec<_> = first_kind.into_iter().collect();
+    for kind in course.kinds.iter().filter_map(|id| kinds.get(id).ok()) {
+        if !listed.iter().any(|k| k.id == kind.id) {
+            listed.push(kind);
+        }
+    }
+    let (kind, gauge) = choose::choose_other(&listed, tension, length, hz)?;
+    Some(SetString::Kind {
+        kind: kind.id.as_str().to_string(),
+        diameter: kind.gauges()[gauge].diameter,
+        core_diameter: None,
+    })
 }

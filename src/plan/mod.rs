@@ -5,6 +5,7 @@
 //! names are a stable interface for scripts.
 
 mod flags;
+pub mod raises;
 pub mod remedy;
 pub mod several;
 pub mod solve;
@@ -38,6 +39,13 @@ pub struct Plan {
     /// Every warning of the plan: those of each course (repeated from the course) and those of
     /// the whole instrument (with `course` null), in course order.
     pub warnings: Vec<Warning>,
+    /// The total tension with every lever and pedal at its heaviest setting, N (present when a
+    /// course has raises).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub worst_setting_total_n: Option<f64>,
+    /// The keys the levers and pedals reach (present when a course has raises).
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub reachable_keys: Vec<String>,
 }
 
 /// One course of the plan.
@@ -55,6 +63,9 @@ pub struct CoursePlan {
     pub strings: Vec<StringPlan>,
     /// Warnings about this course.
     pub warnings: Vec<Warning>,
+    /// The positions of the course's lever or pedal, lowest written first (absent without one).
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub positions: Vec<raises::PositionPlan>,
 }
 
 /// One planned string.

@@ -99,7 +99,9 @@ pub fn solve(
         string_slot += course.strings.len();
         courses.push(context.solve(&lists.arena, ranges, &mut best_per_kind)?);
     }
-    Ok(finish_plan(instrument, tuning, courses, limits))
+    let mut plan = finish_plan(instrument, tuning, courses, limits);
+    crate::plan::raises::apply(instrument, tuning, &mut plan, tension)?;
+    Ok(plan)
 }
 
 /// The whole plan from its courses: the total load, its check against the rated load, and
@@ -130,6 +132,8 @@ pub(crate) fn finish_plan(
         caution_stress_ratio: limits.caution,
         danger_stress_ratio: limits.danger,
         warnings,
+        worst_setting_total_n: None,
+        reachable_keys: Vec::new(),
     }
 }
 

@@ -1043,6 +1043,94 @@ fn layout_file_pitch_out_of_range() {
     );
 }
 
+const HARP_LAYOUT: &str = include_str!("../../examples/lever-harp-36-layout.yaml");
+
+/// The harp layout with one change, through `taut lengths … --save-instrument`: refused with
+/// file, line and field, neither the report nor the instrument file written.
+fn harp_layout_refuses(from: &str, to: &str, field: &str) -> String {
+    let layout = changed(HARP_LAYOUT, from, to);
+    let stderr = with_guitar_refuses(
+        &[("layout.yaml", &layout)],
+        &[
+            "lengths",
+            "layout.yaml",
+            "--save-instrument",
+            "harp.yaml",
+            "-o",
+            "report.txt",
+        ],
+    );
+    assert!(
+        stderr.contains("layout.yaml:") && stderr.contains(&format!("field `{field}`")),
+        "{stderr}"
+    );
+    stderr
+}
+
+#[test]
+fn layout_file_unknown_kind_to_choose_from() {
+    let stderr = harp_layout_refuses(
+        "kinds: [nylon, copper-wound-steel]",
+        "kinds: [nylom, copper-wound-steel]",
+        "kinds[0]",
+    );
+    assert!(stderr.contains("did you mean `nylon`?"), "{stderr}");
+}
+
+#[test]
+fn layout_file_prefer_rule_with_two_pitches() {
+    harp_layout_refuses(
+        "{below: G2, kinds:",
+        "{below: G2, above: C6, kinds:",
+        "prefer[0]",
+    );
+}
+
+#[test]
+fn layout_file_prefer_rule_pitch_the_tuning_cannot_address() {
+    harp_layout_refuses("{below: G2,", "{below: Q2,", "prefer[0].below");
+}
+
+#[test]
+fn layout_file_length_window_upside_down() {
+    harp_layout_refuses(
+        "length_window: {min: 60mm, max: 1450mm}",
+        "length_window: {min: 1450mm, max: 60mm}",
+        "length_window",
+    );
+}
+
+#[test]
+fn layout_file_negative_length_window() {
+    harp_layout_refuses(
+        "length_window: {min: 60mm,",
+        "length_window: {min: -60mm,",
+        "length_window.min",
+    );
+}
+
+#[test]
+fn layout_file_working_stress_out_of_range() {
+    harp_layout_refuses(
+        "kinds: [nylon, copper-wound-steel]",
+        "working_stress: 120%\nkinds: [nylon, copper-wound-steel]",
+        "working_stress",
+    );
+}
+
+#[test]
+fn layout_file_course_without_string_or_kinds() {
+    let layout = changed(HARP_LAYOUT, "kinds: [nylon, copper-wound-steel]\n", "");
+    let stderr = with_guitar_refuses(
+        &[("layout.yaml", &layout)],
+        &["lengths", "layout.yaml", "-o", "report.txt"],
+    );
+    assert!(
+        stderr.contains("does not say its string") && stderr.contains("kinds"),
+        "{stderr}"
+    );
+}
+
 #[test]
 fn inline_string_without_unit() {
     let stderr = with_guitar_refuses(

@@ -240,6 +240,16 @@ fn file_topics_name_every_field() {
         (
             "instrument-file",
             &instrument,
+            "name: x\nscale_length: 1m\ncourses: [{pitch: A4, raises: {zzz: 1}}]\n".into(),
+        ),
+        (
+            "instrument-file",
+            &instrument,
+            "name: x\nscale_length: 1m\ncourses: [{pitch: A4, raises: {pedal: {zzz: 1}}}]\n".into(),
+        ),
+        (
+            "instrument-file",
+            &instrument,
             format!("name: x\ndefaults: {{tension: {{min: 1N, zzz: 1}}}}\n{one}"),
         ),
         ("stock-file", &stock, "zzz: 1\n".into()),
@@ -280,6 +290,16 @@ fn file_topics_name_every_field() {
             "layout-file",
             &layout,
             "name: a\ncourses: [{pitch: A3, zzz: 1}]\n".into(),
+        ),
+        (
+            "layout-file",
+            &layout,
+            "name: a\nprefer: [{zzz: 1}]\ncourses: []\n".into(),
+        ),
+        (
+            "layout-file",
+            &layout,
+            "name: a\nlength_window: {zzz: 1}\ncourses: []\n".into(),
         ),
         ("survey-file", &survey, "zzz: 1\n".into()),
         ("survey-file", &survey, "tunings: {zzz: 1}\n".into()),
@@ -332,7 +352,7 @@ fn file_topic_examples_are_valid_files() {
     let stock = taut::strings::stock::Stock::builtin().unwrap();
     let options = taut::plan::solve::SolveOptions::default();
     let instruments = examples(&topic("instrument-file"));
-    assert_eq!(instruments.len(), 3, "{instruments:?}");
+    assert_eq!(instruments.len(), 4, "{instruments:?}");
     for block in &instruments {
         let instrument =
             taut::instrument::Instrument::from_text(block.clone(), "topic instrument").unwrap();
@@ -363,11 +383,18 @@ fn file_topic_examples_are_valid_files() {
         taut::sets::set::StringSet::from_text(block, "topic set", &own).unwrap();
     }
     let layouts = examples(&topic("layout-file"));
-    assert_eq!(layouts.len(), 1);
+    assert_eq!(layouts.len(), 2);
     let layout =
         taut::lengths::LayoutInput::from_text(layouts[0].clone(), "topic layout", stock).unwrap();
     let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
     assert_eq!(laid.string_count, 4);
+    // The second chooses every string: eight courses, each with a string of its kinds.
+    let layout =
+        taut::lengths::LayoutInput::from_text(layouts[1].clone(), "topic layout", stock).unwrap();
+    let laid = taut::lengths::lay_out(&layout, stock, &Default::default()).unwrap();
+    assert_eq!(laid.courses.len(), 8);
+    assert!(laid.courses.iter().all(|c| c.chosen));
+    assert!(laid.jumps.is_empty(), "{:?}", laid.jumps);
 
     let surveys = examples(&topic("survey-file"));
     assert_eq!(surveys.len(), 1);

@@ -48,6 +48,8 @@ fn reports() -> Vec<Vec<&'static str>> {
         "steel-guitar-12edo",
     ]);
     all.push(vec!["lengths", "psaltery-layout"]);
+    all.push(vec!["lengths", "lever-harp-36-layout"]);
+    all.push(vec!["lengths", "psaltery-44-layout"]);
     all.push(vec!["lengths", "psaltery-layout", "--force-unit", "kgf"]);
     for tuning in [
         "12edo",

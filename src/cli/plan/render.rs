@@ -152,6 +152,7 @@ pub fn table(plan: &Plan, view: &View) -> String {
         view,
     );
     wrap_into(&mut out, &total, view.width, "", "");
+    positions(&mut out, plan, view);
     push_closing(
         &mut out,
         None,
@@ -161,6 +162,89 @@ pub fn table(plan: &Plan, view: &View) -> String {
         view,
     );
     out
+}
+
+/// The lever and pedal positions of every course that has them, the load at the worst setting
+/// and the keys reached; nothing for an instrument without raises.
+fn positions(out: &mut String, plan: &Plan, view: &View) {
+    if plan
+        .courses
+        .iter()
+        .all(|course| course.positions.is_empty())
+    {
+        return;
+    }
+    let unit = view.length.symbol();
+    out.push('\n');
+    wrap_into(
+        out,
+        "Levers and pedals, each course at each position (stop: gripped at the distance from the nut or top, the tension unchanged; pull: tightened on the same length). Stress is the course's highest:",
+        view.width,
+        "",
+        "",
+    );
+    for course in plan.courses.iter().filter(|c| !c.positions.is_empty()) {
+        let parts: Vec<String> = course
+            .positions
+            .iter()
+            .map(|p| {
+                let place = match p.stop_from_nut_m {
+                    Some(stop) if p.ratio > 1.0 => format!(
+                        ", stop at {} {unit}, sounding {} {unit}",
+                        crate::cli::text::length(stop, view.length),
+                        crate::cli::text::length(p.length_m, view.length)
+                    ),
+                    Some(_) => String::new(),
+                    None => ", pulled".to_string(),
+                };
+                format!(
+                    "{} ({}) {} {:.2} Hz{place}, {}, stress {:.0}%",
+                    p.position,
+                    p.raise,
+                    p.note_name,
+                    p.pitch_hz,
+                    force_with_unit(p.tension_n, view.force),
+                    p.stress_ratio * 100.0
+                )
+            })
+            .collect();
+        wrap_into(
+            out,
+            &format!(
+                "Course {} {}: {}.",
+                course.course,
+                user(&course.pitch.written),
+                parts.join("; ")
+            ),
+            view.width,
+            "  ",
+            "    ",
+        );
+    }
+    if let Some(worst) = plan.worst_setting_total_n {
+        let sentence = total_sentence(
+            format!(
+                "At the worst setting (every lever and pedal at its heaviest) the total is {}",
+                force_with_unit(worst, view.force)
+            ),
+            worst,
+            plan.rated_load_n,
+            view,
+        );
+        wrap_into(out, &sentence, view.width, "", "");
+    }
+    if !plan.reachable_keys.is_empty() {
+        wrap_into(
+            out,
+            &format!(
+                "Keys the levers and pedals reach: {}.",
+                plan.reachable_keys.join(", ")
+            ),
+            view.width,
+            "",
+            "",
+        );
+    }
 }
 
 fn flags_text(choice: &StringChoice) -> String {
@@ -258,6 +342,89 @@ fn fit_lines(text: &str, width: usize) -> String {
     fitted
 }
 
+/// The CSV of a plan with levers or pedals: one row per string and position (a course without
+/// raises has its `open` row), the figures of each string at that position.
+fn positions_csv(plan: &Plan) -> Result<String> {
+    let mut rows = Vec::new();
+    for course in &plan.courses {
+        for (index, string) in course.strings.iter().enumerate() {
+            let warnings = warning_kinds(
+                course
+                    .warnings
+                    .iter()
+                    .filter(|warning| warning.string == Some(index + 1)),
+            );
+            let row = |position: &'_ str,
+                       raise: &'_ str,
+                       action: &'_ str,
+                       ratio: f64,
+                       stop: Option<f64>,
+                       length: f64,
+                       factor: f64| {
+                CsvPositionRow {
+                    course: course.course,
+                    string: index + 1,
+                    interval: string.interval.clone(),
+                    pitch: course.pitch.written.clone(),
+                    kind: string.choice.kind.to_string(),
+                    gauge: string.choice.gauge.to_string(),
+                    position: position.to_string(),
+                    raise: raise.to_string(),
+                    action: action.to_string(),
+                    ratio: sig(ratio),
+                    pitch_hz: sig(string.pitch_hz * ratio),
+                    stop_from_nut_m: sig_opt(stop),
+                    length_m: sig(length),
+                    tension_n: sig(string.choice.tension_n * factor),
+                    stress_ratio: sig(string.choice.stress_ratio * factor),
+                    warnings: warnings.clone(),
+                }
+            };
+            if course.positions.is_empty() {
+                rows.push(row("open", "0 steps", "", 1.0, None, course.length_m, 1.0));
+            }
+            for p in &course.positions {
+                let factor = if p.stop_from_nut_m.is_some() {
+                    1.0
+                } else {
+                    p.ratio * p.ratio
+                };
+                rows.push(row(
+                    &p.position,
+                    &p.raise,
+                    &p.action,
+                    p.ratio,
+                    p.stop_from_nut_m,
+                    p.length_m,
+                    factor,
+                ));
+            }
+        }
+    }
+    crate::cli::output::csv_text(rows)
+}
+
+/// One CSV row per string and lever or pedal position.
+#[derive(Serialize)]
+struct CsvPositionRow {
+    course: u32,
+    string: usize,
+    interval: String,
+    pitch: String,
+    kind: String,
+    gauge: String,
+    position: String,
+    raise: String,
+    action: String,
+    ratio: f64,
+    pitch_hz: f64,
+    stop_from_nut_m: Option<f64>,
+    length_m: f64,
+    tension_n: f64,
+    stress_ratio: f64,
+    warnings: String,
+}
+
 /// One CSV row per string.
 #[derive(Serialize)]
 struct CsvRow<'a> {
@@ -287,6 +454,13 @@ struct CsvRow<'a> {
 /// The CSV table: one row per string, warning kinds joined with `;`, numbers to 6 significant
 /// digits.
 pub fn csv(plan: &Plan) -> Result<String> {
+    if plan
+        .courses
+        .iter()
+        .any(|course| !course.positions.is_empty())
+    {
+        return positions_csv(plan);
+    }
     let mut rows = Vec::new();
     for course in &plan.courses {
         for (index, string) in course.strings.iter().enumerate() {

@@ -292,6 +292,7 @@ impl CourseContext<'_> {
             length_m: self.course.length_m,
             strings,
             warnings,
+            positions: Vec::new(),
         }
     }
 
