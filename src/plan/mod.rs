@@ -26,6 +26,11 @@ pub struct Plan {
     pub instrument: String,
     /// The tuning's name.
     pub tuning: String,
+    /// The tuning as it was given (`just-5-limit@E2`, `31edo@A4=415`, a file's path), so that
+    /// the export reads back in the same tuning; absent where the plan was solved from a tuning
+    /// alone. The name above drops the reference, which a ratio or degree pitch depends on.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub tuning_spec: Option<String>,
     /// One entry per course, in the order the instrument lists them.
     pub courses: Vec<CoursePlan>,
     /// Sum of the tensions of every string, in newtons.

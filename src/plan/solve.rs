@@ -47,7 +47,17 @@ pub struct SolveOptions {
 /// `stock` holds the string kinds to choose from ([`Stock::builtin`] for the shipped ones).
 pub fn plan(instrument: &Instrument, stock: &Stock, options: &SolveOptions) -> Result<Plan> {
     let tuning = tuning_for(instrument, options.tuning.as_deref(), "--tuning")?;
-    solve(instrument, &tuning, stock, options.tension.as_ref())
+    let mut plan = solve(instrument, &tuning, stock, options.tension.as_ref())?;
+    plan.tuning_spec = Some(
+        options
+            .tuning
+            .as_deref()
+            .or(instrument.tuning.as_deref())
+            .unwrap_or(DEFAULT_TUNING)
+            .trim()
+            .to_string(),
+    );
+    Ok(plan)
 }
 
 /// The tuning to use for `instrument`: the one given on the command line as `flag` (errors
@@ -126,6 +136,7 @@ pub(crate) fn finish_plan(
     Plan {
         instrument: instrument.name.clone(),
         tuning: tuning.name().to_string(),
+        tuning_spec: None,
         courses,
         total_tension_n,
         rated_load_n,

@@ -328,3 +328,40 @@ fn a_plan_export_that_cannot_say_a_strings_core_is_refused() {
     assert!(stderr.contains("courses[5].strings[0]"), "{stderr}");
     assert!(stderr.contains("--save-set"), "{stderr}");
 }
+
+/// A plan in a tuning placed by a reference (`just-5-limit@E2`, on which the ratio pitches
+/// depend) reads back in that same tuning: the export keeps the tuning as given beside its name.
+/// Before, it kept only `just-5-limit`, and the audit refused its own plan.
+#[test]
+fn a_plan_in_a_referenced_tuning_reads_back_in_that_tuning() {
+    let folder = tempfile::tempdir().unwrap();
+    let instrument = write_file(folder.path(), "just.yaml", JUST_GUITAR);
+    let instrument = instrument.to_str().unwrap();
+    let plan = json(&["plan", instrument]);
+    assert_eq!(plan["tuning_spec"], "just-5-limit@E2");
+    for format in ["json", "yaml"] {
+        let export = folder.path().join(format!("plan.{format}"));
+        let output = taut()
+            .args(["plan", instrument, "--format", format, "-o"])
+            .arg(&export)
+            .output()
+            .unwrap();
+        assert!(output.status.success());
+        let audit = json(&["audit", instrument, "--set", export.to_str().unwrap()]);
+        for (planned, audited) in plan["courses"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .zip(audit["courses"].as_array().unwrap())
+        {
+            let (t_plan, t_audit) = (
+                number(&planned["strings"][0]["tension_n"]),
+                number(&audited["strings"][0]["tension_n"]),
+            );
+            assert!(
+                (t_plan - t_audit).abs() < 1e-6 * t_plan,
+                "{format}: {t_plan} vs {t_audit}"
+            );
+        }
+    }
+}

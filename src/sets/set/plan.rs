@@ -59,11 +59,14 @@ pub(super) fn plan_as_set_file(text: &str, origin: &str, stock: &Stock) -> Resul
         } else if probe.caution_stress_ratio.is_some() {
             let plan: Plan = yaml::parse(text, origin)?;
             let name = format!("{} in {}", plan.instrument, plan.tuning);
-            // The tuning's name loads for a shipped or inline tuning; a file tuning's display
-            // name may not, and then the set records no tuning rather than a wrong one.
-            let tuning = crate::tuning::load(&plan.tuning)
-                .is_ok()
-                .then(|| plan.tuning.clone());
+            // The tuning as given loads back with its reference (a ratio pitch depends on
+            // it); an older export has only the name, which loads for a shipped or inline
+            // tuning. What does not load is left out rather than recorded wrong.
+            let spec = plan
+                .tuning_spec
+                .clone()
+                .unwrap_or_else(|| plan.tuning.clone());
+            let tuning = crate::tuning::load(&spec).is_ok().then_some(spec);
             (plan, name, tuning, Vec::new())
         } else {
             return Ok(None);
