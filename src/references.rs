@@ -125,8 +125,8 @@
 //!   stretched by a fraction ε and carries μ/(1+ε), so it pulls T/(1+ε) for the same pitch
 //!   (§1.2). For normal-tension classical trebles sold at 0.72, 0.82 and 1.02 mm on 650 mm,
 //!   `taut` gives 85.2, 62.0 and 60.5 N (E4, B3, G3); Woodhouse's measured set (§5.4) pulls
-//!   70.3, 53.4 and 58.3 N, 4-21 % less (its diameters are not given). `taut` keeps the
-//!   unstretched figure: it is the upper bound, so a load or a stress is never understated, and
+//!   70.3, 53.4 and 58.3 N, 4-18 % less; the figure shown is 4-21 % above the measured one
+//!   (its diameters are not given). `taut` keeps the unstretched figure: it is the upper bound, so a load or a stress is never understated, and
 //!   the stretch at pitch depends on the string's make and history, which `taut` cannot know.
 //! - *Provenance:* the density finding **read** (the paper's results section, in a copy of the
 //!   published article); the μ/(1+ε) relation **derived** (mass conserved over a longer string);
