@@ -63,6 +63,7 @@ mod strings_select;
 mod strings_several;
 mod strings_stiffness;
 mod survey;
+mod survey_bounds;
 mod survey_order;
 mod survey_reading;
 mod survey_sweep;
