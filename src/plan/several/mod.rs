@@ -238,7 +238,11 @@ pub fn solve(
         .map(|(variant, courses)| TuningBlock {
             variant: variant.name.clone(),
             retuned_courses: variant.retuned_courses.clone(),
-            plan: finish_plan(&variant.instrument, &variant.tuning, courses, limits),
+            plan: Plan {
+                // The variant's tuning as written, so the block reads back in that tuning.
+                tuning_spec: Some(variant.spec.clone()),
+                ..finish_plan(&variant.instrument, &variant.tuning, courses, limits)
+            },
         })
         .collect();
     let risky = !conflicts.is_empty()

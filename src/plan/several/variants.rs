@@ -5,7 +5,7 @@
 use crate::error::{Error, Result};
 use crate::input::yaml::PathStep;
 use crate::instrument::{Instrument, MAX_VARIANTS};
-use crate::plan::solve::tuning_for;
+use crate::plan::solve::{tuning_for, DEFAULT_TUNING};
 use crate::tuning::course_pitch::CoursePitch;
 use crate::tuning::{self, Tuning};
 
@@ -16,6 +16,8 @@ pub struct Resolved {
     pub name: String,
     /// The tuning.
     pub tuning: Tuning,
+    /// The tuning as written (`12edo@A4=415hz`, a file's path), so a report can load it back.
+    pub spec: String,
     /// The instrument with this variant's pitches written into its courses.
     pub instrument: Instrument,
     /// The course numbers whose pitch this variant changes, ascending.
@@ -57,6 +59,7 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
             out.push(Resolved {
                 name: name.to_string(),
                 tuning,
+                spec: name.to_string(),
                 instrument: instrument.clone(),
                 retuned_courses: Vec::new(),
             });
@@ -80,10 +83,17 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
         }
     }
     let base = tuning_for(instrument, tunings.first().map(String::as_str), flag)?;
+    let base_spec = tunings
+        .first()
+        .or(instrument.tuning.as_ref())
+        .map_or(DEFAULT_TUNING, String::as_str)
+        .trim()
+        .to_string();
     if instrument.variants.is_empty() {
         return Ok(vec![Resolved {
             name: base.name().to_string(),
             tuning: base,
+            spec: base_spec,
             instrument: instrument.clone(),
             retuned_courses: Vec::new(),
         }]);
@@ -127,6 +137,10 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
         out.push(Resolved {
             name: variant.name.trim().to_string(),
             tuning,
+            spec: variant
+                .tuning
+                .as_deref()
+                .map_or_else(|| base_spec.clone(), |spec| spec.trim().to_string()),
             instrument: retuned,
             retuned_courses: variant.pitches.keys().copied().collect(),
         });
