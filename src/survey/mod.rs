@@ -344,6 +344,9 @@ impl<'a> Survey<'a> {
             },
             PatternRule::Steps(_) => "steps".to_string(),
             PatternRule::ModesOf(scale) => format!("mode {} of {}", pair.pattern + 1, scale.len()),
+            PatternRule::ScaleModes(scale) => {
+                format!("mode {} of {}", pair.pattern + 1, scale.name)
+            }
         };
         CoursePattern {
             rule,

@@ -193,10 +193,27 @@ impl<'a> Survey<'a> {
             })
         };
         let mut degrees = Vec::with_capacity(courses);
-        let start = match &self.settings.pattern {
-            PatternRule::ModesOf(scale) => scale[..pattern].iter().sum(),
-            _ => 0,
+        // A scale's modes walk its steps; a named scale's steps are its notes placed in this
+        // tuning.
+        let placed;
+        let modes: Option<&[i64]> = match &self.settings.pattern {
+            PatternRule::ModesOf(scale) => Some(scale),
+            PatternRule::ScaleModes(scale) => {
+                placed = scale.steps_in(tuning).ok_or_else(|| {
+                    self.settings.point(
+                        Error::input(format!(
+                            "`{}` cannot place the notes of {}",
+                            tuning.name(),
+                            scale.name
+                        )),
+                        &[PathStep::Key("courses"), PathStep::Key("modes_of_scale")],
+                    )
+                })?;
+                Some(&placed)
+            }
+            _ => None,
         };
+        let start = modes.map_or(0, |scale| scale[..pattern].iter().sum());
         // Intervals and steps are taken in the direction the courses run (down when course 1
         // is the highest).
         let sign = self.order.direction.sign();
@@ -223,14 +240,17 @@ impl<'a> Survey<'a> {
                 PatternRule::Steps(steps) => previous + sign * steps[course - 1],
                 // Up, mode p climbs from scale note p by steps p, p+1, …; down, it falls from
                 // the same note by the steps below it: p−1, p−2, …
-                PatternRule::ModesOf(scale) => match self.order.direction {
-                    Direction::Up => previous + scale[(pattern + course - 1) % scale.len()],
-                    Direction::Down => {
-                        let len = scale.len() as i64;
-                        let below = (pattern as i64 - course as i64).rem_euclid(len);
-                        previous - scale[below as usize]
+                PatternRule::ModesOf(_) | PatternRule::ScaleModes(_) => {
+                    let scale = modes.unwrap_or_default();
+                    match self.order.direction {
+                        Direction::Up => previous + scale[(pattern + course - 1) % scale.len()],
+                        Direction::Down => {
+                            let len = scale.len() as i64;
+                            let below = (pattern as i64 - course as i64).rem_euclid(len);
+                            previous - scale[below as usize]
+                        }
                     }
-                },
+                }
             };
             degrees.push(next);
         }

@@ -138,6 +138,66 @@ pub enum PatternRule {
     Steps(Vec<i64>),
     /// Every mode of this scale (degree steps, one period): one course per scale note.
     ModesOf(Vec<i64>),
+    /// Every mode of a shipped or written tuning used as a scale (`modes_of_scale`): its notes
+    /// are placed on the nearest degrees of each surveyed tuning, so one scale gives its modes
+    /// in every EDO.
+    ScaleModes(Scale),
+}
+
+/// A scale for [`PatternRule::ScaleModes`]: its notes within one period.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Scale {
+    /// The tuning's name, for the report.
+    pub name: String,
+    /// Each note's cents above the first, ascending, the first 0.
+    pub note_cents: Vec<f64>,
+    /// The period in cents (1200 for an octave).
+    pub period_cents: f64,
+}
+
+impl Scale {
+    /// Loads `spec` (a shipped tuning, an inline spec or a file) as a scale: one period of it.
+    fn load(spec: &str) -> Result<Scale> {
+        let tuning = crate::tuning::load(spec)?;
+        let notes = tuning
+            .degrees_per_period()
+            .filter(|&n| (1..=MAX_SCALE_STEPS).contains(&n))
+            .ok_or_else(|| {
+                Error::input(format!(
+                    "`{}` is no scale of 1 to {MAX_SCALE_STEPS} notes a period",
+                    tuning.name()
+                ))
+            })?;
+        let cents = |k: i64| {
+            tuning.cents_above_degree_zero(k).ok_or_else(|| {
+                Error::input(format!("degree {k} of `{}` does not exist", tuning.name()))
+            })
+        };
+        let note_cents = (0..notes as i64).map(cents).collect::<Result<Vec<f64>>>()?;
+        Ok(Scale {
+            name: tuning.name().to_string(),
+            note_cents,
+            period_cents: cents(notes as i64)?,
+        })
+    }
+
+    /// The scale's steps in `tuning`'s degrees: each note on the degree nearest it (a step may
+    /// be 0 where the tuning is coarser than the scale), or `None` where the tuning cannot place
+    /// a note.
+    pub fn steps_in(&self, tuning: &crate::tuning::Tuning) -> Option<Vec<i64>> {
+        let degree = |cents: f64| {
+            tuning
+                .nearest_to_cents_above_degree_zero(cents)
+                .map(|d| d.degree)
+        };
+        let mut degrees = self
+            .note_cents
+            .iter()
+            .map(|&c| degree(c))
+            .collect::<Option<Vec<i64>>>()?;
+        degrees.push(degree(self.period_cents)?);
+        Some(degrees.windows(2).map(|w| w[1] - w[0]).collect())
+    }
 }
 
 impl PatternRule {
@@ -145,6 +205,7 @@ impl PatternRule {
     pub fn count(&self) -> u64 {
         match self {
             PatternRule::ModesOf(scale) => scale.len() as u64,
+            PatternRule::ScaleModes(scale) => scale.note_cents.len() as u64,
             _ => 1,
         }
     }
@@ -227,6 +288,8 @@ struct PatternSpec {
     steps: Option<Vec<i64>>,
     #[serde(default)]
     modes_of: Option<Vec<i64>>,
+    #[serde(default)]
+    modes_of_scale: Option<String>,
     #[serde(default)]
     direction: Option<Direction>,
 }
@@ -315,10 +378,19 @@ impl Settings {
             file.courses.nearest_to,
             file.courses.steps,
             file.courses.modes_of,
+            file.courses.modes_of_scale,
         ) {
-            (Some(interval), None, None) => PatternRule::NearestTo(interval.0),
-            (None, Some(steps), None) => PatternRule::Steps(steps),
-            (None, None, Some(scale)) => {
+            (Some(interval), None, None, None) => PatternRule::NearestTo(interval.0),
+            (None, Some(steps), None, None) => PatternRule::Steps(steps),
+            (None, None, None, Some(spec)) => PatternRule::ScaleModes(
+                Scale::load(&spec).map_err(|err| {
+                    settings.point(
+                        err,
+                        &[PathStep::Key("courses"), PathStep::Key("modes_of_scale")],
+                    )
+                })?,
+            ),
+            (None, None, Some(scale), None) => {
                 let at = [PathStep::Key("courses"), PathStep::Key("modes_of")];
                 if scale.is_empty() || scale.len() > MAX_SCALE_STEPS {
                     return Err(settings.point(
@@ -340,7 +412,7 @@ impl Settings {
             _ => {
                 return Err(settings.point(
                     Error::input(
-                        "give exactly one of `nearest_to`, `steps` and `modes_of` under `courses`",
+                        "give exactly one of `nearest_to`, `steps`, `modes_of` and `modes_of_scale` under `courses`",
                     )
                     .help("e.g. `nearest_to: 4/3` for neighbouring courses a fourth apart"),
                     &pattern_path,

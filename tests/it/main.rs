@@ -66,6 +66,7 @@ mod survey;
 mod survey_bounds;
 mod survey_order;
 mod survey_reading;
+mod survey_scale_modes;
 mod survey_sweep;
 mod table_snapshots;
 mod tuning_bad_input;
