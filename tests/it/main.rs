@@ -9,6 +9,7 @@ mod calibration_common_sets;
 mod charts_exports;
 mod charts_pictures;
 mod common;
+mod explore_api;
 mod convert_plan;
 mod convert_transpose;
 mod feel_fletcher;
