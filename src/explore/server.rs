@@ -354,40 +354,72 @@ fn body<T: serde::de::DeserializeOwned>(bytes: &Bytes) -> Result<T> {
     })
 }
 
+/// The reply to a request the API read but whose input the library refused (a YAML mistake,
+/// an unknown tuning): an answer like any other, status 200 with `{"refused": {...}}`, because
+/// the page shows it inline and the browser would log a 4xx status as a fault. Statuses of 400
+/// and above are for requests the page never makes: no token, a foreign origin, a body too
+/// large or not JSON, an unknown call.
+#[derive(Serialize)]
+struct Refused<'a> {
+    refused: &'a ErrorReply,
+}
+
+fn answer<T: Serialize>(result: Result<T>) -> Response {
+    match result {
+        Ok(value) => json_response(StatusCode::OK, &value),
+        Err(error) => json_response(
+            StatusCode::OK,
+            &Refused {
+                refused: &ErrorReply::from_error(&error),
+            },
+        ),
+    }
+}
+
+/// Reads the request body as `R` (400 when it is not that JSON), then answers with `work`.
+fn with<R, T>(bytes: &Bytes, work: impl FnOnce(&R) -> Result<T>) -> Response
+where
+    R: serde::de::DeserializeOwned,
+    T: Serialize,
+{
+    match body::<R>(bytes) {
+        Ok(request) => answer(work(&request)),
+        Err(error) => refuse(StatusCode::BAD_REQUEST, &error),
+    }
+}
+
 /// Runs one API call and writes its reply.
 pub(crate) fn call_api(name: &str, bytes: &Bytes, instrument: &str, origin: &str) -> Response {
-    fn reply<T: Serialize>(result: Result<T>) -> Response {
-        match result {
-            Ok(value) => json_response(StatusCode::OK, &value),
-            Err(error) => refuse(StatusCode::BAD_REQUEST, &error),
-        }
-    }
     match name {
-        "start" => reply(api::start(instrument, origin)),
-        "example" => reply(body(bytes).and_then(|r| api::example(&r))),
-        "read" => reply(body(bytes).map(|r| api::read(&r))),
-        "write" => reply(body(bytes).and_then(|r| api::write(&r))),
-        "plan" => reply(body(bytes).and_then(|r| api::plan(&r))),
-        "tuning" => reply(body(bytes).and_then(|r| api::tuning(&r))),
-        "frets" => reply(body(bytes).and_then(|r| api::frets(&r))),
-        "audit" => reply(body(bytes).and_then(|r| api::audit(&r))),
-        "survey" => reply(body(bytes).and_then(|r| api::survey(&r))),
-        "sound" => reply(body(bytes).and_then(|r| api::sound(&r))),
-        "export" => match body(bytes).and_then(|r| api::export(&r)) {
-            Ok(file) => {
-                let mut response = bytes_response(StatusCode::OK, file.content_type, file.bytes);
-                let disposition = format!(
-                    "attachment; filename=\"{}\"",
-                    file.file_name.replace(['"', '\\'], "_")
-                );
-                if let Ok(value) = HeaderValue::from_str(&disposition) {
-                    response
-                        .headers_mut()
-                        .insert(header::CONTENT_DISPOSITION, value);
-                }
-                response
-            }
+        "start" => answer(api::start(instrument, origin)),
+        "example" => with(bytes, api::example),
+        "read" => with(bytes, |r| Ok(api::read(r))),
+        "write" => with(bytes, api::write),
+        "plan" => with(bytes, api::plan),
+        "tuning" => with(bytes, api::tuning),
+        "frets" => with(bytes, api::frets),
+        "audit" => with(bytes, api::audit),
+        "survey" => with(bytes, api::survey),
+        "sound" => with(bytes, api::sound),
+        "export" => match body::<api::ExportRequest>(bytes) {
             Err(error) => refuse(StatusCode::BAD_REQUEST, &error),
+            Ok(request) => match api::export(&request) {
+                Ok(file) => {
+                    let mut response =
+                        bytes_response(StatusCode::OK, file.content_type, file.bytes);
+                    let disposition = format!(
+                        "attachment; filename=\"{}\"",
+                        file.file_name.replace(['"', '\\'], "_")
+                    );
+                    if let Ok(value) = HeaderValue::from_str(&disposition) {
+                        response
+                            .headers_mut()
+                            .insert(header::CONTENT_DISPOSITION, value);
+                    }
+                    response
+                }
+                Err(error) => answer::<()>(Err(error)),
+            },
         },
         _ => refuse_with(
             StatusCode::NOT_FOUND,

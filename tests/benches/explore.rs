@@ -78,16 +78,18 @@ fn bench_explore(c: &mut Criterion) {
     ] {
         let plain = request_body(&text, false);
         let with_charts = request_body(&text, true);
-        c.bench_function(&format!("explore plan, server time, 200 courses, {name}"), |b| {
-            b.iter(|| server_time(&plain))
-        });
+        c.bench_function(
+            &format!("explore plan, server time, 200 courses, {name}"),
+            |b| b.iter(|| server_time(&plain)),
+        );
         c.bench_function(
             &format!("explore plan with charts, server time, 200 courses, {name}"),
             |b| b.iter(|| server_time(&with_charts)),
         );
-        c.bench_function(&format!("explore plan over HTTP, 200 courses, {name}"), |b| {
-            b.iter(|| http_round_trip(port, &path, &plain))
-        });
+        c.bench_function(
+            &format!("explore plan over HTTP, 200 courses, {name}"),
+            |b| b.iter(|| http_round_trip(port, &path, &plain)),
+        );
     }
 }
 

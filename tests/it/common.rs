@@ -144,7 +144,10 @@ impl Explorer {
         use std::io::{Read, Write};
         let mut stream = std::net::TcpStream::connect(("127.0.0.1", self.port)).unwrap();
         let mut head = format!("{method} {path} HTTP/1.1\r\n");
-        if !headers.iter().any(|(name, _)| name.eq_ignore_ascii_case("host")) {
+        if !headers
+            .iter()
+            .any(|(name, _)| name.eq_ignore_ascii_case("host"))
+        {
             head.push_str(&format!("Host: 127.0.0.1:{}\r\n", self.port));
         }
         for (name, value) in headers {
@@ -205,9 +208,8 @@ impl HttpResponse {
             let mut decoded = Vec::new();
             let mut rest = &body[..];
             while let Some(end) = rest.windows(2).position(|w| w == b"\r\n") {
-                let size =
-                    usize::from_str_radix(String::from_utf8_lossy(&rest[..end]).trim(), 16)
-                        .unwrap_or(0);
+                let size = usize::from_str_radix(String::from_utf8_lossy(&rest[..end]).trim(), 16)
+                    .unwrap_or(0);
                 if size == 0 {
                     break;
                 }

@@ -8,9 +8,23 @@ use serde_json::{json, Value};
 
 use crate::common::{example_text, taut, write_file, Explorer};
 
+/// The error of a refused request: `error` for what the guard or the HTTP layer refuses,
+/// `refused` for input the library refuses (an answer, status 200).
 fn error_of(bytes: &[u8]) -> Value {
     let value: Value = serde_json::from_slice(bytes).unwrap();
+    if value["refused"].is_object() {
+        return value["refused"].clone();
+    }
     value["error"].clone()
+}
+
+/// A call whose input the library refuses: status 200 and the refusal.
+fn refused(explorer: &Explorer, name: &str, body: &Value) -> Value {
+    let (status, bytes) = explorer.call(name, body);
+    assert_eq!(status, 200, "a refusal is an answer");
+    let value: Value = serde_json::from_slice(&bytes).unwrap();
+    assert!(value["refused"].is_object(), "not refused: {value}");
+    value["refused"].clone()
 }
 
 fn cli_json(args: &[&str]) -> Value {
@@ -113,10 +127,7 @@ fn a_foreign_host_or_origin_is_refused() {
 fn an_oversized_or_non_json_body_is_refused() {
     let explorer = Explorer::start("guitar-19edo");
     let plan = format!("{}api/plan", explorer.path);
-    let huge = format!(
-        "{{\"instrument\": \"{}\"}}",
-        "#".repeat(2 * 1024 * 1024)
-    );
+    let huge = format!("{{\"instrument\": \"{}\"}}", "#".repeat(2 * 1024 * 1024));
     let response = explorer.request(
         "POST",
         &plan,
@@ -188,12 +199,12 @@ fn plan_answers_what_taut_plan_prints() {
 fn bad_instruments_get_file_line_and_field() {
     let explorer = Explorer::start("guitar-19edo");
     let text = "name: x\nscale_length: 648mm\nsize: 3\ncourses: [{pitch: E4}]\n";
-    let (status, body) = explorer.call(
+    let refusal = refused(
+        &explorer,
         "plan",
         &json!({"instrument": text, "origin": "mine.yaml"}),
     );
-    assert_eq!(status, 400);
-    let error = error_of(&body);
+    let error = refusal;
     assert_eq!(error["origin"], "mine.yaml");
     assert_eq!(error["line"], 3);
     assert_eq!(error["field"], "size");
@@ -211,12 +222,12 @@ fn bad_instruments_get_file_line_and_field() {
     assert!(broken["document"].is_null());
     assert!(broken["error"]["line"].as_u64().is_some());
     // A tension option that does not read names its option.
-    let (status, body) = explorer.call(
+    let refusal = refused(
+        &explorer,
         "plan",
         &json!({"instrument": example_text("guitar-19edo"), "tension": "70"}),
     );
-    assert_eq!(status, 400);
-    assert_eq!(error_of(&body)["origin"], "--tension");
+    assert_eq!(refusal["origin"], "--tension");
 }
 
 #[test]
@@ -238,9 +249,8 @@ fn the_form_round_trip_keeps_the_instrument() {
     let before = explorer.ok("plan", &json!({"instrument": original}));
     let after = explorer.ok("plan", &json!({"instrument": again}));
     assert_eq!(before["plan"], after["plan"]);
-    let (status, body) = explorer.call("write", &json!({"document": {"name": "x"}}));
-    assert_eq!(status, 400);
-    assert_eq!(error_of(&body)["origin"], "document");
+    let refusal = refused(&explorer, "write", &json!({"document": {"name": "x"}}));
+    assert_eq!(refusal["origin"], "document");
 }
 
 #[test]
@@ -248,9 +258,8 @@ fn tuning_frets_and_audit_answer_what_their_commands_print() {
     let explorer = Explorer::start("guitar-19edo");
     let listing = explorer.ok("tuning", &json!({"tuning": "19edo"}));
     assert_eq!(listing, cli_json(&["tuning", "show", "19edo"]));
-    let (status, body) = explorer.call("tuning", &json!({"tuning": "0edo"}));
-    assert_eq!(status, 400);
-    assert!(error_of(&body)["text"].as_str().unwrap().contains("0edo"));
+    let refusal = refused(&explorer, "tuning", &json!({"tuning": "0edo"}));
+    assert!(refusal["text"].as_str().unwrap().contains("0edo"));
     let frets = explorer.ok(
         "frets",
         &json!({"instrument": example_text("guitar-19edo")}),
@@ -275,13 +284,13 @@ fn tuning_frets_and_audit_answer_what_their_commands_print() {
         assert_eq!(audit, cli, "{what}");
         assert_eq!(audit["courses_ok"], 34);
     }
-    let (status, body) = explorer.call(
+    let refusal = refused(
+        &explorer,
         "audit",
         &json!({"instrument": example_text("lever-harp-34"), "set": "name: s\ncourses: 3\n",
                 "set_origin": "strings.yaml"}),
     );
-    assert_eq!(status, 400);
-    let error = error_of(&body);
+    let error = refusal;
     assert_eq!(error["origin"], "strings.yaml");
     assert_eq!(error["line"], 2);
 }
@@ -322,24 +331,26 @@ fn the_survey_map_agrees_with_taut_survey() {
         let offsets = map["offsets"].as_array().unwrap();
         let column = offsets
             .iter()
-            .position(|o| (o.as_f64().unwrap() - result["offset_cents"].as_f64().unwrap()).abs() < 1e-9)
+            .position(|o| {
+                (o.as_f64().unwrap() - result["offset_cents"].as_f64().unwrap()).abs() < 1e-9
+            })
             .unwrap();
         let row = rows
             .iter()
             .find(|row| row["tuning"] == result["tuning"])
             .unwrap();
-        let expected = if result["verdict"] == "stringable" { 2 } else { 1 };
+        let expected = if result["verdict"] == "stringable" {
+            2
+        } else {
+            1
+        };
         assert_eq!(row["verdicts"][column], expected);
     }
     let mut too_big = request.clone();
     too_big["edos"] = json!({"from": 5, "to": 200});
     too_big["offsets"] = json!({"from": -600, "to": 600, "step": 1});
-    let (status, body) = explorer.call("survey", &too_big);
-    assert_eq!(status, 400);
-    assert!(error_of(&body)["message"]
-        .as_str()
-        .unwrap()
-        .contains("cells"));
+    let refusal = refused(&explorer, "survey", &too_big);
+    assert!(refusal["message"].as_str().unwrap().contains("cells"));
 }
 
 #[test]
@@ -373,20 +384,28 @@ fn sound_gives_each_string_its_stiff_partials() {
             // Fletcher's stiff string, f_n = n f0 sqrt(1 + B n^2) with f0 = f1 / sqrt(1 + B)
             // (REFERENCES §5.1).
             let expected = n * f1 / (1.0 + b).sqrt() * (1.0 + b * n * n).sqrt();
-            approx::assert_relative_eq!(partial["hz"].as_f64().unwrap(), expected, max_relative = 1e-12);
+            approx::assert_relative_eq!(
+                partial["hz"].as_f64().unwrap(),
+                expected,
+                max_relative = 1e-12
+            );
             // The ideal pluck at beta: sin(n pi beta) / n^2 (Fletcher & Rossing, REFERENCES §11.1).
             let amplitude = (n * std::f64::consts::PI * 0.2).sin() / (n * n);
-            approx::assert_relative_eq!(partial["amplitude"].as_f64().unwrap(), amplitude, max_relative = 1e-12);
+            approx::assert_relative_eq!(
+                partial["amplitude"].as_f64().unwrap(),
+                amplitude,
+                max_relative = 1e-12
+            );
             assert!(partial["hz"].as_f64().unwrap() < 0.45 * 48000.0);
         }
     }
-    let (status, body) = explorer.call(
+    let refusal = refused(
+        &explorer,
         "sound",
         &json!({"instrument": instrument, "play": "hum", "seconds": 2.0, "pluck": 0.2,
                 "sample_rate_hz": 48000.0}),
     );
-    assert_eq!(status, 400);
-    assert_eq!(error_of(&body)["origin"], "--play");
+    assert_eq!(refusal["origin"], "--play");
 }
 
 #[test]
@@ -395,7 +414,13 @@ fn downloads_read_back_in_the_cli() {
     let plan = json!({"instrument": example_text("guitar-19edo"), "origin": "guitar-19edo.yaml",
                       "tuning": "22edo"});
     let folder = tempfile::tempdir().unwrap();
-    for what in ["chart-png:stress", "chart-svg:tension", "string-chart-html", "string-chart-csv", "plan-csv"] {
+    for what in [
+        "chart-png:stress",
+        "chart-svg:tension",
+        "string-chart-html",
+        "string-chart-csv",
+        "plan-csv",
+    ] {
         let response = explorer.request(
             "POST",
             &format!("{}api/export", explorer.path),
@@ -418,17 +443,34 @@ fn downloads_read_back_in_the_cli() {
             }
             _ => {
                 let text = String::from_utf8(response.body.clone()).unwrap();
-                assert!(text.lines().count() > 6, "{what}: a header and a row per string");
+                assert!(
+                    text.lines().count() > 6,
+                    "{what}: a header and a row per string"
+                );
             }
         }
     }
     let (_, set) = explorer.call("export", &json!({"what": "set-yaml", "plan": plan}));
-    let file = write_file(folder.path(), "set.yaml", std::str::from_utf8(&set).unwrap());
-    let audit = cli_json(&["audit", "guitar-19edo", "--set", file.to_str().unwrap(), "--tuning", "22edo"]);
+    let file = write_file(
+        folder.path(),
+        "set.yaml",
+        std::str::from_utf8(&set).unwrap(),
+    );
+    let audit = cli_json(&[
+        "audit",
+        "guitar-19edo",
+        "--set",
+        file.to_str().unwrap(),
+        "--tuning",
+        "22edo",
+    ]);
     assert_eq!(audit["courses"].as_array().unwrap().len(), 6);
-    let (status, body) = explorer.call("export", &json!({"what": "chart-png:pitch", "plan": plan}));
-    assert_eq!(status, 400);
-    assert_eq!(error_of(&body)["origin"], "what");
+    let refusal = refused(
+        &explorer,
+        "export",
+        &json!({"what": "chart-png:pitch", "plan": plan}),
+    );
+    assert_eq!(refusal["origin"], "what");
 }
 
 #[test]

@@ -19,7 +19,9 @@ async function api(name, body) {
     return { ok: response.ok, blob: await response.blob(), name: fileName(response) };
   }
   const data = await response.json();
-  return response.ok ? { ok: true, data } : { ok: false, error: data.error };
+  // The library's refusals of the input arrive as answers (`refused`), shown inline.
+  if (!response.ok) return { ok: false, error: data.error };
+  return data.refused ? { ok: false, error: data.refused } : { ok: true, data };
 }
 function fileName(response) {
   const m = /filename="([^"]+)"/.exec(response.headers.get('Content-Disposition') || '');
