@@ -399,7 +399,7 @@ function defaultStep() {
 function drawMap(box, data) {
   const ns = 'http://www.w3.org/2000/svg';
   const cell = 12, left = 64, top = 18;
-  const width = left + data.offsets.length * cell + 10, height = top + data.rows.length * cell + 30;
+  const width = Math.max(560, left + data.offsets.length * cell + 10), height = top + data.rows.length * cell + 30;
   const svg = document.createElementNS(ns, 'svg');
   svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
   svg.setAttribute('width', width);
