@@ -517,9 +517,7 @@ fn pin_a_string_see_a_yaml_error_download_and_listen() {
     );
     println!(
         "screenshot: {}",
-        browser
-            .screenshot("#instrument-card", "yaml-error.png")
-            .display()
+        browser.screenshot("#yaml-pane", "yaml-error.png").display()
     );
     let errors = browser.console_errors();
     assert!(errors.is_empty(), "console errors: {errors:?}");
