@@ -7,6 +7,11 @@
 use std::fmt;
 use std::path::PathBuf;
 
+// The last guard before any report is written or served: shared by the command line's writer
+// and the explorer's API, so neither can show `inf`, `NaN` or `null` for a number.
+mod finite;
+pub use finite::check_finite;
+
 /// Result type used throughout the library.
 pub type Result<T, E = Error> = std::result::Result<T, E>;
 

@@ -16,6 +16,7 @@
 //! | 8. charts | [`charts`] | pictures and exports of any result: chart data, SVG/PNG drawing, the builder's string chart, flat CSV records |
 //! | 8. sound | [`sound`] | a plan's strings as sound: stiff partials, pluck amplitudes, damping, notes rendered to samples, WAV bytes |
 //! | 8. MIDI | [`midi`] | tunings as MIDI Tuning Standard messages and Standard MIDI Files |
+//! | 9. explorer | [`explore`] | the local page's JSON API and server (`taut explore`): every other stage behind one HTTP call each |
 //!
 //! A module only uses modules of its own or an earlier stage. Errors are [`error::Error`]; every
 //! bad input names its file, line and field.
@@ -26,6 +27,7 @@
 
 pub mod charts;
 pub mod error;
+pub mod explore;
 pub mod frets;
 pub mod input;
 pub mod instrument;

@@ -15,7 +15,6 @@ use taut::strings::feel::{self, FeelOptions, DEFAULT_BEND_CENTS, DEFAULT_PUSH_N}
 use taut::strings::physics::{DEFAULT_BRIDGE_AFTERLENGTH, DEFAULT_NUT_AFTERLENGTH};
 use taut::tuning;
 
-use taut::plan::remedy::{self, Build};
 use taut::strings::select::{DEFAULT_CAUTION, DEFAULT_DANGER};
 use taut::strings::stock::Stock;
 
@@ -26,8 +25,8 @@ use super::pictures::{self, PlotArgs};
 use super::sound::{self, SoundArgs};
 use super::stock::StockArgs;
 use super::text::{
-    build_of_kind, change, course_pitch_text, diameter, diameter_symbol, force, force_with_unit,
-    maybe, stress_bar, user,
+    change, course_pitch_text, diameter, diameter_symbol, force, force_with_unit, maybe,
+    stress_bar, user,
 };
 use taut::plan::solve::tuning_for;
 

@@ -4,6 +4,7 @@
 mod audit;
 mod compare;
 mod convert;
+mod explore;
 mod frets;
 mod generate;
 mod help;
@@ -58,6 +59,8 @@ enum Command {
     Frets(frets::FretsArgs),
     /// Search tunings, offsets and course patterns for stringable settings, ranked.
     Survey(survey::SurveyArgs),
+    /// Try tunings, strings and lengths live in a local page in your browser.
+    Explore(explore::ExploreArgs),
     /// Make shell completions or the manual pages from this command line.
     Generate(generate::GenerateArgs),
     /// Print the help of a subcommand, or a reference topic (`taut help topics` lists them).
@@ -90,6 +93,7 @@ pub fn main() -> ExitCode {
         Command::Lengths(args) => lengths::run(args),
         Command::Frets(args) => frets::run(&args),
         Command::Survey(args) => survey::run(&args),
+        Command::Explore(args) => explore::run(&args),
         Command::Generate(args) => generate::run(args),
         Command::Help(args) => help::run(&args),
     };

@@ -3,7 +3,6 @@
 //! output (see [`files`]), plus the error message and exit code at the end of a run.
 
 mod files;
-mod finite;
 mod partial;
 
 use std::borrow::Cow;
@@ -17,8 +16,8 @@ use taut::error::{shown, Error, Result};
 use taut::input::units::{ForceUnit, LengthUnit};
 
 pub use files::{note_standard_output, write_bytes, Inputs, Outputs, Target, STANDARD_OUTPUT_ONLY};
-pub use finite::check_finite;
 pub use partial::watch_signals;
+pub use taut::error::check_finite;
 
 /// How a report is written.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]

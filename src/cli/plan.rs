@@ -9,7 +9,7 @@ use clap::{Args, ValueEnum};
 
 use taut::error::Result;
 use taut::instrument::{Instrument, TensionSpec};
-use taut::plan::remedy::{self, Build};
+use taut::plan::remedy;
 use taut::plan::several::SeveralOptions;
 use taut::plan::solve::{self, SolveOptions};
 use taut::plan::Plan;
@@ -360,29 +360,9 @@ fn sheet_format(path: &std::path::Path) -> Result<SheetFormat> {
     }
 }
 
-/// Ends every warning of the plan with what would fix it.
+/// Ends every warning of the plan with what would fix it (shared with the explorer).
 fn attach_fixes(plan: &mut Plan) {
-    let builds: Vec<(u32, usize, Build)> = plan
-        .courses
-        .iter()
-        .flat_map(|course| {
-            course.strings.iter().enumerate().map(|(index, string)| {
-                let build = match &*string.choice.construction {
-                    "plain" => Build::Plain,
-                    "wound" => Build::Wound,
-                    _ => Build::Unknown,
-                };
-                (course.course, index + 1, build)
-            })
-        })
-        .collect();
-    remedy::attach_by_string(
-        plan.courses
-            .iter_mut()
-            .map(|course| &mut course.warnings)
-            .chain(std::iter::once(&mut plan.warnings)),
-        &builds,
-    );
+    remedy::attach_to_plan(plan);
 }
 
 impl Render for Plan {

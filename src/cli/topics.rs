@@ -97,6 +97,10 @@ pub const TOPICS: &[Topic] = &[
         "input-files",
         "how files are read: units, YAML features, text shown escaped"
     ),
+    topic!(
+        "explorer",
+        "the local page of `taut explore`: what it shows, its API and its guard"
+    ),
     topic!("ranges", "the plausible range of every quantity, and why"),
     topic!("exit-codes", "what each exit code means"),
 ];

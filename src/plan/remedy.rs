@@ -191,6 +191,33 @@ pub fn attach_by_string<'w>(
     }
 }
 
+/// Ends every warning of `plan` with what would fix it, each string's build read from its
+/// chosen construction. The one place a plan's fixes are attached, so the command line and the
+/// explorer page show the same sentences.
+pub fn attach_to_plan(plan: &mut crate::plan::Plan) {
+    let builds: Vec<(u32, usize, Build)> = plan
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                let build = match &*string.choice.construction {
+                    "plain" => Build::Plain,
+                    "wound" => Build::Wound,
+                    _ => Build::Unknown,
+                };
+                (course.course, index + 1, build)
+            })
+        })
+        .collect();
+    attach_by_string(
+        plan.courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut plan.warnings)),
+        &builds,
+    );
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

@@ -13,6 +13,8 @@ mod compare_plans;
 mod convert_current_state;
 mod convert_plan;
 mod convert_transpose;
+mod explore_api;
+mod explore_browser;
 mod feel_fletcher;
 mod fix_advice;
 mod frets_bad_input;

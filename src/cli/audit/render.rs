@@ -175,27 +175,7 @@ pub(super) struct AuditRow<'a> {
     warnings: String,
 }
 
-/// Ends every warning of an audit with what would fix it.
+/// Ends every warning of an audit with what would fix it (shared with the explorer).
 pub(super) fn attach_fixes(report: &mut Audit, stock: &Stock) {
-    let builds: Vec<(u32, usize, Build)> = report
-        .courses
-        .iter()
-        .flat_map(|course| {
-            course.strings.iter().enumerate().map(|(index, string)| {
-                (
-                    course.course,
-                    index + 1,
-                    build_of_kind(stock, &string.string),
-                )
-            })
-        })
-        .collect();
-    remedy::attach_by_string(
-        report
-            .courses
-            .iter_mut()
-            .map(|course| &mut course.warnings)
-            .chain(std::iter::once(&mut report.warnings)),
-        &builds,
-    );
+    taut::sets::audit::attach_fixes(report, stock);
 }

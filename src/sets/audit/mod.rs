@@ -160,6 +160,35 @@ pub struct AuditString {
     pub feel: Feel,
 }
 
+/// Ends every warning of an audit with what would fix it, each string's build looked up by its
+/// kind in `stock`. Shared by the command line and the explorer, so both say the same.
+pub fn attach_fixes(report: &mut Audit, stock: &Stock) {
+    use crate::plan::remedy::{self, Build};
+    use crate::strings::kind::KindBuild;
+    let builds: Vec<(u32, usize, Build)> = report
+        .courses
+        .iter()
+        .flat_map(|course| {
+            course.strings.iter().enumerate().map(|(index, string)| {
+                let build = match stock.kinds().get(&string.string).map(|kind| &kind.build) {
+                    Ok(KindBuild::Plain { .. }) => Build::Plain,
+                    Ok(KindBuild::Wound { .. }) => Build::Wound,
+                    _ => Build::Unknown,
+                };
+                (course.course, index + 1, build)
+            })
+        })
+        .collect();
+    remedy::attach_by_string(
+        report
+            .courses
+            .iter_mut()
+            .map(|course| &mut course.warnings)
+            .chain(std::iter::once(&mut report.warnings)),
+        &builds,
+    );
+}
+
 /// Audits `set` on `instrument` in `tuning`; tension changes are measured from `reference`
 /// (where the strings are now) when given.
 pub fn audit(

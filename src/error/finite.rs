@@ -9,7 +9,7 @@ use std::path::PathBuf;
 
 use serde::ser::{self, Serialize};
 
-use taut::error::{Error, Result};
+use crate::error::{Error, Result};
 
 /// Fails with the field's name if any number in `value` is infinite or NaN.
 pub fn check_finite<T: Serialize + ?Sized>(value: &T) -> Result<()> {
@@ -263,7 +263,7 @@ mod tests {
                 list,
             };
             let err = check_finite(&bad).unwrap_err();
-            assert_eq!(err.exit_code(), taut::error::EXIT_FAILURE);
+            assert_eq!(err.exit_code(), crate::error::EXIT_FAILURE);
             assert!(err.to_string().contains("not a finite number"), "{err}");
         }
         let err = check_finite(&Row {
