@@ -217,15 +217,7 @@ pub fn run(args: &PlanArgs) -> Result<()> {
         sound::add(&mut outputs, request, &plan, &tuning)?;
     }
     if let Some(target) = &args.save_set {
-        let mut set = taut::sets::set::StringSet::from_plan(&plan);
-        // The spec that loaded, so `audit` and `convert` can load it back (a file tuning's
-        // display name would not load).
-        set.tuning = Some(
-            one_tuning_spec
-                .clone()
-                .or_else(|| instrument.tuning.clone())
-                .unwrap_or_else(|| solve::DEFAULT_TUNING.to_string()),
-        );
+        let set = taut::sets::set::StringSet::from_plan(&plan);
         outputs.add(
             "--save-set",
             Some(target.clone()),

@@ -48,16 +48,17 @@ pub struct SolveOptions {
 pub fn plan(instrument: &Instrument, stock: &Stock, options: &SolveOptions) -> Result<Plan> {
     let tuning = tuning_for(instrument, options.tuning.as_deref(), "--tuning")?;
     let mut plan = solve(instrument, &tuning, stock, options.tension.as_ref())?;
-    plan.tuning_spec = Some(
-        options
-            .tuning
-            .as_deref()
-            .or(instrument.tuning.as_deref())
-            .unwrap_or(DEFAULT_TUNING)
-            .trim()
-            .to_string(),
-    );
+    plan.tuning_spec = Some(tuning_spec_for(instrument, options.tuning.as_deref()).to_string());
     Ok(plan)
+}
+
+/// The tuning spec `instrument` is planned in, as written: `given`, else the file's own
+/// `tuning:`, else [`DEFAULT_TUNING`] (the order [`tuning_for`] loads them in), trimmed.
+pub fn tuning_spec_for<'a>(instrument: &'a Instrument, given: Option<&'a str>) -> &'a str {
+    given
+        .or(instrument.tuning.as_deref())
+        .unwrap_or(DEFAULT_TUNING)
+        .trim()
 }
 
 /// The tuning to use for `instrument`: the one given on the command line as `flag` (errors

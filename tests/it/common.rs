@@ -64,6 +64,20 @@ pub fn write_file(folder: &Path, name: &str, text: &str) -> PathBuf {
     path
 }
 
+/// Writes an instrument file and a set file into a new folder and returns `taut audit`'s JSON
+/// for the set on that instrument in its own tuning.
+pub fn audit_of(instrument: &str, set: &str) -> Value {
+    let dir = tempfile::tempdir().unwrap();
+    let instrument = write_file(dir.path(), "instrument.yaml", instrument);
+    let set = write_file(dir.path(), "set.yaml", set);
+    json(&[
+        "audit",
+        instrument.to_str().unwrap(),
+        "--set",
+        set.to_str().unwrap(),
+    ])
+}
+
 /// A running `taut explore` (the real binary), stopped when dropped.
 pub struct Explorer {
     child: std::process::Child,

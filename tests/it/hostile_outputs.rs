@@ -34,6 +34,27 @@ fn instrument(name: &str, tuning: &str, pitch_1: &str, extra: &str) -> String {
 
 const STOCK: &str = "catalogs:\n  - id: bench-steel\n    name: Steel on the bench\n    diameters: [0.25mm, 0.30mm]\n    source: measured\n";
 
+/// Writes `set.yaml` in `dir`: the strings `taut plan` chooses for the folder's `one.yaml`.
+fn save_set_of_one(dir: &Path) {
+    let saved = taut()
+        .current_dir(dir)
+        .args([
+            "plan",
+            "one.yaml",
+            "--save-set",
+            "set.yaml",
+            "-o",
+            "/dev/null",
+        ])
+        .output()
+        .unwrap();
+    assert!(
+        saved.status.success(),
+        "{}",
+        String::from_utf8_lossy(&saved.stderr)
+    );
+}
+
 /// A folder holding every kind of file the commands read, each file naming the next:
 /// instruments whose tunings and variants' tunings are files, a set, a layout with a tuning
 /// file, survey settings listing a tuning file, a stock file.
@@ -72,23 +93,7 @@ fn folder_of_inputs() -> tempfile::TempDir {
         "layout.yaml",
         "name: layout\ntuning: layout-tuning.yaml\ntension: {first: 60N, last: 60N, min: 40N, max: 80N}\ncourses:\n  - {pitch: E4, string: {kind: plain-steel, diameter: 0.010in}}\n  - {pitch: B3, string: {kind: plain-steel, diameter: 0.013in}}\n",
     );
-    let saved = taut()
-        .current_dir(dir.path())
-        .args([
-            "plan",
-            "one.yaml",
-            "--save-set",
-            "set.yaml",
-            "-o",
-            "/dev/null",
-        ])
-        .output()
-        .unwrap();
-    assert!(
-        saved.status.success(),
-        "{}",
-        String::from_utf8_lossy(&saved.stderr)
-    );
+    save_set_of_one(dir.path());
     dir
 }
 
@@ -332,23 +337,7 @@ fn hostile_folder() -> tempfile::TempDir {
         "layout.yaml",
         "name: \"=layout\"\ntuning: t.yaml\ntension: {first: 60N, last: 60N, min: 40N, max: 80N}\ncourses:\n  - {pitch: \"-100c\", string: {kind: plain-steel, diameter: 0.010in}}\n  - {pitch: B3, string: {kind: plain-steel, diameter: 0.013in}}\n",
     );
-    let saved = taut()
-        .current_dir(dir.path())
-        .args([
-            "plan",
-            "one.yaml",
-            "--save-set",
-            "set.yaml",
-            "-o",
-            "/dev/null",
-        ])
-        .output()
-        .unwrap();
-    assert!(
-        saved.status.success(),
-        "{}",
-        String::from_utf8_lossy(&saved.stderr)
-    );
+    save_set_of_one(dir.path());
     dir
 }
 

@@ -2,7 +2,7 @@
 //! tension `taut` reports is the unstretched string's, an upper bound on what the settled string
 //! pulls, and the reports say so.
 
-use crate::common::{json, number, table, write_file};
+use crate::common::{audit_of, number, table};
 
 /// E4, B3 and G3 of a normal-tension classical set: diameters as sold 0.72, 0.82 and 1.02 mm on
 /// a 650 mm scale (common practice, from memory).
@@ -18,7 +18,6 @@ const TREBLES: [(&str, f64, f64); 3] = [
 const MEASURED_N: [f64; 3] = [70.3, 53.4, 58.3];
 
 fn audited_tensions() -> Vec<f64> {
-    let dir = tempfile::tempdir().unwrap();
     let mut instrument = String::from(
         "name: Classical trebles\ntuning: 12edo\nscale_length: 650mm\ndefaults:\n  kinds: [nylon]\ncourses:\n",
     );
@@ -30,14 +29,7 @@ fn audited_tensions() -> Vec<f64> {
             diameter * 1000.0
         ));
     }
-    let instrument = write_file(dir.path(), "trebles.yaml", &instrument);
-    let set = write_file(dir.path(), "set.yaml", &set);
-    let report = json(&[
-        "audit",
-        instrument.to_str().unwrap(),
-        "--set",
-        set.to_str().unwrap(),
-    ]);
+    let report = audit_of(&instrument, &set);
     report["courses"]
         .as_array()
         .unwrap()

@@ -1,7 +1,7 @@
 //! The stiffness model of plain steel through the binary: continuous in diameter (no step at a
 //! size-range edge of the modulus table) and still on its published anchors.
 
-use crate::common::{json, number, write_file};
+use crate::common::{audit_of, number};
 
 const IN: f64 = 0.0254;
 const LENGTH: f64 = 1.0;
@@ -10,7 +10,6 @@ const PITCH: f64 = 110.0;
 /// Audits plain-steel strings of the given diameters (inches), one per course, at A2 on 1 m, and
 /// returns each string's diameter (m) and reported inharmonicity B.
 fn reported_b(diameters_in: &[f64]) -> Vec<(f64, f64)> {
-    let dir = tempfile::tempdir().unwrap();
     let mut instrument = String::from(
         "name: Test wires\ntuning: 12edo\nscale_length: 1000mm\ndefaults:\n  kinds: [plain-steel]\ncourses:\n",
     );
@@ -21,14 +20,7 @@ fn reported_b(diameters_in: &[f64]) -> Vec<(f64, f64)> {
             "  - strings: [{{kind: plain-steel, diameter: {d:.5}in}}]\n"
         ));
     }
-    let instrument = write_file(dir.path(), "wires.yaml", &instrument);
-    let set = write_file(dir.path(), "set.yaml", &set);
-    let report = json(&[
-        "audit",
-        instrument.to_str().unwrap(),
-        "--set",
-        set.to_str().unwrap(),
-    ]);
+    let report = audit_of(&instrument, &set);
     report["courses"]
         .as_array()
         .unwrap()

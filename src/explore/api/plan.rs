@@ -62,13 +62,11 @@ pub struct PlanReply {
     pub charts: Vec<DrawnChart>,
 }
 
-/// The tuning spec a request plans in, as `taut plan` would choose it.
+/// The tuning spec a request plans in, as `taut plan` would choose it (an empty field is no
+/// tuning given).
 fn spec_of(instrument: &Instrument, given: Option<&str>) -> String {
-    given
-        .filter(|spec| !spec.trim().is_empty())
-        .map(str::to_string)
-        .or_else(|| instrument.tuning.clone())
-        .unwrap_or_else(|| solve::DEFAULT_TUNING.to_string())
+    let given = given.filter(|spec| !spec.trim().is_empty());
+    solve::tuning_spec_for(instrument, given).to_string()
 }
 
 /// A word for a shell command line, quoted when it needs it.
@@ -244,9 +242,7 @@ pub fn export(request: &ExportRequest) -> Result<Exported> {
             crate::charts::records::guarded(&crate::charts::records::csv(&solved.plan)?)?,
         ),
         "set-yaml" => {
-            let mut set = StringSet::from_plan(&solved.plan);
-            // The spec that loads, as `--save-set` writes it.
-            set.tuning = Some(solved.spec.clone());
+            let set = StringSet::from_plan(&solved.plan);
             text("application/yaml", "-set.yaml", set.to_yaml())
         }
         "string-chart-html" => {

@@ -5,7 +5,7 @@
 use crate::error::{Error, Result};
 use crate::input::yaml::PathStep;
 use crate::instrument::{Instrument, MAX_VARIANTS};
-use crate::plan::solve::{tuning_for, DEFAULT_TUNING};
+use crate::plan::solve::{tuning_for, tuning_spec_for};
 use crate::tuning::course_pitch::CoursePitch;
 use crate::tuning::{self, Tuning};
 
@@ -83,12 +83,7 @@ pub fn resolve(instrument: &Instrument, tunings: &[String], flag: &str) -> Resul
         }
     }
     let base = tuning_for(instrument, tunings.first().map(String::as_str), flag)?;
-    let base_spec = tunings
-        .first()
-        .or(instrument.tuning.as_ref())
-        .map_or(DEFAULT_TUNING, String::as_str)
-        .trim()
-        .to_string();
+    let base_spec = tuning_spec_for(instrument, tunings.first().map(String::as_str)).to_string();
     if instrument.variants.is_empty() {
         return Ok(vec![Resolved {
             name: base.name().to_string(),

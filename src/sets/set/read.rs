@@ -157,7 +157,8 @@ impl StringSet {
     }
 
     /// The strings a plan chose, as a set (kinds and diameters), recording the instrument and
-    /// tuning it was planned for.
+    /// tuning it was planned for: the tuning as given where the plan knows it, so the set loads
+    /// it back with its reference (a display name alone may not load).
     pub fn from_plan(plan: &Plan) -> Self {
         let courses = plan
             .courses
@@ -177,13 +178,17 @@ impl StringSet {
                     .collect(),
             })
             .collect();
-        StringSet::chosen_for(
+        let mut set = StringSet::chosen_for(
             &plan.instrument,
             &plan.tuning,
             "Strings chosen by `taut plan`.".to_string(),
             courses,
             "the plan",
-        )
+        );
+        if let Some(spec) = &plan.tuning_spec {
+            set.tuning = Some(spec.clone());
+        }
+        set
     }
 
     /// The set as a YAML file in the schema [`StringSet::from_text`] reads.
